@@ -1,0 +1,239 @@
+//! The computed schedule as plain report data.
+//!
+//! The project crate fills a [`Schedule`] from the wind, withdrawal and spacing results; the writers in this
+//! crate turn it into CSV and PDF bytes. Nothing here computes engineering values: the writers only format,
+//! so a report can never disagree with the numbers that were checked. All quantities are SI; the writers
+//! add the US twins where [`Units::Imperial`] asks for them.
+
+use serde::Serialize;
+
+/// Which units the printed report leads with. CSV files always carry both.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Units {
+    /// mm, kPa, N (Canadian basis).
+    Si,
+    /// in, psf, lbf first, SI in brackets (US basis).
+    Imperial,
+}
+
+/// Who, where and when: the title block of every page.
+#[derive(Debug, Clone, Default, Serialize)]
+pub struct ProjectInfo {
+    pub name: String,
+    pub site: String,
+    pub owner: String,
+    pub prepared_by: String,
+    /// Date printed on the report and used as the PDF creation date (ISO 8601, `YYYY-MM-DD`).
+    pub date: String,
+    pub notes: String,
+}
+
+/// The design basis and the editions behind it.
+#[derive(Debug, Clone, Serialize)]
+pub struct BasisInfo {
+    /// The project file's basis id, e.g. `nbc2020-o86`.
+    pub id: String,
+    /// One line for people, e.g. "NBC 2020 Part 4 wind, CSA O86 limit states withdrawal".
+    pub title: String,
+    pub wind_standard: String,
+    pub fastener_standard: String,
+    pub units: Units,
+}
+
+/// A name, value and where the value comes from: one line of a derivation.
+#[derive(Debug, Clone, Serialize)]
+pub struct FactorRow {
+    pub name: String,
+    pub value: f64,
+    /// Clause, table or figure with edition, and `checked` or `from memory`.
+    pub source: String,
+}
+
+/// One input as the user gave it (after validation), for the design-basis page.
+#[derive(Debug, Clone, Serialize)]
+pub struct InputRow {
+    /// Key path in the project file, e.g. `roof.slope_deg`.
+    pub key: String,
+    /// Value with its unit, as it should be printed.
+    pub value: String,
+}
+
+/// A roof zone drawn on the plan.
+#[derive(Debug, Clone, Serialize)]
+pub struct PlanZone {
+    /// `interior`, `edge`, `corner`, `overhang-interior`, `overhang-edge` or `overhang-corner`.
+    pub label: String,
+    /// The standard's own name for the zone (e.g. `s` or `2e`).
+    pub code_zone: String,
+    /// Polygons in plan coordinates, m.
+    pub polygons_m: Vec<Vec<[f64; 2]>>,
+}
+
+/// A framing line drawn on the plan.
+#[derive(Debug, Clone, Serialize)]
+pub struct PlanLine {
+    pub number: u32,
+    pub start_m: [f64; 2],
+    pub end_m: [f64; 2],
+}
+
+/// Everything needed to draw the roof plan to scale.
+#[derive(Debug, Clone, Default, Serialize)]
+pub struct PlanView {
+    /// The wall line, m.
+    pub building_outline_m: Vec<[f64; 2]>,
+    /// The roof edge including overhangs, m.
+    pub roof_outline_m: Vec<[f64; 2]>,
+    /// Ridge and hip lines, m.
+    pub ridge_lines_m: Vec<[[f64; 2]; 2]>,
+    pub zones: Vec<PlanZone>,
+    pub rafter_lines: Vec<PlanLine>,
+    /// Panel end joints drawn as short segments, m (may be empty).
+    pub panel_joints_m: Vec<[[f64; 2]; 2]>,
+    /// Course lines (long panel edges), m (may be empty).
+    pub course_lines_m: Vec<[[f64; 2]; 2]>,
+}
+
+/// The nail the schedule calls for.
+#[derive(Debug, Clone, Serialize)]
+pub struct NailInfo {
+    pub id: String,
+    pub description: String,
+    pub length_mm: f64,
+    pub shank_diameter_mm: f64,
+    pub head_diameter_mm: f64,
+    /// `smooth`, `spiral`, `ring` or `screw`.
+    pub shank: String,
+    /// `carbon` or `stainless`.
+    pub material: String,
+    pub source: String,
+}
+
+/// How the per-nail resistance was derived.
+#[derive(Debug, Clone, Serialize)]
+pub struct ResistanceInfo {
+    pub withdrawal_n: f64,
+    pub pull_through_n: Option<f64>,
+    /// True when the pull-through value is an advisory check outside the standard's resistance.
+    pub pull_through_is_advisory: bool,
+    pub governing_n: f64,
+    /// `withdrawal` or `head-pull-through`.
+    pub governing_mode: String,
+    pub penetration_mm: f64,
+    pub factors: Vec<FactorRow>,
+}
+
+/// Pressures on one zone at the effective area of the governing nail.
+#[derive(Debug, Clone, Serialize)]
+pub struct ZonePressureRow {
+    pub label: String,
+    pub code_zone: String,
+    /// Plan area of the zone, m².
+    pub area_m2: f64,
+    pub effective_area_m2: f64,
+    pub cp_ext: f64,
+    pub cp_int: f64,
+    pub external_kpa: f64,
+    pub internal_kpa: f64,
+    pub dead_counteracting_kpa: f64,
+    pub net_uplift_kpa: f64,
+    pub source: String,
+}
+
+/// One line of the crew's schedule: a zone and a support role.
+#[derive(Debug, Clone, Serialize)]
+pub struct ZoneRow {
+    pub label: String,
+    pub code_zone: String,
+    /// `panel-edge` or `intermediate`.
+    pub support_role: String,
+    pub nail_id: String,
+    pub nail_description: String,
+    /// None: no practical spacing works with this nail.
+    pub spacing_mm: Option<f64>,
+    pub net_uplift_kpa: f64,
+    pub demand_n: f64,
+    pub resistance_n: f64,
+    /// `withdrawal` or `head-pull-through`.
+    pub governing_mode: String,
+    pub utilization: f64,
+    pub nail_count: u64,
+    /// What sets the spacing, in words: "strength", "prescriptive maximum", "splitting minimum".
+    pub governing_check: String,
+    /// Rafter line number where the spacing governs.
+    pub governing_line: u32,
+}
+
+/// One stretch of a rafter line with one zone and one support role.
+#[derive(Debug, Clone, Serialize)]
+pub struct SegmentRow {
+    /// Along the slope from the line's low end, m.
+    pub from_m: f64,
+    pub to_m: f64,
+    pub zone_label: String,
+    pub support_role: String,
+    pub spacing_mm: Option<f64>,
+    pub utilization: f64,
+}
+
+/// A rafter (truss, joist) line and its segments.
+#[derive(Debug, Clone, Serialize)]
+pub struct LineRow {
+    pub number: u32,
+    /// Plan coordinate of the line (x or y, whichever is constant), m.
+    pub position_m: f64,
+    /// Length along the slope, m.
+    pub length_m: f64,
+    pub segments: Vec<SegmentRow>,
+}
+
+/// The whole schedule for one roof and one nail.
+#[derive(Debug, Clone, Serialize)]
+pub struct Schedule {
+    pub project: ProjectInfo,
+    pub basis: BasisInfo,
+    pub plan: PlanView,
+    /// Plan dimensions of the building (wall line), m: length along x, width along y.
+    pub building_length_m: f64,
+    pub building_width_m: f64,
+    pub framing_spacing_mm: f64,
+    /// e.g. "rafter", "truss", "joist".
+    pub framing_member: String,
+    /// e.g. "OSB 15.5 mm, 1220 x 2440 mm panels, half stagger".
+    pub deck_description: String,
+    pub nail: NailInfo,
+    pub resistance: ResistanceInfo,
+    /// Velocity pressure and the wind factors used.
+    pub wind_factors: Vec<FactorRow>,
+    pub edge_width_m: f64,
+    pub zone_pressures: Vec<ZonePressureRow>,
+    pub zones: Vec<ZoneRow>,
+    pub lines: Vec<LineRow>,
+    pub total_nail_count: u64,
+    pub total_nail_mass_kg: f64,
+    pub inputs: Vec<InputRow>,
+    /// Where every table value came from, one line each.
+    pub provenance: Vec<String>,
+    /// Things the engineer must look at (values from memory, nails exiting members, ...).
+    pub warnings: Vec<String>,
+    /// True when every zone has a working spacing.
+    pub feasible: bool,
+    /// When infeasible: what would work instead (other nails, closer framing).
+    pub alternatives: Vec<String>,
+    /// Printed on every page and at the foot of every file.
+    pub cautions: Vec<String>,
+}
+
+/// The cautions every schedule carries. Kept here so that every writer prints the same words.
+pub fn standard_cautions() -> Vec<String> {
+    vec![
+        "For use by a qualified person: this schedule is a design aid, not a design.".to_string(),
+        "Verify against the governing local building code and the nail manufacturer's specification."
+            .to_string(),
+        "The design must be reviewed, and sealed by a registered professional where the law requires."
+            .to_string(),
+        "Coefficients marked 'from memory' must be checked against the printed standard before use."
+            .to_string(),
+    ]
+}
