@@ -1,1 +1,22 @@
-//! placeholder
+//! The computed schedule as report data ([`model`]), and the writers that turn it into bytes:
+//! `schedule.csv`, `rafter-lines.csv` and the PDF (crew sheet, design basis, rafter-line table).
+//!
+//! Writers only format: every engineering value comes from the [`Schedule`]; the writers convert units
+//! for the imperial twins and round to the fixed places listed in `docs/report-format.md`. No file I/O,
+//! no clock: the same schedule and options give the same bytes.
+
+mod csv_lines;
+mod csv_schedule;
+mod error;
+mod finite;
+pub mod format;
+pub mod model;
+mod pdf;
+#[doc(hidden)]
+pub mod sample;
+
+pub use csv_lines::{rafter_lines_csv, LINES_HEADER};
+pub use csv_schedule::{schedule_csv, NO_SPACING, SCHEDULE_HEADER};
+pub use error::ScheduleError;
+pub use model::*;
+pub use pdf::{schedule_pdf, PdfOptions};

@@ -1,0 +1,698 @@
+//! Deck layout: framing lines clipped to each roof plane, split by governing wind zone, and the
+//! panel courses that decide, line by line, where panel ends fall and what each support carries.
+//!
+//! Plain data in, plain data out: the roof planes and zone polygons come from the caller (in plan,
+//! metres), the zone order from a rank the caller gives (higher = worse), so this module knows
+//! nothing of pressures.
+
+mod courses;
+mod geometry;
+mod lines;
+mod zones;
+
+use serde::{Deserialize, Serialize};
+
+use crate::spacing::{check_positive, check_range, SpacingError};
+use courses::{bearing_at, course_joints, StripCache};
+use geometry::{validate_polygon, MIN_PIECE_M};
+use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
+use zones::{zone_pieces, LineStrip};
+
+/// One roof plane in plan.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct PlaneGeometry {
+    /// Outline of the plane in plan, overhangs included, m.
+    pub polygon_m: Vec<[f64; 2]>,
+    /// Slope of the plane, degrees (0..60).
+    pub slope_deg: f64,
+    /// Unit plan vector pointing down the slope; `[0, 0]` for a flat plane.
+    pub downslope_m: [f64; 2],
+}
+
+/// The plan area of one wind zone (the zones together tile the roof).
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct ZoneRegion {
+    /// The caller's zone number; also the index into `zone_rank` and the uplift function's argument.
+    pub zone_index: usize,
+    pub polygons_m: Vec<Vec<[f64; 2]>>,
+}
+
+/// A plan axis.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+#[serde(rename_all = "lowercase")]
+pub enum Axis {
+    X,
+    Y,
+}
+
+/// How the roof is framed.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct FramingInput {
+    /// Framing spacing on centre, mm (200..1220).
+    pub spacing_mm: f64,
+    /// Direction the framing lines run in. Default: down each plane's slope; for a flat plane,
+    /// parallel to its shorter plan dimension (the joists span the short way).
+    pub lines_along: Option<Axis>,
+    /// Plan offset of the first line from the plane's smallest coordinate across the lines, mm;
+    /// 0 puts a line on each edge of the plane.
+    pub first_line_offset_mm: f64,
+}
+
+/// The deck panels.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct PanelInput {
+    /// Panel length, laid across the framing, mm (600..3700).
+    pub length_mm: f64,
+    /// Panel width, laid along the framing, mm (300..1250).
+    pub width_mm: f64,
+    pub stagger: Stagger,
+}
+
+/// Offset of the panel end joints in alternate courses.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+#[serde(rename_all = "snake_case")]
+pub enum Stagger {
+    /// Every other course starts with half a panel (snapped to a framing line).
+    Half,
+    /// All courses start with a full panel.
+    None,
+    /// Every other course starts with a part panel of this length, mm (snapped to a framing line).
+    OffsetMm(f64),
+}
+
+/// What a framing line is to the panels of one course.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum SupportRole {
+    /// Panel ends meet on the line (two rows of nails), or the deck ends on it (one row).
+    PanelEdge,
+    /// The panel runs across the line.
+    Intermediate,
+}
+
+/// One panel strip bearing on a line: a continuous beam over the lines it crosses.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct PanelStrip {
+    /// Spans between the supports the strip crosses, on the slope, m.
+    pub spans_m: Vec<f64>,
+    /// Deck running past the first and last support as a cantilever, on the slope, m.
+    pub overhang_start_m: f64,
+    pub overhang_end_m: f64,
+    /// Which of the strip's supports is this line.
+    pub support_index: usize,
+    /// The strip's reaction on this line per unit pressure: the width of deck the line's row of
+    /// nails holds, mm on the slope. Negative when the deck presses down on the line.
+    pub reaction_width_mm: f64,
+}
+
+/// One stretch of a line within one panel course.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Bearing {
+    pub course_index: usize,
+    /// Along the slope from the line's start (low end), m.
+    pub from_m: f64,
+    pub to_m: f64,
+    pub support_role: SupportRole,
+    /// One strip for an intermediate support or a deck edge, two at a panel end joint.
+    pub strips: Vec<PanelStrip>,
+}
+
+/// One stretch of a line in one governing zone.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct ZonePiece {
+    /// Along the slope from the line's start (low end), m.
+    pub from_m: f64,
+    pub to_m: f64,
+    pub zone_index: usize,
+}
+
+/// A framing line (rafter, truss chord, joist) with its zones and panel bearings.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct LayoutLine {
+    /// 1..N over the roof, by plane then by position.
+    pub number: u32,
+    pub plane_index: usize,
+    /// Direction the line runs in.
+    pub axis: Axis,
+    /// The line's constant plan coordinate (x for a line along y), m.
+    pub position_m: f64,
+    /// Length of deck the line carries, on the slope, m.
+    pub length_m: f64,
+    /// Plan points of the line's low and high ends.
+    pub plan_start_m: [f64; 2],
+    pub plan_end_m: [f64; 2],
+    /// Where the line is inside the plane, along the slope from its start, m (several for a line
+    /// crossing a notch).
+    pub intervals_m: Vec<[f64; 2]>,
+    pub zones: Vec<ZonePiece>,
+    pub bearings: Vec<Bearing>,
+}
+
+/// One course of panels on one plane.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct Course {
+    pub plane_index: usize,
+    /// 0 at the low edge.
+    pub index: usize,
+    /// Along the slope from the plane's low edge, m.
+    pub from_m: f64,
+    pub to_m: f64,
+    /// Plan positions across the lines of the panel ends in this course, both deck edges included, m.
+    pub joints_m: Vec<f64>,
+}
+
+/// The laid-out deck.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct DeckLayout {
+    pub lines: Vec<LayoutLine>,
+    pub courses: Vec<Course>,
+}
+
+/// Lays out the framing lines and panel courses of every plane.
+///
+/// `zone_rank[zone_index]` orders the zones, higher = worse (corner > edge > interior, overhang zones
+/// by their pressure). A stretch of line takes the worst zone its deck strip (half a spacing either
+/// side) touches.
+pub fn layout_deck(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+) -> Result<DeckLayout, SpacingError> {
+    validate(planes, zones, zone_rank, framing, panel)?;
+    let mut cache = StripCache::default();
+    let mut lines = Vec::new();
+    let mut courses = Vec::new();
+    let mut number = 0u32;
+    for (plane_index, plane) in planes.iter().enumerate() {
+        let frame = plane_frame(plane_index, plane, framing)?;
+        let grid = grid_lines(plane, &frame, framing);
+        let width_m = panel.width_mm / 1000.0;
+        let slope_length_m = frame.slope_length_m();
+        let course_count = ((slope_length_m / width_m) - 1e-9).ceil().max(1.0) as usize;
+        let mut plane_courses = Vec::with_capacity(course_count);
+        for index in 0..course_count {
+            plane_courses.push(Course {
+                plane_index,
+                index,
+                from_m: index as f64 * width_m,
+                to_m: ((index + 1) as f64 * width_m).min(slope_length_m),
+                joints_m: course_joints(
+                    plane_index,
+                    &frame,
+                    &grid,
+                    panel,
+                    framing.spacing_mm,
+                    index,
+                )?,
+            });
+        }
+        for line in 0..grid.len() {
+            number += 1;
+            let context = PlaneContext {
+                plane,
+                frame: &frame,
+                grid: &grid,
+                courses: &plane_courses,
+            };
+            lines.push(lay_out_line(
+                &context,
+                line,
+                number,
+                plane_index,
+                framing,
+                zones,
+                zone_rank,
+                &mut cache,
+            )?);
+        }
+        courses.extend(plane_courses);
+    }
+    Ok(DeckLayout { lines, courses })
+}
+
+struct PlaneContext<'a> {
+    plane: &'a PlaneGeometry,
+    frame: &'a PlaneFrame,
+    grid: &'a [GridLine],
+    courses: &'a [Course],
+}
+
+#[allow(clippy::too_many_arguments)]
+fn lay_out_line(
+    context: &PlaneContext<'_>,
+    line: usize,
+    number: u32,
+    plane_index: usize,
+    framing: &FramingInput,
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    cache: &mut StripCache,
+) -> Result<LayoutLine, SpacingError> {
+    let frame = context.frame;
+    let grid_line = &context.grid[line];
+    // Slope coordinates from the plane's low edge, increasing up the slope.
+    let mut slope_intervals: Vec<[f64; 2]> = grid_line
+        .intervals_m
+        .iter()
+        .map(|i| {
+            let a = frame.slope_from_low_edge_m(i[0]);
+            let b = frame.slope_from_low_edge_m(i[1]);
+            [a.min(b), a.max(b)]
+        })
+        .collect();
+    slope_intervals.sort_by(|p, q| p[0].total_cmp(&q[0]));
+    let start_m = slope_intervals.first().map_or(0.0, |i| i[0]);
+    let end_m = slope_intervals.last().map_or(0.0, |i| i[1]);
+
+    let strip = LineStrip {
+        number,
+        plane_polygon_m: &context.plane.polygon_m,
+        run: frame.run,
+        position_m: grid_line.position_m,
+        half_width_m: framing.spacing_mm / 2000.0,
+    };
+    let mut zone_list = Vec::new();
+    for interval in &grid_line.intervals_m {
+        for piece in zone_pieces(strip, *interval, zones, zone_rank)? {
+            let a = frame.slope_from_low_edge_m(piece.from_m) - start_m;
+            let b = frame.slope_from_low_edge_m(piece.to_m) - start_m;
+            zone_list.push(ZonePiece {
+                from_m: a.min(b),
+                to_m: a.max(b),
+                zone_index: piece.zone_index,
+            });
+        }
+    }
+    zone_list.sort_by(|p, q| p.from_m.total_cmp(&q.from_m));
+
+    let mut bearings = Vec::new();
+    for interval in &slope_intervals {
+        for course in context.courses {
+            let from = interval[0].max(course.from_m);
+            let to = interval[1].min(course.to_m);
+            if to - from < MIN_PIECE_M {
+                continue;
+            }
+            let along_m = frame.along_at_m(0.5 * (from + to));
+            let (support_role, strips) = bearing_at(
+                &context.plane.polygon_m,
+                frame,
+                context.grid,
+                &course.joints_m,
+                line,
+                along_m,
+                cache,
+            )?;
+            bearings.push(Bearing {
+                course_index: course.index,
+                from_m: from - start_m,
+                to_m: to - start_m,
+                support_role,
+                strips,
+            });
+        }
+    }
+
+    Ok(LayoutLine {
+        number,
+        plane_index,
+        axis: frame.run,
+        position_m: grid_line.position_m,
+        length_m: slope_intervals.iter().map(|i| i[1] - i[0]).sum(),
+        plan_start_m: frame.plan_point(grid_line.position_m, frame.along_at_m(start_m)),
+        plan_end_m: frame.plan_point(grid_line.position_m, frame.along_at_m(end_m)),
+        intervals_m: slope_intervals
+            .iter()
+            .map(|i| [i[0] - start_m, i[1] - start_m])
+            .collect(),
+        zones: zone_list,
+        bearings,
+    })
+}
+
+fn validate(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+) -> Result<(), SpacingError> {
+    if planes.is_empty() {
+        return Err(SpacingError::Invalid {
+            field: "planes".to_string(),
+            reason: "needs at least one roof plane".to_string(),
+        });
+    }
+    for (i, plane) in planes.iter().enumerate() {
+        validate_polygon(&format!("planes[{i}].polygon_m"), &plane.polygon_m, true)?;
+        check_range(
+            || format!("planes[{i}].slope_deg"),
+            plane.slope_deg,
+            0.0,
+            60.0,
+        )?;
+        let [ux, uy] = plane.downslope_m;
+        let field = || format!("planes[{i}].downslope_m");
+        if !(ux.is_finite() && uy.is_finite()) {
+            return Err(SpacingError::Invalid {
+                field: field(),
+                reason: format!("[{ux}, {uy}] is not a finite vector"),
+            });
+        }
+        let norm = ux.hypot(uy);
+        if norm == 0.0 && plane.slope_deg > 0.0 {
+            return Err(SpacingError::Invalid {
+                field: field(),
+                reason: format!("[0, 0] (flat) but slope_deg is {}", plane.slope_deg),
+            });
+        }
+        if norm != 0.0 && (norm - 1.0).abs() > 1e-6 {
+            return Err(SpacingError::Invalid {
+                field: field(),
+                reason: format!("[{ux}, {uy}] is not a unit vector (length {norm})"),
+            });
+        }
+    }
+    if zones.is_empty() {
+        return Err(SpacingError::Invalid {
+            field: "zones".to_string(),
+            reason: "needs at least one zone".to_string(),
+        });
+    }
+    for (i, zone) in zones.iter().enumerate() {
+        if zone.zone_index >= zone_rank.len() {
+            return Err(SpacingError::Invalid {
+                field: format!("zones[{i}].zone_index"),
+                reason: format!(
+                    "{} has no entry in zone_rank ({} entries)",
+                    zone.zone_index,
+                    zone_rank.len()
+                ),
+            });
+        }
+        for (j, polygon) in zone.polygons_m.iter().enumerate() {
+            validate_polygon(&format!("zones[{i}].polygons_m[{j}]"), polygon, false)?;
+        }
+    }
+    check_range(
+        || "framing.spacing_mm".to_string(),
+        framing.spacing_mm,
+        200.0,
+        1220.0,
+    )?;
+    if !(framing.first_line_offset_mm.is_finite()
+        && framing.first_line_offset_mm >= 0.0
+        && framing.first_line_offset_mm < framing.spacing_mm)
+    {
+        return Err(SpacingError::OutOfRange {
+            field: "framing.first_line_offset_mm".to_string(),
+            value: framing.first_line_offset_mm,
+            allowed: format!("0..{} (less than framing.spacing_mm)", framing.spacing_mm),
+        });
+    }
+    check_range(
+        || "panel.length_mm".to_string(),
+        panel.length_mm,
+        600.0,
+        3700.0,
+    )?;
+    check_range(
+        || "panel.width_mm".to_string(),
+        panel.width_mm,
+        300.0,
+        1250.0,
+    )?;
+    if let Stagger::OffsetMm(offset_mm) = panel.stagger {
+        check_positive(|| "panel.stagger.offset_mm".to_string(), offset_mm)?;
+        if offset_mm >= panel.length_mm {
+            return Err(SpacingError::OutOfRange {
+                field: "panel.stagger.offset_mm".to_string(),
+                value: offset_mm,
+                allowed: format!("0..{} (less than panel.length_mm)", panel.length_mm),
+            });
+        }
+    }
+    if panel.length_mm < framing.spacing_mm {
+        return Err(SpacingError::OutOfRange {
+            field: "panel.length_mm".to_string(),
+            value: panel.length_mm,
+            allowed: format!("at least framing.spacing_mm ({} mm)", framing.spacing_mm),
+        });
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use approx::assert_relative_eq;
+
+    pub(crate) fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
+        vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
+    }
+
+    /// A 4:12 gable, 30 m along x, 12 m along y, ridge at y = 6, one zone covering everything.
+    fn gable() -> (Vec<PlaneGeometry>, Vec<ZoneRegion>) {
+        let slope_deg = (4.0f64 / 12.0).atan().to_degrees();
+        let planes = vec![
+            PlaneGeometry {
+                polygon_m: rectangle(0.0, 0.0, 30.0, 6.0),
+                slope_deg,
+                downslope_m: [0.0, -1.0],
+            },
+            PlaneGeometry {
+                polygon_m: rectangle(0.0, 6.0, 30.0, 12.0),
+                slope_deg,
+                downslope_m: [0.0, 1.0],
+            },
+        ];
+        let zones = vec![ZoneRegion {
+            zone_index: 0,
+            polygons_m: vec![rectangle(0.0, 0.0, 30.0, 12.0)],
+        }];
+        (planes, zones)
+    }
+
+    fn framing(spacing_mm: f64) -> FramingInput {
+        FramingInput {
+            spacing_mm,
+            lines_along: None,
+            first_line_offset_mm: 0.0,
+        }
+    }
+
+    fn panel(stagger: Stagger) -> PanelInput {
+        PanelInput {
+            length_mm: 2440.0,
+            width_mm: 1220.0,
+            stagger,
+        }
+    }
+
+    fn gable_layout(spacing_mm: f64, stagger: Stagger) -> DeckLayout {
+        let (planes, zones) = gable();
+        layout_deck(&planes, &zones, &[1], &framing(spacing_mm), &panel(stagger))
+            .expect("valid gable")
+    }
+
+    fn line_at(layout: &DeckLayout, plane_index: usize, position_m: f64) -> &LayoutLine {
+        layout
+            .lines
+            .iter()
+            .find(|l| l.plane_index == plane_index && (l.position_m - position_m).abs() < 1e-9)
+            .expect("a line at that position")
+    }
+
+    #[test]
+    fn gable_lines_are_numbered_by_plane_then_position() {
+        let layout = gable_layout(610.0, Stagger::Half);
+        assert_eq!(
+            layout.lines.len(),
+            102,
+            "51 lines per plane: 0..29.89 at 610 plus a closing line"
+        );
+        for (i, line) in layout.lines.iter().enumerate() {
+            assert_eq!(line.number as usize, i + 1);
+            assert_eq!(line.axis, Axis::Y);
+        }
+        assert_eq!(layout.lines[51].plane_index, 1);
+        let cos = (4.0f64 / 12.0).atan().cos();
+        let first = &layout.lines[0];
+        assert_relative_eq!(first.length_m, 6.0 / cos, max_relative = 1e-12);
+        assert_eq!(first.plan_start_m, [0.0, 0.0]);
+        assert_relative_eq!(first.plan_end_m[1], 6.0, max_relative = 1e-12);
+        // The north plane's lines start at its eave, y = 12.
+        assert_relative_eq!(layout.lines[51].plan_start_m[1], 12.0, max_relative = 1e-12);
+        // Courses: 6 / cos = 6.32 m on the slope -> five full courses of 1.22 m and a part course.
+        assert_eq!(
+            layout.courses.iter().filter(|c| c.plane_index == 0).count(),
+            6
+        );
+    }
+
+    #[test]
+    fn half_stagger_alternates_end_joints_and_intermediate_supports() {
+        let layout = gable_layout(610.0, Stagger::Half);
+        let course0 = &layout.courses[0];
+        assert_eq!(course0.joints_m.len(), 14, "0, 2.44, ... 29.28, 30");
+        let course1 = &layout.courses[1];
+        assert_relative_eq!(course1.joints_m[1], 1.22, max_relative = 1e-12);
+        let at_1_22 = line_at(&layout, 0, 1.22);
+        assert_eq!(at_1_22.bearings[0].support_role, SupportRole::Intermediate);
+        assert_eq!(at_1_22.bearings[1].support_role, SupportRole::PanelEdge);
+        assert_eq!(at_1_22.bearings[1].strips.len(), 2);
+        let at_0_61 = line_at(&layout, 0, 0.61);
+        assert!(at_0_61
+            .bearings
+            .iter()
+            .all(|b| b.support_role == SupportRole::Intermediate));
+        let at_edge = line_at(&layout, 0, 0.0);
+        assert!(at_edge
+            .bearings
+            .iter()
+            .all(|b| b.support_role == SupportRole::PanelEdge && b.strips.len() == 1));
+    }
+
+    #[test]
+    fn reaction_widths_follow_the_four_span_strip() {
+        // 2440 mm panels at 610 mm: continuous over 4 equal spans. Hicks, Civil Engineering Formulas,
+        // Table 2.1 (checked): 11/28, 32/28, 26/28 of the span.
+        let layout = gable_layout(610.0, Stagger::Half);
+        let width = |position: f64, course: usize| -> Vec<f64> {
+            line_at(&layout, 0, position).bearings[course]
+                .strips
+                .iter()
+                .map(|s| s.reaction_width_mm)
+                .collect()
+        };
+        assert_relative_eq!(width(0.61, 0)[0], 610.0 * 32.0 / 28.0, max_relative = 1e-6);
+        assert_relative_eq!(width(1.22, 0)[0], 610.0 * 26.0 / 28.0, max_relative = 1e-6);
+        let joint = width(2.44, 0);
+        assert_eq!(joint.len(), 2);
+        assert_relative_eq!(joint[0], 610.0 * 11.0 / 28.0, max_relative = 1e-6);
+        assert_relative_eq!(joint[1], 610.0 * 11.0 / 28.0, max_relative = 1e-6);
+        // Course 1 starts with a half panel over 2 spans: 3/8 at its end (Hicks Table 2.1).
+        assert_relative_eq!(width(0.0, 1)[0], 610.0 * 3.0 / 8.0, max_relative = 1e-6);
+        // 16 in framing: 2440 / 406.4 -> 6 spans of 406.4 (2438.4 mm), 41/104 at the end (Table 2.1).
+        let layout = gable_layout(406.4, Stagger::None);
+        let edge = &line_at(&layout, 0, 0.0).bearings[0].strips[0];
+        assert_eq!(edge.spans_m.len(), 6);
+        assert_relative_eq!(
+            edge.reaction_width_mm,
+            406.4 * 41.0 / 104.0,
+            max_relative = 1e-6
+        );
+    }
+
+    #[test]
+    fn panel_reactions_balance_the_deck_in_every_course() {
+        // Equilibrium: the reactions of all strips in one course add up to the deck's width across
+        // the lines (30 m), whatever the stagger and the closing bay.
+        for (spacing_mm, stagger) in [
+            (610.0, Stagger::Half),
+            (406.4, Stagger::Half),
+            (600.0, Stagger::OffsetMm(900.0)),
+            (500.0, Stagger::None),
+        ] {
+            let layout = gable_layout(spacing_mm, stagger);
+            for course in 0..6 {
+                let total_mm: f64 = layout
+                    .lines
+                    .iter()
+                    .filter(|l| l.plane_index == 0)
+                    .flat_map(|l| l.bearings.iter().filter(|b| b.course_index == course))
+                    .flat_map(|b| b.strips.iter().map(|s| s.reaction_width_mm))
+                    .sum();
+                assert_relative_eq!(total_mm, 30_000.0, max_relative = 1e-9);
+            }
+        }
+    }
+
+    #[test]
+    fn an_offset_first_line_leaves_a_cantilever() {
+        let (planes, zones) = gable();
+        let framing = FramingInput {
+            first_line_offset_mm: 300.0,
+            ..framing(610.0)
+        };
+        let layout =
+            layout_deck(&planes, &zones, &[1], &framing, &panel(Stagger::None)).expect("valid");
+        let first = &layout.lines[0];
+        assert_relative_eq!(first.position_m, 0.3, max_relative = 1e-12);
+        assert_eq!(first.bearings[0].support_role, SupportRole::Intermediate);
+        assert_relative_eq!(
+            first.bearings[0].strips[0].overhang_start_m,
+            0.3,
+            max_relative = 1e-9
+        );
+    }
+
+    #[test]
+    fn hip_end_lines_shorten_and_bear_on_the_hips() {
+        // A hip end in plan: eave along x = 0 from y = 0 to 12, hips meeting at (6, 6), 45 deg slope.
+        let plane = PlaneGeometry {
+            polygon_m: vec![[0.0, 0.0], [6.0, 6.0], [0.0, 12.0]],
+            slope_deg: 45.0,
+            downslope_m: [-1.0, 0.0],
+        };
+        let zones = vec![ZoneRegion {
+            zone_index: 0,
+            polygons_m: vec![plane.polygon_m.clone()],
+        }];
+        let layout = layout_deck(
+            &[plane],
+            &zones,
+            &[1],
+            &framing(610.0),
+            &panel(Stagger::Half),
+        )
+        .expect("valid");
+        assert_eq!(layout.lines[0].axis, Axis::X);
+        // The corner line at y = 0 touches the plane at a point only and is dropped.
+        assert_relative_eq!(layout.lines[0].position_m, 0.61, max_relative = 1e-12);
+        let cos = 45f64.to_radians().cos();
+        assert_relative_eq!(layout.lines[0].length_m, 0.61 / cos, max_relative = 1e-6);
+        // The first jack's strip starts on the hip: an extra support, no cantilever.
+        let strip = &layout.lines[0].bearings[0].strips[0];
+        assert_relative_eq!(strip.overhang_start_m, 0.0);
+        assert_eq!(strip.support_index, 1);
+    }
+
+    #[test]
+    fn inputs_outside_the_method_are_refused() {
+        let (planes, zones) = gable();
+        let error = layout_deck(
+            &planes,
+            &zones,
+            &[1],
+            &framing(150.0),
+            &panel(Stagger::Half),
+        )
+        .expect_err("spacing");
+        assert_eq!(
+            error.to_string(),
+            "framing.spacing_mm: 150 is outside 200..1220"
+        );
+        let mut steep = planes.clone();
+        steep[1].slope_deg = 75.0;
+        let error = layout_deck(&steep, &zones, &[1], &framing(610.0), &panel(Stagger::Half))
+            .expect_err("slope");
+        assert_eq!(
+            error.to_string(),
+            "planes[1].slope_deg: 75 is outside 0..60"
+        );
+        let error = layout_deck(&planes, &zones, &[], &framing(610.0), &panel(Stagger::Half))
+            .expect_err("rank");
+        assert!(
+            error.to_string().starts_with("zones[0].zone_index"),
+            "{error}"
+        );
+        let odd = PanelInput {
+            stagger: Stagger::OffsetMm(3000.0),
+            ..panel(Stagger::Half)
+        };
+        assert!(layout_deck(&planes, &zones, &[1], &framing(610.0), &odd).is_err());
+    }
+}

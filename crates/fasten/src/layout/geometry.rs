@@ -1,0 +1,228 @@
+//! Sections of plan polygons by axis-parallel lines.
+//!
+//! Everything the layout needs from geometry: where a line at a constant coordinate runs inside a
+//! polygon (convex or not), and whether the polygon edge that ends a stretch is oblique (a hip or
+//! valley) or parallel to the framing.
+
+use super::Axis;
+use crate::spacing::SpacingError;
+
+/// Positions closer than this are the same position, m.
+pub(crate) const SAME_POSITION_M: f64 = 1e-6;
+/// Stretches and pieces shorter than this are dropped, m (1 mm).
+pub(crate) const MIN_PIECE_M: f64 = 1e-3;
+/// A line lying on a polygon edge is sectioned this far to either side, m.
+const SIDE_NUDGE_M: f64 = 1e-7;
+
+impl Axis {
+    /// Coordinate index of the axis: x = 0, y = 1.
+    pub(crate) fn index(self) -> usize {
+        match self {
+            Axis::X => 0,
+            Axis::Y => 1,
+        }
+    }
+
+    /// The perpendicular axis.
+    pub(crate) fn other(self) -> Axis {
+        match self {
+            Axis::X => Axis::Y,
+            Axis::Y => Axis::X,
+        }
+    }
+}
+
+/// One stretch of a section line inside a polygon.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Stretch {
+    pub lo: f64,
+    pub hi: f64,
+    /// The polygon edge at `lo` is oblique to the section line's normal (a hip, a valley).
+    pub lo_oblique: bool,
+    pub hi_oblique: bool,
+}
+
+/// Section of `polygon` by the line that runs along `run` at the constant other coordinate `at`.
+///
+/// Even-odd rule with half-open edges, so a vertex on the line is counted once. Returns the
+/// stretches along `run`, sorted.
+pub(crate) fn section(polygon: &[[f64; 2]], run: Axis, at: f64) -> Vec<Stretch> {
+    let r = run.index();
+    let k = run.other().index();
+    let mut hits: Vec<(f64, bool)> = Vec::new();
+    for (i, a) in polygon.iter().enumerate() {
+        let b = polygon[(i + 1) % polygon.len()];
+        if (a[k] < at) != (b[k] < at) {
+            let t = (at - a[k]) / (b[k] - a[k]);
+            let along = a[r] + t * (b[r] - a[r]);
+            let length = (b[r] - a[r]).hypot(b[k] - a[k]);
+            hits.push((along, (b[r] - a[r]).abs() > 1e-9 * length));
+        }
+    }
+    hits.sort_by(|p, q| p.0.total_cmp(&q.0));
+    hits.chunks_exact(2)
+        .map(|pair| Stretch {
+            lo: pair[0].0,
+            hi: pair[1].0,
+            lo_oblique: pair[0].1,
+            hi_oblique: pair[1].1,
+        })
+        .collect()
+}
+
+/// Where a framing line running along `run` at `at` lies inside `polygon`: the union of the sections
+/// just either side of it, so a line on an outer edge or along an inner edge keeps the deck it
+/// carries. Intervals shorter than [`MIN_PIECE_M`] are dropped.
+pub(crate) fn line_intervals(polygon: &[[f64; 2]], run: Axis, at: f64) -> Vec<[f64; 2]> {
+    let mut all: Vec<[f64; 2]> = section(polygon, run, at - SIDE_NUDGE_M)
+        .into_iter()
+        .chain(section(polygon, run, at + SIDE_NUDGE_M))
+        .map(|s| [s.lo, s.hi])
+        .collect();
+    all.sort_by(|p, q| p[0].total_cmp(&q[0]));
+    let mut merged: Vec<[f64; 2]> = Vec::new();
+    for interval in all {
+        match merged.last_mut() {
+            Some(last) if interval[0] <= last[1] + SAME_POSITION_M => {
+                last[1] = last[1].max(interval[1])
+            }
+            _ => merged.push(interval),
+        }
+    }
+    merged.retain(|i| i[1] - i[0] >= MIN_PIECE_M);
+    merged
+}
+
+/// Along-`run` coordinates where the edges of `polygon` cross the line along `run` at `at`.
+pub(crate) fn crossings(
+    polygon: &[[f64; 2]],
+    run: Axis,
+    at: f64,
+) -> impl Iterator<Item = f64> + '_ {
+    let r = run.index();
+    let k = run.other().index();
+    polygon.iter().enumerate().filter_map(move |(i, a)| {
+        let b = polygon[(i + 1) % polygon.len()];
+        ((a[k] < at) != (b[k] < at)).then(|| a[r] + (at - a[k]) / (b[k] - a[k]) * (b[r] - a[r]))
+    })
+}
+
+/// Plan bounding box `[min, max]` of a polygon.
+pub(crate) fn bounds(polygon: &[[f64; 2]]) -> [[f64; 2]; 2] {
+    let mut lo = [f64::INFINITY; 2];
+    let mut hi = [f64::NEG_INFINITY; 2];
+    for p in polygon {
+        for k in 0..2 {
+            lo[k] = lo[k].min(p[k]);
+            hi[k] = hi[k].max(p[k]);
+        }
+    }
+    [lo, hi]
+}
+
+/// Twice the signed area (shoelace), m².
+fn doubled_area_m2(polygon: &[[f64; 2]]) -> f64 {
+    polygon
+        .iter()
+        .enumerate()
+        .map(|(i, a)| {
+            let b = polygon[(i + 1) % polygon.len()];
+            a[0] * b[1] - b[0] * a[1]
+        })
+        .sum()
+}
+
+/// A polygon needs three finite points and, when `needs_area`, a non-zero area.
+pub(crate) fn validate_polygon(
+    field: &str,
+    polygon: &[[f64; 2]],
+    needs_area: bool,
+) -> Result<(), SpacingError> {
+    if polygon.len() < 3 {
+        return Err(SpacingError::Invalid {
+            field: field.to_string(),
+            reason: format!("has {} points, needs at least 3", polygon.len()),
+        });
+    }
+    if let Some((i, p)) = polygon
+        .iter()
+        .enumerate()
+        .find(|(_, p)| !(p[0].is_finite() && p[1].is_finite()))
+    {
+        return Err(SpacingError::Invalid {
+            field: format!("{field}[{i}]"),
+            reason: format!("[{}, {}] is not a finite point", p[0], p[1]),
+        });
+    }
+    if needs_area && doubled_area_m2(polygon).abs() < 1e-9 {
+        return Err(SpacingError::Invalid {
+            field: field.to_string(),
+            reason: "encloses no area".to_string(),
+        });
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use approx::assert_relative_eq;
+
+    const RECTANGLE: [[f64; 2]; 4] = [[0.0, 0.0], [4.0, 0.0], [4.0, 2.0], [0.0, 2.0]];
+
+    #[test]
+    fn a_line_on_either_outer_edge_keeps_the_edge() {
+        assert_eq!(line_intervals(&RECTANGLE, Axis::Y, 0.0), vec![[0.0, 2.0]]);
+        assert_eq!(line_intervals(&RECTANGLE, Axis::Y, 4.0), vec![[0.0, 2.0]]);
+        assert_eq!(line_intervals(&RECTANGLE, Axis::X, 2.0), vec![[0.0, 4.0]]);
+        assert!(line_intervals(&RECTANGLE, Axis::Y, 4.5).is_empty());
+    }
+
+    #[test]
+    fn a_triangle_is_cut_where_its_sides_are() {
+        // Hip end in plan: eave along x = 0, apex at (3, 3).
+        let triangle = [[0.0, 0.0], [3.0, 3.0], [0.0, 6.0]];
+        let at_one = line_intervals(&triangle, Axis::X, 1.0);
+        assert_eq!(at_one.len(), 1);
+        assert_relative_eq!(at_one[0][0], 0.0, epsilon = 1e-6);
+        assert_relative_eq!(at_one[0][1], 1.0, epsilon = 1e-6);
+        // The line through the corner at y = 0 touches the triangle only at a point.
+        assert!(line_intervals(&triangle, Axis::X, 0.0).is_empty());
+        let stretches = section(&triangle, Axis::Y, 1.0);
+        assert_eq!(stretches.len(), 1);
+        assert!(stretches[0].lo_oblique && stretches[0].hi_oblique);
+        let square = section(&RECTANGLE, Axis::Y, 1.0);
+        assert!(!square[0].lo_oblique && !square[0].hi_oblique);
+    }
+
+    #[test]
+    fn a_u_shape_gives_two_intervals_and_an_inner_edge_keeps_the_longer_side() {
+        // U open at the top: arms x 0..1 and 3..4, base y 0..1, height 3.
+        let u = [
+            [0.0, 0.0],
+            [4.0, 0.0],
+            [4.0, 3.0],
+            [3.0, 3.0],
+            [3.0, 1.0],
+            [1.0, 1.0],
+            [1.0, 3.0],
+            [0.0, 3.0],
+        ];
+        assert_eq!(
+            line_intervals(&u, Axis::X, 2.0),
+            vec![[0.0, 1.0], [3.0, 4.0]]
+        );
+        assert_eq!(line_intervals(&u, Axis::Y, 1.0), vec![[0.0, 3.0]]);
+        assert_eq!(line_intervals(&u, Axis::Y, 2.0), vec![[0.0, 1.0]]);
+    }
+
+    #[test]
+    fn polygons_are_validated() {
+        assert!(validate_polygon("p", &RECTANGLE, true).is_ok());
+        assert!(validate_polygon("p", &RECTANGLE[..2], true).is_err());
+        assert!(validate_polygon("p", &[[0.0, 0.0], [1.0, 1.0], [2.0, 2.0]], true).is_err());
+        let error = validate_polygon("p", &[[0.0, 0.0], [1.0, f64::NAN], [2.0, 0.0]], true)
+            .expect_err("nan");
+        assert!(error.to_string().starts_with("p[1]"), "{error}");
+    }
+}

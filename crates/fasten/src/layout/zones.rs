@@ -1,0 +1,223 @@
+//! Which wind zone governs each stretch of a framing line.
+//!
+//! The nails on a line hold the deck strip that bears on it, and that strip reaches half a framing
+//! spacing to either side of the line. So a stretch of line takes the worst zone (highest caller rank)
+//! that the strip touches there, not only the zone under the line itself. This is conservative near
+//! zone boundaries that run parallel to the lines, by at most half a spacing.
+
+use super::geometry::{bounds, crossings, section, MIN_PIECE_M, SAME_POSITION_M};
+use super::{Axis, ZoneRegion};
+use crate::spacing::SpacingError;
+
+/// A stretch of a line in one zone, in plan coordinates along the line.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct PlanZonePiece {
+    pub from_m: f64,
+    pub to_m: f64,
+    pub zone_index: usize,
+}
+
+/// The framing line being split: where it is and how wide a strip it holds.
+#[derive(Debug, Clone, Copy)]
+pub(crate) struct LineStrip<'a> {
+    pub number: u32,
+    pub plane_polygon_m: &'a [[f64; 2]],
+    pub run: Axis,
+    pub position_m: f64,
+    pub half_width_m: f64,
+}
+
+/// Splits the plan interval `along_m` of a line into pieces by governing zone.
+///
+/// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices and
+/// crossings of the strip's two sides. Between breakpoints the touched set is constant and is found
+/// by sectioning across the strip at the middle.
+pub(crate) fn zone_pieces(
+    line: LineStrip<'_>,
+    along_m: [f64; 2],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+) -> Result<Vec<PlanZonePiece>, SpacingError> {
+    let strip = [
+        line.position_m - line.half_width_m,
+        line.position_m + line.half_width_m,
+    ];
+    let r = line.run.index();
+    let k = line.run.other().index();
+    let overlaps = |polygon: &[[f64; 2]]| {
+        let [lo, hi] = bounds(polygon);
+        lo[k] <= strip[1] && hi[k] >= strip[0] && lo[r] <= along_m[1] && hi[r] >= along_m[0]
+    };
+    let candidates: Vec<(usize, &[[f64; 2]])> = zones
+        .iter()
+        .flat_map(|zone| {
+            zone.polygons_m
+                .iter()
+                .map(move |p| (zone.zone_index, p.as_slice()))
+        })
+        .filter(|(_, polygon)| overlaps(polygon))
+        .collect();
+
+    let mut breaks = vec![along_m[0], along_m[1]];
+    for polygon in candidates
+        .iter()
+        .map(|(_, p)| *p)
+        .chain([line.plane_polygon_m])
+    {
+        breaks.extend(polygon.iter().map(|p| p[r]));
+        for side in strip {
+            breaks.extend(crossings(polygon, line.run, side));
+        }
+    }
+    breaks.retain(|b| *b >= along_m[0] && *b <= along_m[1]);
+    breaks.sort_by(f64::total_cmp);
+    let mut kept: Vec<f64> = Vec::with_capacity(breaks.len());
+    for b in breaks {
+        if kept.last().is_none_or(|last| b - last >= MIN_PIECE_M) {
+            kept.push(b);
+        }
+    }
+    // The interval's own end always closes the last piece.
+    if let Some(last) = kept.last_mut() {
+        *last = along_m[1];
+    }
+
+    let mut pieces: Vec<PlanZonePiece> = Vec::new();
+    for pair in kept.windows(2) {
+        let middle = 0.5 * (pair[0] + pair[1]);
+        let window: Vec<[f64; 2]> = section(line.plane_polygon_m, line.run.other(), middle)
+            .iter()
+            .map(|s| [s.lo.max(strip[0]), s.hi.min(strip[1])])
+            .filter(|w| w[1] > w[0])
+            .collect();
+        let mut worst: Option<(u32, bool, usize)> = None;
+        for (zone_index, polygon) in &candidates {
+            let stretches = section(polygon, line.run.other(), middle);
+            let touched = stretches.iter().any(|s| {
+                window
+                    .iter()
+                    .any(|w| s.hi.min(w[1]) - s.lo.max(w[0]) > SAME_POSITION_M * 1e-3)
+            });
+            if !touched {
+                continue;
+            }
+            let on_line = stretches.iter().any(|s| {
+                s.lo - SAME_POSITION_M <= line.position_m
+                    && line.position_m <= s.hi + SAME_POSITION_M
+            });
+            let rank = zone_rank.get(*zone_index).copied().unwrap_or(0);
+            // Highest rank; then the zone under the line itself; then the lowest index.
+            let better = match worst {
+                None => true,
+                Some((best_rank, best_on_line, best_index)) => {
+                    (rank, on_line, std::cmp::Reverse(*zone_index))
+                        > (best_rank, best_on_line, std::cmp::Reverse(best_index))
+                }
+            };
+            if better {
+                worst = Some((rank, on_line, *zone_index));
+            }
+        }
+        let Some((_, _, zone_index)) = worst else {
+            let point = {
+                let mut p = [0.0; 2];
+                p[r] = middle;
+                p[k] = line.position_m;
+                p
+            };
+            return Err(SpacingError::NoZone {
+                line: line.number,
+                x_m: point[0],
+                y_m: point[1],
+            });
+        };
+        match pieces.last_mut() {
+            Some(last) if last.zone_index == zone_index => last.to_m = pair[1],
+            _ => pieces.push(PlanZonePiece {
+                from_m: pair[0],
+                to_m: pair[1],
+                zone_index,
+            }),
+        }
+    }
+    Ok(pieces)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
+        vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
+    }
+
+    /// A 10 m x 6 m plane: edge zone 1 m wide along x = 0 (zone 1), interior (zone 0),
+    /// corner 1 m x 1 m at the origin (zone 2).
+    fn zones() -> Vec<ZoneRegion> {
+        vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![rectangle(1.0, 0.0, 10.0, 6.0)],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![rectangle(0.0, 1.0, 1.0, 6.0)],
+            },
+            ZoneRegion {
+                zone_index: 2,
+                polygons_m: vec![rectangle(0.0, 0.0, 1.0, 1.0)],
+            },
+        ]
+    }
+
+    fn pieces_at(position_m: f64) -> Vec<PlanZonePiece> {
+        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
+        let line = LineStrip {
+            number: 1,
+            plane_polygon_m: &plane,
+            run: Axis::Y,
+            position_m,
+            half_width_m: 0.305,
+        };
+        zone_pieces(line, [0.0, 6.0], &zones(), &[1, 2, 3]).expect("zones tile the plane")
+    }
+
+    #[test]
+    fn the_strip_reaches_into_the_next_zone() {
+        // Line at 1.22: its strip 0.915..1.525 reaches into the 1 m edge zone and corner.
+        let at = pieces_at(1.22);
+        assert_eq!(
+            at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
+            vec![2, 1]
+        );
+        assert!((at[0].to_m - 1.0).abs() < 1e-9);
+        // Line at 1.83: strip 1.525..2.135 is all interior.
+        let at = pieces_at(1.83);
+        assert_eq!(at.len(), 1);
+        assert_eq!(at[0].zone_index, 0);
+        // Line on the edge: corner then edge.
+        let at = pieces_at(0.0);
+        assert_eq!(
+            at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
+            vec![2, 1]
+        );
+    }
+
+    #[test]
+    fn a_gap_in_the_zones_is_an_error() {
+        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
+        let line = LineStrip {
+            number: 7,
+            plane_polygon_m: &plane,
+            run: Axis::Y,
+            position_m: 5.0,
+            half_width_m: 0.305,
+        };
+        let only_edge = vec![ZoneRegion {
+            zone_index: 0,
+            polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
+        }];
+        let error = zone_pieces(line, [0.0, 6.0], &only_edge, &[1]).expect_err("gap");
+        assert!(error.to_string().contains("rafter line 7"), "{error}");
+    }
+}

@@ -1,0 +1,672 @@
+//! Nail spacing along each rafter line, from the deck reactions and the per-nail resistance.
+//!
+//! For each stretch of a line with one zone and one support role, the row of nails must hold the
+//! reaction of the panel strip on that line: per nail, `p(zone, A) × w × s ≤ R`, with `p` the net
+//! factored uplift at the nail's effective wind area `A = s × w` (the area one nail holds), `w` the
+//! reaction width of the strip (from the continuous-beam solution), `s` the spacing and `R` the
+//! resistance of one nail. The widest practical increment that satisfies it, within the basis's
+//! prescriptive maximum for the support role and not below its splitting minimum, is the answer.
+//! The crew nails one spacing per zone and role: the closest one any stretch of that zone needs.
+
+mod error;
+
+use serde::Serialize;
+
+use crate::layout::{
+    layout_deck, Axis, Course, FramingInput, PanelInput, PlaneGeometry, SupportRole, ZoneRegion,
+};
+pub use error::SpacingError;
+pub(crate) use error::{check_positive, check_range};
+
+/// Spacing limits a basis imposes on roof sheathing nails.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct SpacingRules {
+    /// Practical spacings, mm, in any order.
+    pub increments_mm: Vec<f64>,
+    /// Prescriptive maximum along panel edges (end joints and deck edges), mm.
+    pub max_panel_edge_mm: f64,
+    /// Prescriptive maximum along intermediate supports, mm.
+    pub max_intermediate_mm: f64,
+    /// Closest spacing the nail and member allow (splitting), mm.
+    pub min_mm: f64,
+    /// Floor on the effective wind area of one nail, m² (0: the nail's own tributary area).
+    pub min_effective_area_m2: f64,
+}
+
+impl SpacingRules {
+    /// The increments allowed for one support role, widest first.
+    fn allowed_for(&self, role: SupportRole) -> Result<Vec<f64>, SpacingError> {
+        let max_mm = match role {
+            SupportRole::PanelEdge => self.max_panel_edge_mm,
+            SupportRole::Intermediate => self.max_intermediate_mm,
+        };
+        let mut allowed: Vec<f64> = self
+            .increments_mm
+            .iter()
+            .copied()
+            .filter(|s| {
+                s.is_finite() && *s > 0.0 && *s <= max_mm + 1e-9 && *s >= self.min_mm - 1e-9
+            })
+            .collect();
+        allowed.sort_by(|a, b| b.total_cmp(a));
+        allowed.dedup();
+        if allowed.is_empty() {
+            return Err(SpacingError::NoIncrement {
+                role: role_name(role).to_string(),
+                min_mm: self.min_mm,
+                max_mm,
+            });
+        }
+        Ok(allowed)
+    }
+
+    fn validate(&self) -> Result<(), SpacingError> {
+        for (index, s) in self.increments_mm.iter().enumerate() {
+            check_positive(|| format!("rules.increments_mm[{index}]"), *s)?;
+        }
+        check_positive(
+            || "rules.max_panel_edge_mm".to_string(),
+            self.max_panel_edge_mm,
+        )?;
+        check_positive(
+            || "rules.max_intermediate_mm".to_string(),
+            self.max_intermediate_mm,
+        )?;
+        check_range(|| "rules.min_mm".to_string(), self.min_mm, 0.0, 10_000.0)?;
+        check_range(
+            || "rules.min_effective_area_m2".to_string(),
+            self.min_effective_area_m2,
+            0.0,
+            100.0,
+        )
+    }
+}
+
+/// The nail being planned.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct NailOption {
+    pub id: String,
+    /// Factored (limit states) or allowable (ASD) resistance of one nail, N: the governing mode.
+    pub resistance_n: f64,
+    /// Mass of one nail, g (for the order quantity).
+    pub mass_g: f64,
+}
+
+/// What sets a spacing.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum SpacingLimit {
+    /// Uplift: the next wider increment would overload the nail.
+    Strength,
+    /// The basis's prescriptive maximum for the support role.
+    PrescriptiveMaximum,
+    /// Even the closest allowed increment overloads the nail.
+    NoPracticalSpacing,
+}
+
+impl SpacingLimit {
+    pub fn as_str(self) -> &'static str {
+        match self {
+            SpacingLimit::Strength => "strength",
+            SpacingLimit::PrescriptiveMaximum => "prescriptive maximum",
+            SpacingLimit::NoPracticalSpacing => "no practical spacing",
+        }
+    }
+}
+
+/// `panel-edge` or `intermediate`.
+pub fn role_name(role: SupportRole) -> &'static str {
+    match role {
+        SupportRole::PanelEdge => "panel-edge",
+        SupportRole::Intermediate => "intermediate",
+    }
+}
+
+/// One stretch of a rafter line in one zone and one course.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Segment {
+    /// Along the slope from the line's low end, m.
+    pub from_m: f64,
+    pub to_m: f64,
+    pub zone_index: usize,
+    pub support_role: SupportRole,
+    /// Rows of nails on the line here: 2 where two panel ends meet, else 1.
+    pub rows: u32,
+    /// Reaction width of the worst-loaded row, mm on the slope (negative: the deck bears down).
+    pub reaction_width_mm: f64,
+    /// The widest spacing this stretch alone allows (None: none works).
+    pub required_spacing_mm: Option<f64>,
+    /// The spacing the crew nails here: the zone and role's pattern (None: none works).
+    pub spacing_mm: Option<f64>,
+    /// Net factored uplift at the pattern's effective area, kPa.
+    pub net_uplift_kpa: f64,
+    pub effective_area_m2: f64,
+    /// Load on one nail at the pattern spacing, N.
+    pub demand_n: f64,
+    pub resistance_n: f64,
+    /// demand / resistance at the pattern spacing (at the closest increment when none works).
+    pub utilization: f64,
+    pub nail_count: u64,
+}
+
+/// A framing line with its segments.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct RafterLine {
+    pub number: u32,
+    pub plane_index: usize,
+    pub axis: Axis,
+    pub position_m: f64,
+    /// Length along the slope, m.
+    pub length_m: f64,
+    pub plan_start_m: [f64; 2],
+    pub plan_end_m: [f64; 2],
+    pub segments: Vec<Segment>,
+}
+
+/// The governing spacing of one zone and support role.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct ZoneRoleResult {
+    pub zone_index: usize,
+    pub support_role: SupportRole,
+    /// None: no practical spacing works with this nail in this zone.
+    pub spacing_mm: Option<f64>,
+    /// Line where the closest spacing (or the highest utilization) is needed.
+    pub governing_line: u32,
+    pub net_uplift_kpa: f64,
+    pub demand_n: f64,
+    pub resistance_n: f64,
+    pub utilization: f64,
+    pub nail_count: u64,
+    pub limited_by: SpacingLimit,
+}
+
+/// The planned deck for one nail.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct DeckPlan {
+    pub nail_id: String,
+    pub lines: Vec<RafterLine>,
+    pub courses: Vec<Course>,
+    pub zone_roles: Vec<ZoneRoleResult>,
+    pub total_nail_count: u64,
+    pub total_nail_mass_kg: f64,
+}
+
+impl DeckPlan {
+    /// Every zone and role has a working spacing.
+    pub fn feasible(&self) -> bool {
+        self.zone_roles.iter().all(|role| role.spacing_mm.is_some())
+    }
+
+    /// The result for one zone and role, if the deck has that combination.
+    pub fn zone_role(&self, zone_index: usize, role: SupportRole) -> Option<&ZoneRoleResult> {
+        self.zone_roles
+            .iter()
+            .find(|result| result.zone_index == zone_index && result.support_role == role)
+    }
+}
+
+/// The uplift function the caller gives: net factored uplift (kPa, positive away from the roof) of zone
+/// `zone_index` at effective wind area `area_m2`.
+pub type UpliftFn<'a> = dyn Fn(usize, f64) -> Result<f64, String> + 'a;
+
+/// Per-nail check of one stretch at one spacing.
+#[derive(Debug, Clone, Copy)]
+struct NailLoad {
+    net_uplift_kpa: f64,
+    effective_area_m2: f64,
+    demand_n: f64,
+}
+
+fn nail_load(
+    uplift: &UpliftFn<'_>,
+    rules: &SpacingRules,
+    zone_index: usize,
+    reaction_width_mm: f64,
+    spacing_mm: f64,
+) -> Result<NailLoad, SpacingError> {
+    let effective_area_m2 = (spacing_mm * reaction_width_mm.abs() / 1e6)
+        .max(rules.min_effective_area_m2)
+        .max(1e-4);
+    let net_uplift_kpa =
+        uplift(zone_index, effective_area_m2).map_err(|message| SpacingError::Uplift {
+            zone_index,
+            effective_area_m2,
+            message,
+        })?;
+    if !net_uplift_kpa.is_finite() {
+        return Err(SpacingError::Uplift {
+            zone_index,
+            effective_area_m2,
+            message: format!("uplift {net_uplift_kpa} is not a finite number"),
+        });
+    }
+    // kPa × mm × mm = 1e-6 kN = 1e-3 N. Only a net uplift on a row that holds the deck loads the nail.
+    let demand_n = (net_uplift_kpa * reaction_width_mm * spacing_mm / 1000.0).max(0.0);
+    Ok(NailLoad {
+        net_uplift_kpa,
+        effective_area_m2,
+        demand_n,
+    })
+}
+
+/// The widest allowed increment (widest first in `allowed`) that holds; None when none does.
+fn widest_holding(
+    uplift: &UpliftFn<'_>,
+    rules: &SpacingRules,
+    allowed: &[f64],
+    zone_index: usize,
+    reaction_width_mm: f64,
+    resistance_n: f64,
+) -> Result<Option<f64>, SpacingError> {
+    for &spacing_mm in allowed {
+        let load = nail_load(uplift, rules, zone_index, reaction_width_mm, spacing_mm)?;
+        if load.demand_n <= resistance_n * (1.0 + 1e-12) {
+            return Ok(Some(spacing_mm));
+        }
+    }
+    Ok(None)
+}
+
+/// Nails in one row over `length_m` at `spacing_mm`: one at each end of the stretch and at each spacing
+/// between, counting the shared end once (so a stretch holds ceil(L/s) nails, at least 1).
+fn nails_in_row(length_m: f64, spacing_mm: f64) -> u64 {
+    let count = (length_m * 1000.0 / spacing_mm - 1e-9).ceil();
+    if count.is_finite() && count >= 1.0 {
+        count as u64
+    } else {
+        1
+    }
+}
+
+/// Lays out the deck and sizes the nail spacing of every line, zone and support role for one nail.
+#[allow(clippy::too_many_arguments)]
+pub fn plan_deck(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+    uplift: &UpliftFn<'_>,
+    nail: &NailOption,
+    rules: &SpacingRules,
+) -> Result<DeckPlan, SpacingError> {
+    rules.validate()?;
+    check_positive(|| "nail.resistance_n".to_string(), nail.resistance_n)?;
+    check_range(|| "nail.mass_g".to_string(), nail.mass_g, 0.0, 1000.0)?;
+    let layout = layout_deck(planes, zones, zone_rank, framing, panel)?;
+    let allowed_edge = rules.allowed_for(SupportRole::PanelEdge)?;
+    let allowed_intermediate = rules.allowed_for(SupportRole::Intermediate)?;
+    let allowed = |role: SupportRole| match role {
+        SupportRole::PanelEdge => allowed_edge.as_slice(),
+        SupportRole::Intermediate => allowed_intermediate.as_slice(),
+    };
+
+    // Pass 1: the segments and what each alone needs.
+    let mut lines = Vec::with_capacity(layout.lines.len());
+    for line in &layout.lines {
+        let mut segments = Vec::new();
+        for bearing in &line.bearings {
+            let rows = bearing.strips.len().max(1) as u32;
+            let reaction_width_mm = bearing
+                .strips
+                .iter()
+                .map(|strip| strip.reaction_width_mm)
+                .fold(f64::NEG_INFINITY, f64::max);
+            let reaction_width_mm = if reaction_width_mm.is_finite() {
+                reaction_width_mm
+            } else {
+                0.0
+            };
+            for piece in &line.zones {
+                let from_m = piece.from_m.max(bearing.from_m);
+                let to_m = piece.to_m.min(bearing.to_m);
+                if to_m - from_m < 1e-3 {
+                    continue;
+                }
+                let required_spacing_mm = widest_holding(
+                    uplift,
+                    rules,
+                    allowed(bearing.support_role),
+                    piece.zone_index,
+                    reaction_width_mm,
+                    nail.resistance_n,
+                )?;
+                segments.push(Segment {
+                    from_m,
+                    to_m,
+                    zone_index: piece.zone_index,
+                    support_role: bearing.support_role,
+                    rows,
+                    reaction_width_mm,
+                    required_spacing_mm,
+                    spacing_mm: None,
+                    net_uplift_kpa: 0.0,
+                    effective_area_m2: 0.0,
+                    demand_n: 0.0,
+                    resistance_n: nail.resistance_n,
+                    utilization: 0.0,
+                    nail_count: 0,
+                });
+            }
+        }
+        segments.sort_by(|a, b| a.from_m.total_cmp(&b.from_m));
+        lines.push(RafterLine {
+            number: line.number,
+            plane_index: line.plane_index,
+            axis: line.axis,
+            position_m: line.position_m,
+            length_m: line.length_m,
+            plan_start_m: line.plan_start_m,
+            plan_end_m: line.plan_end_m,
+            segments,
+        });
+    }
+
+    // Pass 2: one pattern per zone and role, the closest spacing any of its stretches needs.
+    let mut keys: Vec<(usize, SupportRole)> = lines
+        .iter()
+        .flat_map(|line| line.segments.iter().map(|s| (s.zone_index, s.support_role)))
+        .collect();
+    keys.sort();
+    keys.dedup();
+    let mut patterns: Vec<((usize, SupportRole), Option<f64>)> = Vec::with_capacity(keys.len());
+    for key in &keys {
+        let mut pattern = allowed(key.1).first().copied();
+        for segment in lines.iter().flat_map(|l| &l.segments) {
+            if (segment.zone_index, segment.support_role) != *key {
+                continue;
+            }
+            pattern = match (pattern, segment.required_spacing_mm) {
+                (Some(current), Some(required)) => Some(current.min(required)),
+                _ => None,
+            };
+        }
+        patterns.push((*key, pattern));
+    }
+    let pattern_for = |key: (usize, SupportRole)| -> Option<f64> {
+        patterns
+            .iter()
+            .find(|(k, _)| *k == key)
+            .and_then(|(_, p)| *p)
+    };
+
+    // Pass 3: each segment at its pattern: load, utilization, nail count.
+    let mut total_nail_count = 0u64;
+    for line in &mut lines {
+        for segment in &mut line.segments {
+            let key = (segment.zone_index, segment.support_role);
+            let pattern = pattern_for(key);
+            let closest = allowed(segment.support_role)
+                .last()
+                .copied()
+                .unwrap_or(rules.min_mm);
+            let checked_at_mm = pattern.unwrap_or(closest);
+            let load = nail_load(
+                uplift,
+                rules,
+                segment.zone_index,
+                segment.reaction_width_mm,
+                checked_at_mm,
+            )?;
+            segment.spacing_mm = pattern;
+            segment.net_uplift_kpa = load.net_uplift_kpa;
+            segment.effective_area_m2 = load.effective_area_m2;
+            segment.demand_n = load.demand_n;
+            segment.utilization = load.demand_n / nail.resistance_n;
+            segment.nail_count = u64::from(segment.rows)
+                * nails_in_row(segment.to_m - segment.from_m, checked_at_mm);
+            total_nail_count += segment.nail_count;
+        }
+    }
+
+    let mut zone_roles = Vec::with_capacity(keys.len());
+    for key in keys {
+        let pattern = pattern_for(key);
+        let members: Vec<(&RafterLine, &Segment)> = lines
+            .iter()
+            .flat_map(|line| line.segments.iter().map(move |segment| (line, segment)))
+            .filter(|(_, segment)| (segment.zone_index, segment.support_role) == key)
+            .collect();
+        let Some((governing_line, governing)) = members.iter().max_by(|a, b| {
+            a.1.utilization
+                .total_cmp(&b.1.utilization)
+                .then(b.0.number.cmp(&a.0.number))
+        }) else {
+            continue;
+        };
+        let widest = allowed(key.1).first().copied();
+        let limited_by = match pattern {
+            None => SpacingLimit::NoPracticalSpacing,
+            Some(spacing) if Some(spacing) == widest => SpacingLimit::PrescriptiveMaximum,
+            Some(_) => SpacingLimit::Strength,
+        };
+        zone_roles.push(ZoneRoleResult {
+            zone_index: key.0,
+            support_role: key.1,
+            spacing_mm: pattern,
+            governing_line: governing_line.number,
+            net_uplift_kpa: governing.net_uplift_kpa,
+            demand_n: governing.demand_n,
+            resistance_n: nail.resistance_n,
+            utilization: governing.utilization,
+            nail_count: members.iter().map(|(_, segment)| segment.nail_count).sum(),
+            limited_by,
+        });
+    }
+
+    Ok(DeckPlan {
+        nail_id: nail.id.clone(),
+        lines,
+        courses: layout.courses,
+        zone_roles,
+        total_nail_count,
+        total_nail_mass_kg: total_nail_count as f64 * nail.mass_g / 1000.0,
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::layout::Stagger;
+    use approx::assert_relative_eq;
+    use proptest::prelude::*;
+
+    fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
+        vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
+    }
+
+    /// One flat plane 9.76 m × 4.88 m (16 bays of 610 mm), a single zone.
+    fn flat_deck() -> (
+        Vec<PlaneGeometry>,
+        Vec<ZoneRegion>,
+        FramingInput,
+        PanelInput,
+    ) {
+        let planes = vec![PlaneGeometry {
+            polygon_m: rectangle(0.0, 0.0, 9.76, 4.88),
+            slope_deg: 0.0,
+            downslope_m: [0.0, 0.0],
+        }];
+        let zones = vec![ZoneRegion {
+            zone_index: 0,
+            polygons_m: vec![rectangle(0.0, 0.0, 9.76, 4.88)],
+        }];
+        let framing = FramingInput {
+            spacing_mm: 610.0,
+            lines_along: Some(Axis::Y),
+            first_line_offset_mm: 0.0,
+        };
+        let panel = PanelInput {
+            length_mm: 2440.0,
+            width_mm: 1220.0,
+            stagger: Stagger::None,
+        };
+        (planes, zones, framing, panel)
+    }
+
+    fn si_rules() -> SpacingRules {
+        SpacingRules {
+            increments_mm: vec![300.0, 250.0, 200.0, 150.0, 125.0, 100.0, 75.0, 50.0],
+            max_panel_edge_mm: 150.0,
+            max_intermediate_mm: 300.0,
+            min_mm: 57.0,
+            min_effective_area_m2: 0.0,
+        }
+    }
+
+    fn plan(pressure_kpa: f64, resistance_n: f64) -> DeckPlan {
+        let (planes, zones, framing, panel) = flat_deck();
+        let uplift = move |_: usize, _: f64| -> Result<f64, String> { Ok(pressure_kpa) };
+        let nail = NailOption {
+            id: "test".to_string(),
+            resistance_n,
+            mass_g: 5.0,
+        };
+        plan_deck(
+            &planes,
+            &zones,
+            &[0],
+            &framing,
+            &panel,
+            &uplift,
+            &nail,
+            &si_rules(),
+        )
+        .expect("valid deck")
+    }
+
+    #[test]
+    fn demand_is_pressure_times_reaction_width_times_spacing() {
+        // Hand check: first interior support of a 4-span strip carries 32/28 of the 610 mm span
+        // (Hicks, Civil Engineering Formulas, Table 2.1, checked). At 2 kPa and 300 mm:
+        // 2 kPa × 0.6971 m × 0.300 m = 0.4183 kN = 418.3 N per nail.
+        let plan = plan(2.0, 1000.0);
+        let segment = plan.lines[1].segments.first().expect("a segment");
+        assert_eq!(segment.support_role, SupportRole::Intermediate);
+        assert_relative_eq!(
+            segment.reaction_width_mm,
+            610.0 * 32.0 / 28.0,
+            max_relative = 1e-6
+        );
+        assert_eq!(segment.spacing_mm, Some(300.0));
+        assert_relative_eq!(
+            segment.demand_n,
+            2.0 * 0.61 * 32.0 / 28.0 * 0.3 * 1000.0,
+            max_relative = 1e-6
+        );
+    }
+
+    #[test]
+    fn the_widest_increment_that_holds_is_chosen() {
+        // Intermediate, w = 697.1 mm, 3 kPa: 2.091 N/mm; R = 400 N -> s ≤ 191 mm -> 150 mm.
+        let plan = plan(3.0, 400.0);
+        let intermediate = plan
+            .zone_role(0, SupportRole::Intermediate)
+            .expect("intermediate");
+        assert_eq!(intermediate.spacing_mm, Some(150.0));
+        assert_eq!(intermediate.limited_by, SpacingLimit::Strength);
+        assert!(intermediate.utilization <= 1.0 && intermediate.utilization > 0.5);
+        let edge = plan.zone_role(0, SupportRole::PanelEdge).expect("edge");
+        assert_eq!(edge.spacing_mm, Some(150.0));
+        assert_eq!(edge.limited_by, SpacingLimit::PrescriptiveMaximum);
+    }
+
+    #[test]
+    fn no_practical_spacing_is_reported_not_guessed() {
+        let plan = plan(20.0, 100.0);
+        assert!(!plan.feasible());
+        let role = plan
+            .zone_role(0, SupportRole::Intermediate)
+            .expect("intermediate");
+        assert_eq!(role.spacing_mm, None);
+        assert_eq!(role.limited_by, SpacingLimit::NoPracticalSpacing);
+        assert!(role.utilization > 1.0);
+    }
+
+    #[test]
+    fn nail_count_and_mass_add_up() {
+        let plan = plan(0.5, 2000.0);
+        let sum: u64 = plan.zone_roles.iter().map(|r| r.nail_count).sum();
+        assert_eq!(sum, plan.total_nail_count);
+        assert_relative_eq!(
+            plan.total_nail_mass_kg,
+            plan.total_nail_count as f64 * 0.005,
+            max_relative = 1e-12
+        );
+        // 17 lines × 4.88 m: 15 intermediate-only lines at 300 mm (17 nails each); 2 end lines at 150 mm
+        // (33 each); the lines at panel ends (every 4th) carry two rows at 150 mm.
+        assert!(plan.total_nail_count > 17 * 16);
+    }
+
+    #[test]
+    fn no_increment_between_minimum_and_maximum_is_an_error() {
+        let (planes, zones, framing, panel) = flat_deck();
+        let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(1.0) };
+        let nail = NailOption {
+            id: "test".to_string(),
+            resistance_n: 500.0,
+            mass_g: 5.0,
+        };
+        let rules = SpacingRules {
+            min_mm: 200.0,
+            ..si_rules()
+        };
+        let error = plan_deck(
+            &planes,
+            &zones,
+            &[0],
+            &framing,
+            &panel,
+            &uplift,
+            &nail,
+            &rules,
+        )
+        .expect_err("none");
+        assert!(
+            error.to_string().starts_with("rules.increments_mm"),
+            "{error}"
+        );
+    }
+
+    #[test]
+    fn an_uplift_error_names_the_zone() {
+        let (planes, zones, framing, panel) = flat_deck();
+        let uplift = |_: usize, _: f64| -> Result<f64, String> { Err("no curve".to_string()) };
+        let nail = NailOption {
+            id: "test".to_string(),
+            resistance_n: 500.0,
+            mass_g: 5.0,
+        };
+        let error = plan_deck(
+            &planes,
+            &zones,
+            &[0],
+            &framing,
+            &panel,
+            &uplift,
+            &nail,
+            &si_rules(),
+        )
+        .expect_err("uplift");
+        assert!(
+            error.to_string().starts_with("uplift for zone 0"),
+            "{error}"
+        );
+    }
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(24))]
+        // More wind never allows a wider spacing (the method's monotonicity; no outside source needed).
+        #[test]
+        fn more_uplift_never_widens_any_spacing(p in 0.2f64..6.0, extra in 0.0f64..4.0, r in 150.0f64..1500.0) {
+            let low = plan(p, r);
+            let high = plan(p + extra, r);
+            for role in &low.zone_roles {
+                let other = high.zone_role(role.zone_index, role.support_role).expect("same roles");
+                let low_s = role.spacing_mm.unwrap_or(0.0);
+                let high_s = other.spacing_mm.unwrap_or(0.0);
+                prop_assert!(high_s <= low_s);
+            }
+        }
+    }
+}

@@ -1,0 +1,134 @@
+//! `rafter-lines.csv`: one row per segment of every rafter line, lines in the order of
+//! [`Schedule::lines`], segments from the low end up. A pure table, like `schedule.csv`.
+
+use crate::csv_schedule::NO_SPACING;
+use crate::format::{fixed, mm_to_in, places};
+use crate::{finite, Schedule, ScheduleError};
+
+/// Column names of `rafter-lines.csv`, units in the names.
+pub const LINES_HEADER: [&str; 9] = [
+    "line",
+    "position_m",
+    "from_m",
+    "to_m",
+    "zone",
+    "support_role",
+    "spacing_mm",
+    "spacing_in",
+    "utilization",
+];
+
+/// The CSV writer both files share: `\n` line ends, quotes only where needed.
+pub(crate) fn writer() -> csv::Writer<Vec<u8>> {
+    csv::WriterBuilder::new()
+        .terminator(csv::Terminator::Any(b'\n'))
+        .quote_style(csv::QuoteStyle::Necessary)
+        .from_writer(Vec::new())
+}
+
+/// The bytes of `rafter-lines.csv`.
+pub fn rafter_lines_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
+    const FILE: &str = "rafter-lines.csv";
+    finite::check_lines(schedule)?;
+    let fail = |error: csv::Error| ScheduleError::Csv {
+        file: FILE,
+        message: error.to_string(),
+    };
+    let mut writer = writer();
+    writer.write_record(LINES_HEADER).map_err(fail)?;
+    for line in &schedule.lines {
+        let number = line.number.to_string();
+        let position_m = fixed(line.position_m, places::LENGTH_M);
+        for segment in &line.segments {
+            let (spacing_mm, spacing_in) = match segment.spacing_mm {
+                Some(mm) => (
+                    fixed(mm, places::SPACING_MM),
+                    fixed(mm_to_in(mm), places::SPACING_IN),
+                ),
+                None => (NO_SPACING.to_string(), NO_SPACING.to_string()),
+            };
+            writer
+                .write_record([
+                    number.as_str(),
+                    &position_m,
+                    &fixed(segment.from_m, places::LENGTH_M),
+                    &fixed(segment.to_m, places::LENGTH_M),
+                    &segment.zone_label,
+                    &segment.support_role,
+                    &spacing_mm,
+                    &spacing_in,
+                    &fixed(segment.utilization, places::UTILIZATION),
+                ])
+                .map_err(fail)?;
+        }
+    }
+    writer.into_inner().map_err(|error| ScheduleError::Csv {
+        file: FILE,
+        message: error.to_string(),
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::sample::{sample_infeasible_schedule, sample_schedule};
+
+    fn text(bytes: &[u8]) -> String {
+        String::from_utf8(bytes.to_vec()).expect("CSV is UTF-8")
+    }
+
+    #[test]
+    fn header_names_carry_the_units() {
+        let csv = text(&rafter_lines_csv(&sample_schedule()).expect("writes"));
+        assert_eq!(
+            csv.lines().next(),
+            Some("line,position_m,from_m,to_m,zone,support_role,spacing_mm,spacing_in,utilization")
+        );
+    }
+
+    #[test]
+    fn one_row_per_segment_in_line_order() {
+        let schedule = sample_schedule();
+        let csv = text(&rafter_lines_csv(&schedule).expect("writes"));
+        let segment_count: usize = schedule.lines.iter().map(|line| line.segments.len()).sum();
+        assert_eq!(csv.lines().count(), 1 + segment_count);
+        let lines: Vec<&str> = csv.lines().collect();
+        // Sample line 1 at x = 0 (invented data): overhang from 0 to 0.6 / 0.948683 = 0.632 m along the slope,
+        // overhang-corner panel edge at 50 mm: 3.60 x 0.305 x 50 / 400 = 0.137.
+        assert_eq!(
+            lines[1],
+            "1,0.000,0.000,0.632,overhang-corner,panel-edge,50,1.97,0.137"
+        );
+        assert!(lines[6].starts_with("2,0.610,0.000,0.632,overhang-corner,intermediate,"));
+        assert!(lines.last().expect("rows").starts_with("20,11.590,"));
+    }
+
+    #[test]
+    fn same_input_gives_the_same_bytes_with_newline_ends() {
+        let schedule = sample_schedule();
+        let first = rafter_lines_csv(&schedule).expect("first");
+        assert_eq!(first, rafter_lines_csv(&schedule).expect("second"));
+        assert!(!first.contains(&b'\r'));
+    }
+
+    #[test]
+    fn infeasible_segments_print_none() {
+        let csv = text(&rafter_lines_csv(&sample_infeasible_schedule()).expect("writes"));
+        assert!(csv
+            .lines()
+            .nth(1)
+            .expect("first row")
+            .contains(",overhang-corner,panel-edge,none,none,1.240"));
+    }
+
+    #[test]
+    fn a_nan_position_is_refused_by_name() {
+        let mut schedule = sample_schedule();
+        schedule.lines[4].position_m = f64::INFINITY;
+        let error = rafter_lines_csv(&schedule).expect_err("refused");
+        assert!(
+            error.to_string().starts_with("lines[4].position_m: inf"),
+            "{error}"
+        );
+    }
+}

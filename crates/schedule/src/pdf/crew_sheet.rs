@@ -1,0 +1,608 @@
+//! Page 1, for the crew on the roof: the plan with its zones, the nail in large type, the spacing per
+//! zone and support, and a bold warning when a zone has no working spacing.
+
+use super::canvas::{Align, Area, Canvas, Stroke};
+use super::drawing::{draw_plan, swatch, zone_style, PlanNotes};
+use super::page::Frame;
+use super::text::{line_height_mm, wrap, Font};
+use crate::format::{fixed, mm_to_in, places, small_length_label, spacing_label, trimmed};
+use crate::{Schedule, Units, ZoneRow};
+
+/// Share of the body width given to the drawing.
+const DRAWING_SHARE: f64 = 0.6;
+/// Height of the sheet heading, mm.
+const HEADING_H_MM: f64 = 13.0;
+
+fn capitalized(word: &str) -> String {
+    let mut chars = word.chars();
+    match chars.next() {
+        Some(first) => first.to_uppercase().chain(chars).collect(),
+        None => String::new(),
+    }
+}
+
+/// `2nd`, `5th`, `21st`: how the numbering step reads.
+fn ordinal(n: u32) -> String {
+    let suffix = match (n % 10, n % 100) {
+        (_, 11..=13) => "th",
+        (1, _) => "st",
+        (2, _) => "nd",
+        (3, _) => "rd",
+        _ => "th",
+    };
+    format!("{n}{suffix}")
+}
+
+/// One zone of the crew's table: its label, style index and rows by support role.
+struct ZoneLine<'a> {
+    label: &'a str,
+    style_index: usize,
+    panel_edge: Option<&'a ZoneRow>,
+    intermediate: Option<&'a ZoneRow>,
+    nail_count: u64,
+}
+
+fn zone_lines(schedule: &Schedule) -> Vec<ZoneLine<'_>> {
+    let mut lines: Vec<ZoneLine> = Vec::new();
+    for row in &schedule.zones {
+        let position = match lines.iter().position(|line| line.label == row.label) {
+            Some(position) => position,
+            None => {
+                let style_index = schedule
+                    .plan
+                    .zones
+                    .iter()
+                    .position(|zone| zone.label == row.label)
+                    .unwrap_or(lines.len());
+                lines.push(ZoneLine {
+                    label: &row.label,
+                    style_index,
+                    panel_edge: None,
+                    intermediate: None,
+                    nail_count: 0,
+                });
+                lines.len() - 1
+            }
+        };
+        let line = &mut lines[position];
+        line.nail_count += row.nail_count;
+        match row.support_role.as_str() {
+            "panel-edge" => line.panel_edge = line.panel_edge.or(Some(row)),
+            _ => line.intermediate = line.intermediate.or(Some(row)),
+        }
+    }
+    lines
+}
+
+/// Draws the crew sheet's body into `canvas`; `line_table_page` is where the per-line detail starts.
+pub(crate) fn crew_sheet(
+    schedule: &Schedule,
+    frame: &Frame,
+    line_table_page: usize,
+) -> (Canvas, PlanNotes) {
+    let mut canvas = Canvas::new();
+    let body = frame.body();
+    let imperial = schedule.basis.units == Units::Imperial;
+
+    // Heading.
+    canvas.text(
+        body.x,
+        body.top() - 5.5,
+        "ROOF SHEATHING NAILING \u{2014} CREW SHEET",
+        Font::Bold,
+        15.0,
+        Align::Left,
+    );
+    let framing = if imperial {
+        format!(
+            "{} in ({} mm)",
+            trimmed(mm_to_in(schedule.framing_spacing_mm), 2),
+            fixed(schedule.framing_spacing_mm, 0)
+        )
+    } else {
+        format!("{} mm", fixed(schedule.framing_spacing_mm, 0))
+    };
+    let subtitle = format!(
+        "{}s at {} on centre   \u{00B7}   {}   \u{00B7}   edge zones {} wide",
+        capitalized(&schedule.framing_member),
+        framing,
+        schedule.deck_description,
+        crate::format::plan_length_label(schedule.edge_width_m, imperial)
+    );
+    let subtitle = super::text::fit(&subtitle, Font::Regular, 8.5, body.w);
+    canvas.text(
+        body.x,
+        body.top() - 10.5,
+        &subtitle,
+        Font::Regular,
+        8.5,
+        Align::Left,
+    );
+
+    let drawing = Area {
+        x: body.x,
+        y: body.y,
+        w: body.w * DRAWING_SHARE,
+        h: body.h - HEADING_H_MM,
+    };
+    let notes = draw_plan(&mut canvas, drawing, schedule, &frame.paper);
+
+    let column = Area {
+        x: drawing.right() + 5.0,
+        y: body.y,
+        w: body.right() - drawing.right() - 5.0,
+        h: body.h - HEADING_H_MM,
+    };
+    let mut y = column.top();
+    y = nail_block(&mut canvas, schedule, column, y, imperial);
+    if !schedule.feasible || schedule.zones.iter().any(|row| row.spacing_mm.is_none()) {
+        y = infeasible_box(&mut canvas, schedule, column, y);
+    }
+    y = spacing_table(&mut canvas, schedule, column, y, imperial);
+    y = line_legend(&mut canvas, schedule, column, y, &notes);
+    footnotes(&mut canvas, schedule, column, y, &notes, line_table_page);
+    (canvas, notes)
+}
+
+fn nail_block(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    column: Area,
+    mut y: f64,
+    imperial: bool,
+) -> f64 {
+    let nail = &schedule.nail;
+    canvas.text_grey(
+        column.x,
+        y - 2.8,
+        "NAIL TO USE",
+        Font::Bold,
+        8.0,
+        Align::Left,
+        0.3,
+    );
+    y -= 4.2;
+    let (size, lines) = [18.0, 16.0, 14.0, 12.0]
+        .into_iter()
+        .map(|size| (size, wrap(&nail.description, Font::Bold, size, column.w)))
+        .find(|(_, lines)| lines.len() <= 2)
+        .unwrap_or_else(|| (12.0, wrap(&nail.description, Font::Bold, 12.0, column.w)));
+    for line in lines.iter().take(3) {
+        y -= line_height_mm(size) * 0.85;
+        canvas.text(column.x, y, line, Font::Bold, size, Align::Left);
+        y -= line_height_mm(size) * 0.2;
+    }
+    let material = match nail.material.as_str() {
+        "carbon" => "carbon steel".to_string(),
+        "stainless" => "stainless steel".to_string(),
+        other => other.to_string(),
+    };
+    let spec = format!(
+        "{} long  \u{00B7}  {} {} shank  \u{00B7}  {} head  \u{00B7}  {}",
+        small_length_label(nail.length_mm, imperial),
+        small_length_label(nail.shank_diameter_mm, imperial),
+        nail.shank,
+        small_length_label(nail.head_diameter_mm, imperial),
+        material
+    );
+    y -= 1.0;
+    for line in wrap(&spec, Font::Regular, 9.5, column.w) {
+        y -= line_height_mm(9.5);
+        canvas.text(column.x, y + 1.0, &line, Font::Regular, 9.5, Align::Left);
+    }
+    y -= line_height_mm(7.5);
+    canvas.text_grey(
+        column.x,
+        y + 1.0,
+        &format!("nail id {}", nail.id),
+        Font::Regular,
+        7.5,
+        Align::Left,
+        0.3,
+    );
+    y - 3.0
+}
+
+fn role_words(role: &str) -> &str {
+    match role {
+        "panel-edge" => "panel edges",
+        other => other,
+    }
+}
+
+fn infeasible_box(canvas: &mut Canvas, schedule: &Schedule, column: Area, y: f64) -> f64 {
+    let failing: Vec<String> = schedule
+        .zones
+        .iter()
+        .filter(|row| row.spacing_mm.is_none())
+        .map(|row| format!("{} ({})", row.label, role_words(&row.support_role)))
+        .collect();
+    let zones = if failing.is_empty() {
+        "one or more zones".to_string()
+    } else {
+        failing.join(", ")
+    };
+    let plural = if failing.len() > 1 { "zones" } else { "zone" };
+    let message = format!(
+        "NO WORKING SPACING in {plural} {zones} with nail {} \u{2014} see alternatives",
+        schedule.nail.id
+    );
+    let inner_w = column.w - 5.0;
+    let heading = wrap(&message, Font::Bold, 11.0, inner_w);
+    let mut alternatives: Vec<Vec<String>> = schedule
+        .alternatives
+        .iter()
+        .map(|alt| {
+            wrap(
+                &format!("\u{2022} {alt}"),
+                Font::Regular,
+                8.5,
+                inner_w - 2.0,
+            )
+        })
+        .collect();
+    if alternatives.is_empty() {
+        alternatives.push(wrap(
+            "\u{2022} No alternative was found: refer to the designer.",
+            Font::Regular,
+            8.5,
+            inner_w - 2.0,
+        ));
+    }
+    // Keep the box to about a third of the column; the design basis lists every alternative.
+    let budget = column.h / 3.0;
+    let mut shown: Vec<Vec<String>> = Vec::new();
+    let mut used = heading.len() as f64 * line_height_mm(11.0) + 5.5;
+    let mut cut = false;
+    for alternative in alternatives {
+        let h = alternative.len() as f64 * line_height_mm(8.5);
+        if used + h > budget && !shown.is_empty() {
+            cut = true;
+            break;
+        }
+        used += h;
+        shown.push(alternative);
+    }
+    if cut {
+        shown.push(vec!["(all alternatives: design basis page)".to_string()]);
+        used += line_height_mm(8.5);
+    }
+    let area = Area {
+        x: column.x,
+        y: y - used,
+        w: column.w,
+        h: used,
+    };
+    canvas.fill_area(area, 1.0);
+    canvas.stroke_area(area, 0.9, 0.0);
+    let mut baseline = y - 2.0 - line_height_mm(11.0) * 0.8;
+    for line in &heading {
+        canvas.text(
+            column.x + 2.5,
+            baseline,
+            line,
+            Font::Bold,
+            11.0,
+            Align::Left,
+        );
+        baseline -= line_height_mm(11.0);
+    }
+    baseline -= 0.8;
+    for (i, line) in shown.iter().flatten().enumerate() {
+        let indent = if line.starts_with('\u{2022}') || i == 0 {
+            2.5
+        } else {
+            4.6
+        };
+        canvas.text(
+            column.x + indent,
+            baseline,
+            line,
+            Font::Regular,
+            8.5,
+            Align::Left,
+        );
+        baseline -= line_height_mm(8.5);
+    }
+    y - used - 3.0
+}
+
+/// A spacing cell: the lead value in bold, the SI twin beneath when imperial leads.
+fn spacing_cell(canvas: &mut Canvas, x: f64, top: f64, row: Option<&ZoneRow>, imperial: bool) {
+    let Some(row) = row else {
+        canvas.text(x, top - 4.5, "\u{2013}", Font::Regular, 11.0, Align::Left);
+        return;
+    };
+    match row.spacing_mm {
+        None => canvas.text(x, top - 4.5, "NONE", Font::Bold, 11.0, Align::Left),
+        Some(mm) if imperial => {
+            let inches = format!("{} in", trimmed(mm_to_in(mm), places::SPACING_IN));
+            canvas.text(x, top - 4.3, &inches, Font::Bold, 11.0, Align::Left);
+            canvas.text(
+                x,
+                top - 7.4,
+                &format!("({} mm)", fixed(mm, places::SPACING_MM)),
+                Font::Regular,
+                7.0,
+                Align::Left,
+            );
+        }
+        Some(mm) => canvas.text(
+            x,
+            top - 4.5,
+            &spacing_label(Some(mm), false),
+            Font::Bold,
+            11.0,
+            Align::Left,
+        ),
+    }
+}
+
+fn spacing_table(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    column: Area,
+    mut y: f64,
+    imperial: bool,
+) -> f64 {
+    canvas.text_grey(
+        column.x,
+        y - 2.8,
+        "SPACING ALONG EACH SUPPORT, CENTRE TO CENTRE",
+        Font::Bold,
+        8.0,
+        Align::Left,
+        0.3,
+    );
+    y -= 4.5;
+    let swatch_w = 9.0;
+    let zone_x = column.x + swatch_w + 2.0;
+    let edge_x = column.x + column.w * 0.42;
+    let intermediate_x = column.x + column.w * 0.64;
+    let nails_x = column.right();
+    let header_base = y - 3.0;
+    canvas.text(zone_x, header_base, "zone", Font::Bold, 8.0, Align::Left);
+    canvas.text(
+        edge_x,
+        header_base,
+        "panel edges",
+        Font::Bold,
+        8.0,
+        Align::Left,
+    );
+    canvas.text(
+        intermediate_x,
+        header_base,
+        "intermediate",
+        Font::Bold,
+        8.0,
+        Align::Left,
+    );
+    canvas.text(nails_x, header_base, "nails", Font::Bold, 8.0, Align::Right);
+    y -= 4.4;
+    canvas.line([column.x, y], [column.right(), y], 0.35, 0.0, Stroke::Solid);
+    let row_h = if imperial { 9.0 } else { 7.0 };
+    for line in zone_lines(schedule) {
+        let top = y;
+        let style = zone_style(line.label, line.style_index);
+        swatch(
+            canvas,
+            Area {
+                x: column.x,
+                y: top - row_h + 1.2,
+                w: swatch_w,
+                h: row_h - 2.4,
+            },
+            style,
+        );
+        let label_lines = wrap(line.label, Font::Bold, 9.0, edge_x - zone_x - 1.5);
+        let mut baseline = top - 4.3;
+        for label in label_lines.iter().take(2) {
+            canvas.text(zone_x, baseline, label, Font::Bold, 9.0, Align::Left);
+            baseline -= line_height_mm(9.0);
+        }
+        spacing_cell(canvas, edge_x, top, line.panel_edge, imperial);
+        spacing_cell(canvas, intermediate_x, top, line.intermediate, imperial);
+        canvas.text(
+            nails_x,
+            top - 4.5,
+            &line.nail_count.to_string(),
+            Font::Regular,
+            9.0,
+            Align::Right,
+        );
+        y -= row_h;
+        canvas.line([column.x, y], [column.right(), y], 0.12, 0.5, Stroke::Solid);
+    }
+    let mass = if imperial {
+        format!(
+            "{} lb ({} kg)",
+            fixed(schedule.total_nail_mass_kg / 0.453_592_37, places::MASS_KG),
+            fixed(schedule.total_nail_mass_kg, places::MASS_KG)
+        )
+    } else {
+        format!("{} kg", fixed(schedule.total_nail_mass_kg, places::MASS_KG))
+    };
+    y -= 3.6;
+    canvas.text(
+        column.right(),
+        y,
+        &format!("total {} nails, about {mass}", schedule.total_nail_count),
+        Font::Regular,
+        8.0,
+        Align::Right,
+    );
+    y - 3.5
+}
+
+fn line_legend(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    column: Area,
+    mut y: f64,
+    notes: &PlanNotes,
+) -> f64 {
+    let plan = &schedule.plan;
+    let member = &schedule.framing_member;
+    let numbered = match notes.numbered_every {
+        1 => format!("{member} lines, numbered"),
+        n => format!("{member} lines, every {} numbered", ordinal(n)),
+    };
+    let items: Vec<(bool, f64, f64, Stroke, String)> = vec![
+        (
+            !plan.roof_outline_m.is_empty(),
+            0.6,
+            0.0,
+            Stroke::Solid,
+            "roof edge".to_string(),
+        ),
+        (
+            !plan.building_outline_m.is_empty(),
+            0.35,
+            0.0,
+            Stroke::Dashed,
+            "wall line".to_string(),
+        ),
+        (
+            !plan.ridge_lines_m.is_empty(),
+            0.4,
+            0.0,
+            Stroke::DashDot,
+            "ridge or hip".to_string(),
+        ),
+        (
+            !plan.rafter_lines.is_empty(),
+            0.15,
+            0.3,
+            Stroke::Solid,
+            numbered,
+        ),
+        (
+            !plan.panel_joints_m.is_empty(),
+            0.45,
+            0.0,
+            Stroke::Solid,
+            "panel end joint".to_string(),
+        ),
+        (
+            !plan.course_lines_m.is_empty(),
+            0.2,
+            0.3,
+            Stroke::Dotted,
+            "long panel edge".to_string(),
+        ),
+    ];
+    let items: Vec<_> = items.into_iter().filter(|item| item.0).collect();
+    let rows = items.len().div_ceil(2);
+    let row_h = 4.2;
+    if items.is_empty() || y - rows as f64 * row_h - 4.0 < column.y {
+        return y;
+    }
+    canvas.text_grey(
+        column.x,
+        y - 2.8,
+        "LINES ON THE PLAN",
+        Font::Bold,
+        8.0,
+        Align::Left,
+        0.3,
+    );
+    y -= 4.0;
+    let half = column.w / 2.0;
+    for (i, (_, width, level, stroke, text)) in items.iter().enumerate() {
+        let x = column.x + if i % 2 == 0 { 0.0 } else { half };
+        let row_top = y - (i / 2) as f64 * row_h;
+        let mid = row_top - row_h / 2.0;
+        if text == "panel end joint" {
+            canvas.line(
+                [x + 4.0, mid - 1.5],
+                [x + 4.0, mid + 1.5],
+                *width,
+                *level,
+                *stroke,
+            );
+        } else {
+            canvas.line([x, mid], [x + 8.0, mid], *width, *level, *stroke);
+        }
+        canvas.text(x + 10.0, mid - 1.0, text, Font::Regular, 7.5, Align::Left);
+    }
+    y - rows as f64 * row_h - 2.5
+}
+
+fn footnotes(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    column: Area,
+    mut y: f64,
+    notes: &PlanNotes,
+    line_table_page: usize,
+) {
+    let member = &schedule.framing_member;
+    let first = schedule
+        .plan
+        .rafter_lines
+        .iter()
+        .map(|line| line.number)
+        .min()
+        .unwrap_or(1);
+    let numbering = match notes.numbered_every {
+        1 => format!("Every {member} line is numbered on the plan."),
+        n => format!(
+            "{} lines are numbered every {} line, starting at {first}.",
+            capitalized(member),
+            ordinal(n)
+        ),
+    };
+    let text = [
+        format!(
+            "Panel edges: where two panels end on one {member}. Intermediate: the other {member}s under a panel."
+        ),
+        numbering,
+        format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
+    ];
+    for paragraph in text {
+        let lines = wrap(&paragraph, Font::Regular, 7.5, column.w);
+        let h = lines.len() as f64 * line_height_mm(7.5);
+        if y - h < column.y {
+            return;
+        }
+        for line in lines {
+            y -= line_height_mm(7.5);
+            canvas.text(column.x, y + 0.8, &line, Font::Regular, 7.5, Align::Left);
+        }
+        y -= 1.0;
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn ordinals_read_as_english() {
+        assert_eq!(ordinal(2), "2nd");
+        assert_eq!(ordinal(5), "5th");
+        assert_eq!(ordinal(12), "12th");
+        assert_eq!(ordinal(21), "21st");
+    }
+
+    #[test]
+    fn zone_lines_merge_the_two_roles_of_a_zone() {
+        let schedule = crate::sample::sample_schedule();
+        let lines = zone_lines(&schedule);
+        assert_eq!(lines.len(), 5);
+        assert_eq!(lines[0].label, "interior");
+        assert_eq!(
+            lines[0].panel_edge.and_then(|row| row.spacing_mm),
+            Some(150.0)
+        );
+        assert_eq!(
+            lines[0].intermediate.and_then(|row| row.spacing_mm),
+            Some(300.0)
+        );
+        assert_eq!(
+            lines[0].nail_count,
+            schedule.zones[0].nail_count + schedule.zones[1].nail_count
+        );
+    }
+}

@@ -1,0 +1,233 @@
+//! The PDF report: crew sheet (page 1), design basis (page 2 on), rafter-line table (after), with the
+//! cautions and the title block on every page.
+//!
+//! Built with printpdf's page operations and the built-in Helvetica faces only, so no font file is read
+//! or embedded. Deterministic: the dates come from [`PdfOptions`], and the document id that printpdf
+//! draws from its own counter is replaced with the one from the options.
+
+mod canvas;
+mod crew_sheet;
+mod design_basis;
+mod drawing;
+mod flow;
+mod geometry;
+mod labels;
+mod line_table;
+mod page;
+mod text;
+
+use printpdf::date::{Date, Offset, OffsetDateTime, Time};
+use printpdf::{Mm, PdfDocument, PdfPage, PdfParseErrorSeverity, PdfSaveOptions};
+
+use crate::{finite, standard_cautions, Schedule, ScheduleError};
+use canvas::Canvas;
+use page::{Frame, Paper, TitleInfo};
+
+/// What the PDF needs beyond the schedule; both fixed by the caller so the bytes repeat.
+#[derive(Debug, Clone, PartialEq, Eq)]
+pub struct PdfOptions {
+    /// Creation and modification date of the document, `YYYY-MM-DD` (from the project).
+    pub creation_date: String,
+    /// The document's permanent id, e.g. a hash of the input: 1..=64 printable ASCII characters.
+    pub document_id: String,
+}
+
+impl Default for PdfOptions {
+    fn default() -> Self {
+        PdfOptions {
+            creation_date: "2026-01-01".to_string(),
+            document_id: "deckhold-schedule".to_string(),
+        }
+    }
+}
+
+fn is_leap(year: i32) -> bool {
+    (year % 4 == 0 && year % 100 != 0) || year % 400 == 0
+}
+
+/// `YYYY-MM-DD` as a date at midnight UTC.
+fn parse_date(value: &str) -> Result<OffsetDateTime, ScheduleError> {
+    let refuse = || ScheduleError::CreationDate {
+        value: value.to_string(),
+    };
+    let bytes = value.as_bytes();
+    if bytes.len() != 10 || bytes[4] != b'-' || bytes[7] != b'-' {
+        return Err(refuse());
+    }
+    let number = |range: std::ops::Range<usize>| -> Result<u32, ScheduleError> {
+        let part = &value[range];
+        if !part.bytes().all(|b| b.is_ascii_digit()) {
+            return Err(refuse());
+        }
+        part.parse().map_err(|_| refuse())
+    };
+    let (year, month, day) = (number(0..4)?, number(5..7)?, number(8..10)?);
+    let year = i32::try_from(year).map_err(|_| refuse())?;
+    let days = match month {
+        1 | 3 | 5 | 7 | 8 | 10 | 12 => 31,
+        4 | 6 | 9 | 11 => 30,
+        2 if is_leap(year) => 29,
+        2 => 28,
+        _ => return Err(refuse()),
+    };
+    if !(1900..=9999).contains(&year) || day == 0 || day > days {
+        return Err(refuse());
+    }
+    Ok(OffsetDateTime::new_in_offset(
+        Date {
+            year,
+            month: month as u8,
+            day: day as u8,
+        },
+        Time {
+            hour: 0,
+            minute: 0,
+            second: 0,
+            millisecond: 0,
+        },
+        Offset {
+            hours: 0,
+            minutes: 0,
+            seconds: 0,
+            milliseconds: 0,
+        },
+    ))
+}
+
+fn check_document_id(value: &str) -> Result<(), ScheduleError> {
+    let fine = (1..=64).contains(&value.len()) && value.bytes().all(|b| b.is_ascii_graphic());
+    if fine {
+        Ok(())
+    } else {
+        Err(ScheduleError::DocumentId {
+            value: value.to_string(),
+        })
+    }
+}
+
+/// Replaces the trailer's `/ID [...]` (printpdf fills it from a process-wide counter) with `id`, twice,
+/// as hex strings. The trailer follows the cross-reference table, so no offset moves.
+fn set_trailer_id(mut bytes: Vec<u8>, id: &str) -> Result<Vec<u8>, ScheduleError> {
+    let missing = || ScheduleError::Pdf("the trailer has no /ID entry".to_string());
+    let find =
+        |haystack: &[u8], needle: &[u8]| haystack.windows(needle.len()).rposition(|w| w == needle);
+    let trailer = find(&bytes, b"trailer").ok_or_else(missing)?;
+    let id_start = trailer + find(&bytes[trailer..], b"/ID").ok_or_else(missing)?;
+    let open = id_start
+        + bytes[id_start..]
+            .iter()
+            .position(|&b| b == b'[')
+            .ok_or_else(missing)?;
+    let close = open
+        + bytes[open..]
+            .iter()
+            .position(|&b| b == b']')
+            .ok_or_else(missing)?;
+    let hex: String = id.bytes().map(|b| format!("{b:02X}")).collect();
+    let replacement = format!("[<{hex}><{hex}>]");
+    bytes.splice(open..=close, replacement.into_bytes());
+    Ok(bytes)
+}
+
+/// One finished page body before the frame goes on.
+struct Sheet<'f> {
+    frame: &'f Frame,
+    title: &'static str,
+    body: Canvas,
+}
+
+/// The PDF report of `schedule`.
+pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>, ScheduleError> {
+    finite::check_all(schedule)?;
+    let date = parse_date(&options.creation_date)?;
+    check_document_id(&options.document_id)?;
+
+    // Every page carries the cautions; a schedule without any still gets the standard ones.
+    let cautions = if schedule.cautions.is_empty() {
+        standard_cautions()
+    } else {
+        schedule.cautions.clone()
+    };
+    let units = schedule.basis.units;
+    let landscape = Frame::new(Paper::for_units(units, true), &cautions);
+    let portrait = Frame::new(Paper::for_units(units, false), &cautions);
+
+    let basis_pages = design_basis::design_basis(schedule, &portrait);
+    let table_pages = line_table::line_table(schedule, &portrait);
+    let line_table_page = 2 + basis_pages.len();
+    let (crew, _notes) = crew_sheet::crew_sheet(schedule, &landscape, line_table_page);
+
+    let mut sheets = vec![Sheet {
+        frame: &landscape,
+        title: "Crew sheet",
+        body: crew,
+    }];
+    sheets.extend(basis_pages.into_iter().map(|body| Sheet {
+        frame: &portrait,
+        title: "Design basis",
+        body,
+    }));
+    sheets.extend(table_pages.into_iter().map(|body| Sheet {
+        frame: &portrait,
+        title: "Rafter-line table",
+        body,
+    }));
+
+    let title = TitleInfo {
+        project: schedule.project.name.clone(),
+        site: schedule.project.site.clone(),
+        date: schedule.project.date.clone(),
+        basis_id: schedule.basis.id.clone(),
+    };
+    let page_count = sheets.len();
+    let pages: Vec<PdfPage> = sheets
+        .into_iter()
+        .enumerate()
+        .map(|(index, sheet)| {
+            let mut canvas = sheet.body;
+            sheet
+                .frame
+                .draw(&mut canvas, &title, sheet.title, index + 1, page_count);
+            let paper = sheet.frame.paper;
+            PdfPage::new(
+                Mm(paper.width_mm as f32),
+                Mm(paper.height_mm as f32),
+                canvas.into_ops(),
+            )
+        })
+        .collect();
+
+    let mut document = PdfDocument::new(&format!(
+        "Roof sheathing nailing schedule: {}",
+        schedule.project.name
+    ));
+    let info = &mut document.metadata.info;
+    info.creation_date = date;
+    info.modification_date = date;
+    info.metadata_date = date;
+    info.author = schedule.project.prepared_by.clone();
+    info.creator = "deckhold".to_string();
+    info.producer = "deckhold-schedule with printpdf".to_string();
+    info.subject = format!("{}; {}", schedule.project.site, schedule.basis.title);
+    info.identifier = options.document_id.clone();
+    document.with_pages(pages);
+
+    let save_options = PdfSaveOptions {
+        optimize: true,
+        subset_fonts: false,
+        secure: true,
+        image_optimization: None,
+    };
+    let mut warnings = Vec::new();
+    let bytes = document.save(&save_options, &mut warnings);
+    if let Some(error) = warnings
+        .iter()
+        .find(|w| w.severity == PdfParseErrorSeverity::Error)
+    {
+        return Err(ScheduleError::Pdf(error.msg.clone()));
+    }
+    set_trailer_id(bytes, &options.document_id)
+}
+
+#[cfg(test)]
+mod tests;
