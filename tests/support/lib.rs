@@ -1,1 +1,24 @@
 //! Shared helpers for the cross-crate tests (see the test files beside this folder).
+
+use std::path::PathBuf;
+
+/// Path of a file under `fixtures/`.
+pub fn fixture_path(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("fixtures")
+        .join(name)
+}
+
+/// Text of a file under `fixtures/`.
+pub fn fixture_text(name: &str) -> String {
+    let path = fixture_path(name);
+    std::fs::read_to_string(&path)
+        .unwrap_or_else(|error| panic!("cannot read {}: {error}", path.display()))
+}
+
+/// Path of a file under `tests/golden/`.
+pub fn golden_path(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("tests/golden")
+        .join(name)
+}

@@ -1,1 +1,42 @@
-fn main() {}
+//! `deckhold`: the command-line tool. Reads project files, runs the job, writes the schedule files.
+//!
+//! Exit status: 0 done (and every zone works); 1 the design does not work (a plan check fails, or no
+//! practical spacing works in some zone); 2 the input is refused (bad file, bad option, outside the method).
+
+mod args;
+mod commands;
+mod output;
+mod table;
+
+use clap::Parser;
+use std::process::ExitCode;
+
+use args::{Cli, Command};
+
+/// What a command found, for the exit status.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Outcome {
+    Works,
+    DoesNotWork,
+}
+
+fn main() -> ExitCode {
+    let cli = Cli::parse();
+    let result = match cli.command {
+        Command::Run(args) => commands::run::run(&args),
+        Command::Zones(args) => commands::zones::run(&args),
+        Command::Check(args) => commands::check::run(&args),
+        Command::Compare(args) => commands::compare::run(&args),
+        Command::Capacity(args) => commands::capacity::run(&args),
+        Command::Catalog(args) => commands::catalog::run(&args),
+        Command::Init(args) => commands::init::run(&args),
+    };
+    match result {
+        Ok(Outcome::Works) => ExitCode::SUCCESS,
+        Ok(Outcome::DoesNotWork) => ExitCode::from(1),
+        Err(error) => {
+            eprintln!("deckhold: error: {error:#}");
+            ExitCode::from(2)
+        }
+    }
+}

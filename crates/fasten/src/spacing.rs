@@ -102,6 +102,8 @@ pub enum SpacingLimit {
     PrescriptiveMaximum,
     /// Even the closest allowed increment overloads the nail.
     NoPracticalSpacing,
+    /// A given pattern being checked, not sized.
+    Given,
 }
 
 impl SpacingLimit {
@@ -110,6 +112,7 @@ impl SpacingLimit {
             SpacingLimit::Strength => "strength",
             SpacingLimit::PrescriptiveMaximum => "prescriptive maximum",
             SpacingLimit::NoPracticalSpacing => "no practical spacing",
+            SpacingLimit::Given => "as given",
         }
     }
 }
@@ -278,6 +281,9 @@ fn nails_in_row(length_m: f64, spacing_mm: f64) -> u64 {
     }
 }
 
+/// The spacing a checked pattern gives a zone and support role, mm.
+pub type PatternFn<'a> = dyn Fn(usize, SupportRole) -> f64 + 'a;
+
 /// Lays out the deck and sizes the nail spacing of every line, zone and support role for one nail.
 #[allow(clippy::too_many_arguments)]
 pub fn plan_deck(
@@ -289,6 +295,50 @@ pub fn plan_deck(
     uplift: &UpliftFn<'_>,
     nail: &NailOption,
     rules: &SpacingRules,
+) -> Result<DeckPlan, SpacingError> {
+    plan_or_check(
+        planes, zones, zone_rank, framing, panel, uplift, nail, rules, None,
+    )
+}
+
+/// Lays out the deck and checks a given pattern: every segment at `pattern(zone, role)`, its
+/// utilization reported (over 1.0 fails); `required_spacing_mm` still says what would be needed.
+#[allow(clippy::too_many_arguments)]
+pub fn check_deck(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+    uplift: &UpliftFn<'_>,
+    nail: &NailOption,
+    rules: &SpacingRules,
+    pattern: &PatternFn<'_>,
+) -> Result<DeckPlan, SpacingError> {
+    plan_or_check(
+        planes,
+        zones,
+        zone_rank,
+        framing,
+        panel,
+        uplift,
+        nail,
+        rules,
+        Some(pattern),
+    )
+}
+
+#[allow(clippy::too_many_arguments)]
+fn plan_or_check(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+    uplift: &UpliftFn<'_>,
+    nail: &NailOption,
+    rules: &SpacingRules,
+    given: Option<&PatternFn<'_>>,
 ) -> Result<DeckPlan, SpacingError> {
     rules.validate()?;
     check_positive(|| "nail.resistance_n".to_string(), nail.resistance_n)?;
@@ -371,6 +421,17 @@ pub fn plan_deck(
     keys.dedup();
     let mut patterns: Vec<((usize, SupportRole), Option<f64>)> = Vec::with_capacity(keys.len());
     for key in &keys {
+        if let Some(given) = given {
+            let spacing_mm = given(key.0, key.1);
+            check_range(
+                || format!("pattern spacing for zone {} ({})", key.0, role_name(key.1)),
+                spacing_mm,
+                10.0,
+                2000.0,
+            )?;
+            patterns.push((*key, Some(spacing_mm)));
+            continue;
+        }
         let mut pattern = allowed(key.1).first().copied();
         for segment in lines.iter().flat_map(|l| &l.segments) {
             if (segment.zone_index, segment.support_role) != *key {
@@ -436,6 +497,7 @@ pub fn plan_deck(
         };
         let widest = allowed(key.1).first().copied();
         let limited_by = match pattern {
+            _ if given.is_some() => SpacingLimit::Given,
             None => SpacingLimit::NoPracticalSpacing,
             Some(spacing) if Some(spacing) == widest => SpacingLimit::PrescriptiveMaximum,
             Some(_) => SpacingLimit::Strength,
@@ -651,6 +713,48 @@ mod tests {
         assert!(
             error.to_string().starts_with("uplift for zone 0"),
             "{error}"
+        );
+    }
+
+    #[test]
+    fn a_checked_pattern_reports_its_utilization() {
+        let (planes, zones, framing, panel) = flat_deck();
+        let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(3.0) };
+        let nail = NailOption {
+            id: "test".to_string(),
+            resistance_n: 400.0,
+            mass_g: 5.0,
+        };
+        let pattern = |_: usize, role: SupportRole| match role {
+            SupportRole::PanelEdge => 150.0,
+            SupportRole::Intermediate => 300.0,
+        };
+        let checked = check_deck(
+            &planes,
+            &zones,
+            &[0],
+            &framing,
+            &panel,
+            &uplift,
+            &nail,
+            &si_rules(),
+            &pattern,
+        )
+        .expect("valid");
+        let intermediate = checked
+            .zone_role(0, SupportRole::Intermediate)
+            .expect("intermediate");
+        // 3 kPa × 0.6971 m × 0.300 m = 627 N on a 400 N nail: 1.57 (hand check, as above).
+        assert_relative_eq!(
+            intermediate.utilization,
+            3.0 * 0.61 * 32.0 / 28.0 * 0.3 * 1000.0 / 400.0,
+            max_relative = 1e-6
+        );
+        assert_eq!(intermediate.limited_by, SpacingLimit::Given);
+        assert_eq!(intermediate.spacing_mm, Some(300.0));
+        assert_eq!(
+            checked.lines[1].segments[0].required_spacing_mm,
+            Some(150.0)
         );
     }
 

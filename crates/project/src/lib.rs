@@ -1,1 +1,27 @@
-//! placeholder
+//! The project file and the whole job.
+//!
+//! [`parse_project`] turns the project file's text into a validated [`Project`] (SI inside, every message
+//! naming its key path); [`run_job`] runs wind zones, nail resistance and spacing into a
+//! [`deckhold_schedule::Schedule`]. No file or terminal I/O here: the binary reads and writes files.
+
+pub mod basis;
+pub mod demo;
+pub mod error;
+pub mod parse;
+pub mod project;
+pub mod reader;
+pub mod units;
+
+pub use basis::Basis;
+pub use demo::DEMO_PROJECT_JSON;
+pub use error::{JobError, ProjectError};
+pub use parse::{parse_project, project_from_value};
+pub use project::*;
+pub mod check;
+pub mod job;
+pub mod report;
+pub mod rules;
+
+pub use check::{check_pattern, CheckRow, PatternCheck};
+pub use job::{run_job, run_job_with_nails, Job, NailOutcome};
+pub use report::schedule_for;

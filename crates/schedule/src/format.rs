@@ -230,3 +230,12 @@ mod tests {
         assert_eq!(pressure_label(1.0, false), "1.000 kPa");
     }
 }
+
+/// The plural of a framing member's name: "trusses", "rafters", "joists".
+pub fn plural(word: &str) -> String {
+    if word.ends_with('s') {
+        format!("{word}es")
+    } else {
+        format!("{word}s")
+    }
+}

@@ -103,8 +103,8 @@ pub(crate) fn crew_sheet(
         format!("{} mm", fixed(schedule.framing_spacing_mm, 0))
     };
     let subtitle = format!(
-        "{}s at {} on centre   \u{00B7}   {}   \u{00B7}   edge zones {} wide",
-        capitalized(&schedule.framing_member),
+        "{} at {} on centre   \u{00B7}   {}   \u{00B7}   edge zones {} wide",
+        capitalized(&crate::format::plural(&schedule.framing_member)),
         framing,
         schedule.deck_description,
         crate::format::plan_length_label(schedule.edge_width_m, imperial)
@@ -553,9 +553,10 @@ fn footnotes(
             ordinal(n)
         ),
     };
+    let members = crate::format::plural(member);
     let text = [
         format!(
-            "Panel edges: where two panels end on one {member}. Intermediate: the other {member}s under a panel."
+            "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
         ),
         numbering,
         format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),

@@ -103,8 +103,8 @@ pub(crate) fn design_basis(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
             (
                 "framing",
                 format!(
-                    "{}s at {} on centre",
-                    schedule.framing_member,
+                    "{} at {} on centre",
+                    crate::format::plural(&schedule.framing_member),
                     spacing_label(Some(schedule.framing_spacing_mm), imperial)
                 ),
             ),

@@ -1,0 +1,188 @@
+//! Command-line arguments (clap derive). Everything after parsing sees plain values, not clap types.
+
+use clap::{Args, Parser, Subcommand, ValueEnum};
+use std::path::PathBuf;
+
+/// Roof sheathing nailing schedules against wind uplift.
+///
+/// deckhold zones a roof for components-and-cladding wind uplift, finds the factored withdrawal resistance
+/// of each nail, and sizes the nail spacing on every rafter line. Its output is a design aid for a
+/// qualified person; check it against the governing code and have it reviewed where the law requires.
+#[derive(Debug, Parser)]
+#[command(name = "deckhold", version, about, long_about)]
+pub struct Cli {
+    #[command(subcommand)]
+    pub command: Command,
+}
+
+#[derive(Debug, Subcommand)]
+pub enum Command {
+    /// Run the whole job: zones, nail resistance, spacing; write the CSV and PDF schedule.
+    Run(RunArgs),
+    /// Show the roof's wind zones and their net design uplift.
+    Zones(ZonesArgs),
+    /// Plan-check an existing or proposed nailing pattern (exit 1 when any zone fails).
+    Check(CheckArgs),
+    /// Compare nail types for one deck: capacity, spacing and nail count.
+    Compare(CompareArgs),
+    /// Factored resistance of one nail in withdrawal (and head pull-through).
+    Capacity(CapacityArgs),
+    /// List the built-in catalogs.
+    Catalog(CatalogArgs),
+    /// Write a complete example project file to start from.
+    Init(InitArgs),
+}
+
+#[derive(Debug, Args)]
+pub struct RunArgs {
+    /// Project file (JSON). Without it, the built-in demo project is used.
+    pub project: Option<PathBuf>,
+    /// Folder for schedule.csv, rafter-lines.csv and schedule.pdf (and schedule.json with --json).
+    #[arg(long)]
+    pub out: Option<PathBuf>,
+    /// Print the schedule as JSON instead of a table.
+    #[arg(long)]
+    pub json: bool,
+    /// Print how long each stage took, to stderr.
+    #[arg(long)]
+    pub timings: bool,
+}
+
+#[derive(Debug, Args)]
+pub struct ZonesArgs {
+    /// Project file (JSON). Without it, the built-in demo project is used.
+    pub project: Option<PathBuf>,
+    /// Effective wind area for the coefficients, m² (default 0.1 m², the area one nail holds).
+    #[arg(long, conflicts_with = "area_ft2")]
+    pub area_m2: Option<f64>,
+    /// Effective wind area for the coefficients, ft².
+    #[arg(long)]
+    pub area_ft2: Option<f64>,
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Debug, Args)]
+pub struct CheckArgs {
+    /// Project file (JSON); its `existing` block gives the pattern unless the options below do.
+    pub project: PathBuf,
+    /// Nail of the pattern (catalog id).
+    #[arg(long)]
+    pub nail: Option<String>,
+    /// Spacing at panel edges, mm.
+    #[arg(long, requires = "intermediate_mm", conflicts_with_all = ["edge_in", "intermediate_in"])]
+    pub edge_mm: Option<f64>,
+    /// Spacing at intermediate supports, mm.
+    #[arg(long, requires = "edge_mm")]
+    pub intermediate_mm: Option<f64>,
+    /// Spacing at panel edges, in.
+    #[arg(long, requires = "intermediate_in")]
+    pub edge_in: Option<f64>,
+    /// Spacing at intermediate supports, in.
+    #[arg(long, requires = "edge_in")]
+    pub intermediate_in: Option<f64>,
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Debug, Args)]
+pub struct CompareArgs {
+    /// Project file (JSON). Without it, the built-in demo project is used.
+    pub project: Option<PathBuf>,
+    /// Nails to compare, comma-separated ids (default: every catalog nail that fits the deck and member).
+    #[arg(long, value_delimiter = ',')]
+    pub nails: Vec<String>,
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Debug, Clone, Copy, ValueEnum)]
+pub enum GrainArg {
+    Side,
+    End,
+}
+
+#[derive(Debug, Clone, Copy, ValueEnum)]
+pub enum LoadArg {
+    /// Wind or earthquake: the only duration withdrawal may carry.
+    Short,
+    Standard,
+    Permanent,
+}
+
+#[derive(Debug, Args)]
+pub struct CapacityArgs {
+    /// Design basis: nbc2020-o86, asce7-22-nds2018-asd or asce7-22-nds2018-lrfd.
+    #[arg(long)]
+    pub basis: String,
+    /// Nail id (see `deckhold catalog nails`).
+    #[arg(long)]
+    pub nail: String,
+    /// Species group id of the framing (see `deckhold catalog species`).
+    #[arg(long)]
+    pub species: String,
+    /// Penetration into the framing member, mm.
+    #[arg(
+        long,
+        conflicts_with = "penetration_in",
+        required_unless_present = "penetration_in"
+    )]
+    pub penetration_mm: Option<f64>,
+    /// Penetration into the framing member, in.
+    #[arg(long)]
+    pub penetration_in: Option<f64>,
+    /// Deck (side member) thickness, mm: enables the head pull-through check.
+    #[arg(long, conflicts_with = "deck_in")]
+    pub deck_mm: Option<f64>,
+    /// Deck (side member) thickness, in.
+    #[arg(long)]
+    pub deck_in: Option<f64>,
+    /// Deck panel id (plywood or osb) for head pull-through.
+    #[arg(long, default_value = "osb")]
+    pub panel: String,
+    /// Framing is cross-laminated timber.
+    #[arg(long)]
+    pub clt: bool,
+    /// The nail is toe-nailed.
+    #[arg(long)]
+    pub toe_nail: bool,
+    /// Wet service conditions.
+    #[arg(long)]
+    pub wet: bool,
+    /// Preservative- or fire-retardant-treated framing.
+    #[arg(long)]
+    pub treated: bool,
+    /// Grain the nail points into.
+    #[arg(long, value_enum, default_value = "side")]
+    pub grain: GrainArg,
+    /// Load duration.
+    #[arg(long, value_enum, default_value = "short")]
+    pub load: LoadArg,
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Debug, Clone, Copy, ValueEnum)]
+pub enum CatalogKind {
+    Nails,
+    Species,
+    Panels,
+}
+
+#[derive(Debug, Args)]
+pub struct CatalogArgs {
+    /// Which catalog.
+    #[arg(value_enum)]
+    pub kind: CatalogKind,
+    #[arg(long)]
+    pub json: bool,
+}
+
+#[derive(Debug, Args)]
+pub struct InitArgs {
+    /// Where to write the example project (default: project.json). An existing file is not overwritten.
+    pub path: Option<PathBuf>,
+    /// Write the US-basis example (ASCE 7-22 with NDS) instead of the Canadian one.
+    #[arg(long)]
+    pub us: bool,
+}

@@ -1,0 +1,87 @@
+//! `deckhold catalog`: the built-in nails, species groups and panels, with their sources.
+
+use anyhow::Result;
+
+use crate::args::{CatalogArgs, CatalogKind};
+use crate::table::Table;
+use crate::Outcome;
+
+pub fn run(args: &CatalogArgs) -> Result<Outcome> {
+    match args.kind {
+        CatalogKind::Nails => {
+            let nails = deckhold_fasten::nails();
+            if args.json {
+                println!("{}", serde_json::to_string_pretty(nails)?);
+                return Ok(Outcome::Works);
+            }
+            let mut table = Table::new(&[
+                "id",
+                "description",
+                "length mm",
+                "shank mm",
+                "head mm",
+                "shank",
+                "material",
+                "source",
+            ]);
+            for nail in nails {
+                table.row(vec![
+                    nail.id.clone(),
+                    nail.description.clone(),
+                    format!("{:.1}", nail.length_mm),
+                    format!("{:.2}", nail.shank_diameter_mm),
+                    format!("{:.2}", nail.head_diameter_mm),
+                    nail.shank.as_str().to_string(),
+                    nail.material.as_str().to_string(),
+                    nail.provenance(),
+                ]);
+            }
+            print!("{}", table.render());
+        }
+        CatalogKind::Species => {
+            let groups = deckhold_fasten::species_groups();
+            if args.json {
+                println!("{}", serde_json::to_string_pretty(groups)?);
+                return Ok(Outcome::Works);
+            }
+            let mut table = Table::new(&["id", "name", "O86 rel. density", "NDS G", "sources"]);
+            for group in groups {
+                let value = |v: &Option<deckhold_fasten::SourcedValue>| {
+                    v.as_ref()
+                        .map_or("-".to_string(), |v| format!("{:.2}", v.value))
+                };
+                let sources: Vec<String> =
+                    [&group.o86_relative_density, &group.nds_specific_gravity]
+                        .iter()
+                        .filter_map(|v| v.as_ref().map(|v| v.provenance()))
+                        .collect();
+                table.row(vec![
+                    group.id.clone(),
+                    group.name.clone(),
+                    value(&group.o86_relative_density),
+                    value(&group.nds_specific_gravity),
+                    sources.join("; "),
+                ]);
+            }
+            print!("{}", table.render());
+        }
+        CatalogKind::Panels => {
+            let panels = deckhold_fasten::panels();
+            if args.json {
+                println!("{}", serde_json::to_string_pretty(panels)?);
+                return Ok(Outcome::Works);
+            }
+            let mut table = Table::new(&["id", "name", "NDS G", "source"]);
+            for panel in panels {
+                table.row(vec![
+                    panel.id.clone(),
+                    panel.name.clone(),
+                    format!("{:.2}", panel.nds_specific_gravity.value),
+                    panel.nds_specific_gravity.provenance(),
+                ]);
+            }
+            print!("{}", table.render());
+        }
+    }
+    Ok(Outcome::Works)
+}

@@ -1,0 +1,31 @@
+//! `deckhold init`: write a complete example project file to start from (never over an existing file).
+
+use anyhow::Result;
+use std::path::PathBuf;
+
+use crate::args::InitArgs;
+use crate::output::write_new_file;
+use crate::Outcome;
+
+/// The US-basis example: an invented hip-roof house (ASCE 7-22 with NDS 2018, ASD).
+const US_EXAMPLE_JSON: &str = include_str!("../../../../fixtures/us-hip.json");
+
+pub fn run(args: &InitArgs) -> Result<Outcome> {
+    let path = args
+        .path
+        .clone()
+        .unwrap_or_else(|| PathBuf::from("project.json"));
+    let text = if args.us {
+        US_EXAMPLE_JSON
+    } else {
+        deckhold_project::DEMO_PROJECT_JSON
+    };
+    write_new_file(&path, text.as_bytes())?;
+    eprintln!(
+        "wrote {} ({} basis example); edit it, then run `deckhold run {}`",
+        path.display(),
+        if args.us { "US" } else { "Canadian" },
+        path.display()
+    );
+    Ok(Outcome::Works)
+}

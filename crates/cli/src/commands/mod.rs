@@ -1,0 +1,48 @@
+//! One module per subcommand, plus what they share (reading the project file, the caution lines).
+
+pub mod capacity;
+pub mod catalog;
+pub mod check;
+pub mod compare;
+pub mod init;
+pub mod run;
+pub mod zones;
+
+use anyhow::{Context, Result};
+use deckhold_project::{parse_project, Project, DEMO_PROJECT_JSON};
+use std::path::Path;
+
+/// Reads and validates the project file, or the built-in demo when none is given.
+pub fn load_project(path: Option<&Path>) -> Result<Project> {
+    match path {
+        None => parse_project(DEMO_PROJECT_JSON).context("the built-in demo project"),
+        Some(path) => {
+            let text = std::fs::read_to_string(path)
+                .with_context(|| format!("cannot read the project file {}", path.display()))?;
+            parse_project(&text).with_context(|| format!("in {}", path.display()))
+        }
+    }
+}
+
+/// The cautions printed under every table.
+pub fn caution_lines() -> String {
+    let mut text = String::from("\nCautions:\n");
+    for caution in deckhold_schedule::standard_cautions() {
+        text.push_str("  - ");
+        text.push_str(&caution);
+        text.push('\n');
+    }
+    text
+}
+
+/// A spacing for people: "150 mm o.c." or, for the US basis, "6 in o.c. (152 mm)"; "none works" for None.
+pub fn spacing_text(spacing_mm: Option<f64>, us: bool) -> String {
+    match spacing_mm {
+        None => "none works".to_string(),
+        Some(spacing_mm) if us => format!(
+            "{:.0} in o.c.",
+            spacing_mm / deckhold_project::units::MM_PER_IN
+        ),
+        Some(spacing_mm) => format!("{spacing_mm:.0} mm o.c."),
+    }
+}

@@ -1,0 +1,285 @@
+//! The binary end to end: exit codes, outputs, refusals. Numbers are checked in the library tests; here
+//! the concern is that each command runs, writes what it says, and refuses bad input with exit status 2.
+
+use assert_cmd::Command;
+use predicates::prelude::*;
+use std::path::PathBuf;
+
+fn fixture(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("../../fixtures")
+        .join(name)
+}
+
+fn deckhold() -> Command {
+    Command::cargo_bin("deckhold").expect("the deckhold binary is built")
+}
+
+fn json_of(output: &[u8]) -> serde_json::Value {
+    serde_json::from_slice(output).expect("stdout is JSON")
+}
+
+#[test]
+fn run_on_the_demo_prints_the_schedule_and_the_cautions() {
+    deckhold()
+        .arg("run")
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("corner"))
+        .stdout(predicate::str::contains("panel-edge"))
+        .stdout(predicate::str::contains("qualified person"))
+        .stdout(predicate::str::contains("sealed"));
+}
+
+#[test]
+fn run_json_lists_every_zone_and_role_within_the_prescriptive_maxima() {
+    let output = deckhold().args(["run", "--json"]).output().expect("runs");
+    assert!(output.status.success());
+    let value = json_of(&output.stdout);
+    let zones = value["zones"].as_array().expect("zones");
+    assert!(
+        zones.len() >= 6,
+        "corner, edge, interior × two roles at least"
+    );
+    let mut total = 0;
+    for zone in zones {
+        let role = zone["support_role"].as_str().expect("role");
+        assert!(role == "panel-edge" || role == "intermediate");
+        // NBC 2020 Table 9.23.3.5.-A (from memory): 150 mm at edges, 300 mm at intermediate supports.
+        let maximum = if role == "panel-edge" { 150.0 } else { 300.0 };
+        let spacing = zone["spacing_mm"]
+            .as_f64()
+            .expect("the demo works in every zone");
+        assert!(spacing <= maximum);
+        assert!(zone["utilization"].as_f64().expect("utilization") <= 1.0);
+        total += zone["nail_count"].as_u64().expect("count");
+    }
+    assert_eq!(value["total_nail_count"].as_u64(), Some(total));
+    assert!(value["cautions"].as_array().is_some_and(|c| c.len() >= 3));
+}
+
+#[test]
+fn run_out_writes_csv_and_pdf() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    deckhold()
+        .args(["run", "--out"])
+        .arg(folder.path())
+        .assert()
+        .success();
+    let csv = std::fs::read_to_string(folder.path().join("schedule.csv")).expect("schedule.csv");
+    assert!(csv.lines().count() > 6);
+    let lines =
+        std::fs::read_to_string(folder.path().join("rafter-lines.csv")).expect("rafter-lines.csv");
+    assert!(lines.lines().count() > 30);
+    let pdf = std::fs::read(folder.path().join("schedule.pdf")).expect("schedule.pdf");
+    assert!(pdf.starts_with(b"%PDF"));
+}
+
+#[test]
+fn the_us_project_runs_in_inches() {
+    deckhold()
+        .arg("run")
+        .arg(fixture("us-hip.json"))
+        .assert()
+        .code(predicate::in_iter([0, 1]))
+        .stdout(predicate::str::contains(" in o.c.").or(predicate::str::contains("none works")));
+}
+
+#[test]
+fn a_project_where_no_nail_works_exits_1_and_says_so() {
+    deckhold()
+        .arg("run")
+        .arg(fixture("ca-no-feasible-nail.json"))
+        .assert()
+        .code(1)
+        .stdout(predicate::str::contains("NO PRACTICAL SPACING"));
+}
+
+#[test]
+fn every_broken_project_is_refused_with_exit_2_naming_the_problem() {
+    let cases = [
+        ("malformed.json", "JSON"),
+        ("unknown-key.json", "roof.slop"),
+        ("missing-key.json", "wind.q50_kpa"),
+        ("slope-out-of-range.json", "roof.slope_deg"),
+        ("both-units.json", "eave_height"),
+        ("unknown-nail.json", "12d-unobtainium"),
+        ("unknown-species.json", "balsa"),
+        ("too-tall.json", "eave_height"),
+        ("not-rectilinear.json", "polygon"),
+        ("negative-spacing.json", "framing.spacing"),
+        ("unknown-basis.json", "basis"),
+    ];
+    for (file, words) in cases {
+        deckhold()
+            .arg("run")
+            .arg(fixture(&format!("broken/{file}")))
+            .assert()
+            .code(2)
+            .stderr(predicate::str::contains(words).from_utf8())
+            .stderr(predicate::str::contains("panicked").not());
+    }
+}
+
+#[test]
+fn a_missing_project_file_is_exit_2() {
+    deckhold()
+        .args(["run", "no-such-project.json"])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("cannot read the project file"));
+}
+
+#[test]
+fn zones_json_has_the_documented_fields() {
+    let output = deckhold().args(["zones", "--json"]).output().expect("runs");
+    assert!(output.status.success());
+    let value = json_of(&output.stdout);
+    assert!(value["edge_width_m"].as_f64().is_some_and(|w| w > 0.0));
+    assert!(value["q_kpa"].as_f64().is_some_and(|q| q > 0.0));
+    let labels: Vec<&str> = value["zones"]
+        .as_array()
+        .expect("zones")
+        .iter()
+        .map(|zone| zone["label"].as_str().expect("label"))
+        .collect();
+    for label in ["interior", "edge", "corner"] {
+        assert!(labels.contains(&label), "{labels:?}");
+    }
+    for zone in value["zones"].as_array().expect("zones") {
+        for key in [
+            "area_m2",
+            "code_zone",
+            "cp_ext",
+            "net_uplift_kpa",
+            "polygons_m",
+        ] {
+            assert!(!zone[key].is_null(), "{key}");
+        }
+    }
+}
+
+#[test]
+fn check_of_the_existing_pattern_reports_each_zone() {
+    let output = deckhold()
+        .args(["check", "--json"])
+        .arg(fixture("ca-existing-pattern.json"))
+        .output()
+        .expect("runs");
+    let code = output.status.code();
+    assert!(code == Some(0) || code == Some(1), "{code:?}");
+    let value = json_of(&output.stdout);
+    let passes = value["passes"].as_bool().expect("passes");
+    assert_eq!(passes, code == Some(0));
+    assert!(value["zones"]
+        .as_array()
+        .is_some_and(|zones| !zones.is_empty()));
+}
+
+#[test]
+fn check_with_a_pattern_far_too_sparse_fails_with_exit_1() {
+    deckhold()
+        .args([
+            "check",
+            "--nail",
+            "common-51x2.84",
+            "--edge-mm",
+            "600",
+            "--intermediate-mm",
+            "900",
+        ])
+        .arg(fixture("demo-ca-gable.json"))
+        .assert()
+        .code(1)
+        .stdout(predicate::str::contains("FAILS"));
+}
+
+#[test]
+fn compare_lists_each_nail() {
+    deckhold()
+        .args(["compare", "--nails", "common-51x2.84,spiral-63x3.25"])
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("common-51x2.84"))
+        .stdout(predicate::str::contains("spiral-63x3.25"));
+}
+
+#[test]
+fn capacity_refuses_end_grain_and_long_term_load() {
+    let base = [
+        "capacity",
+        "--basis",
+        "nbc2020-o86",
+        "--nail",
+        "common-63x3.25",
+        "--species",
+        "spf",
+        "--penetration-mm",
+        "40",
+    ];
+    deckhold()
+        .args(base)
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("withdrawal"));
+    deckhold()
+        .args(base)
+        .args(["--grain", "end"])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("end grain"));
+    deckhold()
+        .args(base)
+        .args(["--load", "permanent"])
+        .assert()
+        .code(2);
+}
+
+#[test]
+fn catalog_lists_the_required_nails() {
+    let output = deckhold()
+        .args(["catalog", "nails"])
+        .output()
+        .expect("runs");
+    assert!(output.status.success());
+    let text = String::from_utf8_lossy(&output.stdout);
+    for id in [
+        "common-51x2.84",
+        "common-63x3.25",
+        "common-76x3.66",
+        "spiral-63x3.25",
+        "6d-common",
+        "8d-common",
+        "10d-common",
+        "8d-box",
+        "rsrs-01",
+        "rsrs-03",
+    ] {
+        assert!(text.contains(id), "{id}");
+    }
+    deckhold()
+        .args(["catalog", "species"])
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("southern-pine"));
+    deckhold()
+        .args(["catalog", "panels", "--json"])
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("osb"));
+}
+
+#[test]
+fn init_writes_a_project_that_runs_and_never_overwrites() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let path = folder.path().join("project.json");
+    deckhold().arg("init").arg(&path).assert().success();
+    deckhold().arg("run").arg(&path).assert().success();
+    deckhold().arg("init").arg(&path).assert().code(2);
+    let us = folder.path().join("us.json");
+    deckhold()
+        .args(["init", "--us"])
+        .arg(&us)
+        .assert()
+        .success();
+}

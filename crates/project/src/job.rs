@@ -1,0 +1,291 @@
+//! The whole job for one project: wind zones, per-nail resistance, spacing for each candidate nail.
+//!
+//! Pure computation: a validated [`Project`] in, a [`Job`] out. The schedule for reports is built from the
+//! job by [`crate::report::schedule_for`].
+
+use crate::error::JobError;
+use crate::project::{LinesAlong, MemberRole, Project, StaggerChoice};
+use crate::rules::spacing_rules;
+use deckhold_fasten::layout::{Axis, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion};
+use deckhold_fasten::spacing::{plan_deck, DeckPlan, NailOption, SpacingRules};
+use deckhold_fasten::{
+    DeckLayer, Grain, LoadDuration, MemberKind, Nail, Resistance, ResistanceInput, Service,
+};
+use deckhold_wind::WindAnalysis;
+
+/// Effective wind area used to rank zones by severity, m²: a nail-sized area (common practice, no source).
+const RANKING_AREA_M2: f64 = 0.1;
+
+/// One candidate nail worked through the job.
+#[derive(Debug, Clone)]
+pub struct NailOutcome {
+    pub nail: &'static Nail,
+    pub penetration_mm: f64,
+    /// Err: the nail cannot be used at all (the message says why, e.g. too short to reach the minimum
+    /// penetration).
+    pub resistance: Result<Resistance, String>,
+    pub plan: Option<DeckPlan>,
+    /// Every zone and role has a working spacing.
+    pub feasible: bool,
+}
+
+impl NailOutcome {
+    /// Why this nail does not work, in one line (None when it works).
+    pub fn shortfall(&self) -> Option<String> {
+        if self.feasible {
+            return None;
+        }
+        match (&self.resistance, &self.plan) {
+            (Err(reason), _) => Some(reason.clone()),
+            (Ok(_), Some(plan)) => {
+                let failing = plan
+                    .zone_roles
+                    .iter()
+                    .filter(|role| role.spacing_mm.is_none())
+                    .count();
+                Some(format!(
+                    "no practical spacing works in {failing} zone and support combinations"
+                ))
+            }
+            (Ok(_), None) => Some("not planned".to_string()),
+        }
+    }
+}
+
+/// The result of the whole job.
+#[derive(Debug, Clone)]
+pub struct Job {
+    pub wind: WindAnalysis,
+    /// One entry per candidate, in the project's order of preference.
+    pub candidates: Vec<NailOutcome>,
+    /// Index of the nail the schedule uses: the first feasible one, else the first candidate.
+    pub chosen: usize,
+}
+
+impl Job {
+    pub fn chosen(&self) -> &NailOutcome {
+        &self.candidates[self.chosen]
+    }
+
+    pub fn feasible(&self) -> bool {
+        self.chosen().feasible
+    }
+}
+
+/// Runs the job for the project's own candidate list.
+pub fn run_job(project: &Project) -> Result<Job, JobError> {
+    run_job_with_nails(project, &project.nails)
+}
+
+/// Runs the job for the given candidate nails (ids checked against the catalog).
+pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job, JobError> {
+    let wind = deckhold_wind::analyze(&project.wind)?;
+    let deck_geometry = DeckGeometry::new(project, &wind)?;
+    let mut candidates = Vec::with_capacity(nail_ids.len());
+    for id in nail_ids {
+        let nail = deckhold_fasten::nail(id)?;
+        let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
+        candidates.push(work_nail(project, &wind, &deck_geometry, nail, &rules)?);
+    }
+    if candidates.is_empty() {
+        return Err(crate::ProjectError::Missing {
+            path: "nails[0]".to_string(),
+        }
+        .into());
+    }
+    let chosen = candidates
+        .iter()
+        .position(|candidate| candidate.feasible)
+        .unwrap_or(0);
+    Ok(Job {
+        wind,
+        candidates,
+        chosen,
+    })
+}
+
+/// The plan geometry and zone data in the form the spacing module takes, computed once per job.
+#[derive(Debug, Clone)]
+pub struct DeckGeometry {
+    pub planes: Vec<PlaneGeometry>,
+    pub zones: Vec<ZoneRegion>,
+    pub zone_rank: Vec<u32>,
+    pub framing: FramingInput,
+    pub panel: PanelInput,
+}
+
+impl DeckGeometry {
+    pub fn new(project: &Project, wind: &WindAnalysis) -> Result<Self, JobError> {
+        let planes = wind
+            .planes
+            .iter()
+            .map(|plane| PlaneGeometry {
+                polygon_m: plane.polygon_m.clone(),
+                slope_deg: plane.slope_deg,
+                downslope_m: plane.downslope_m,
+            })
+            .collect();
+        let zones = wind
+            .zones
+            .iter()
+            .enumerate()
+            .map(|(zone_index, zone)| ZoneRegion {
+                zone_index,
+                polygons_m: zone.polygons_m.clone(),
+            })
+            .collect();
+        let zone_rank = rank_zones(wind)?;
+        let lines_along = project.framing.lines_along.map(|along| match along {
+            LinesAlong::Length => Axis::X,
+            LinesAlong::Width => Axis::Y,
+        });
+        let framing = FramingInput {
+            spacing_mm: project.framing.spacing_mm,
+            lines_along,
+            first_line_offset_mm: first_line_offset_mm(project),
+        };
+        let stagger = match project.deck.stagger {
+            StaggerChoice::Half => Stagger::Half,
+            StaggerChoice::None => Stagger::None,
+            StaggerChoice::OffsetMm(offset_mm) => Stagger::OffsetMm(offset_mm),
+        };
+        let panel = PanelInput {
+            length_mm: project.deck.panel_length_mm,
+            width_mm: project.deck.panel_width_mm,
+            stagger,
+        };
+        Ok(Self {
+            planes,
+            zones,
+            zone_rank,
+            framing,
+            panel,
+        })
+    }
+}
+
+/// The first framing line sits on the wall line: the plane starts at the roof edge, one overhang out.
+fn first_line_offset_mm(project: &Project) -> f64 {
+    project.wind.roof.rake_overhang_mm
+}
+
+/// Zones ranked by net uplift at a nail-sized area: higher rank, worse zone.
+fn rank_zones(wind: &WindAnalysis) -> Result<Vec<u32>, JobError> {
+    let mut uplift_by_zone = Vec::with_capacity(wind.zones.len());
+    for zone_index in 0..wind.zones.len() {
+        uplift_by_zone.push((
+            zone_index,
+            wind.uplift(zone_index, RANKING_AREA_M2)?.net_uplift_kpa,
+        ));
+    }
+    let mut order = uplift_by_zone.clone();
+    order.sort_by(|a, b| a.1.total_cmp(&b.1).then(a.0.cmp(&b.0)));
+    let mut rank = vec![0; wind.zones.len()];
+    for (position, (zone_index, _)) in order.iter().enumerate() {
+        rank[*zone_index] = position as u32;
+    }
+    Ok(rank)
+}
+
+/// The resistance input for one nail in this project's deck and framing.
+pub fn resistance_input<'a>(
+    project: &Project,
+    nail: &'a Nail,
+    penetration_mm: f64,
+) -> Result<ResistanceInput<'a>, JobError> {
+    let species = deckhold_fasten::species(&project.framing.species_id)?;
+    let panel = deckhold_fasten::panel(&project.deck.panel_id)?;
+    Ok(ResistanceInput {
+        method: project.basis.fastener_method(),
+        nail,
+        species,
+        member: if project.framing.member == MemberRole::Clt {
+            MemberKind::Clt
+        } else {
+            MemberKind::Sawn
+        },
+        deck: Some(DeckLayer {
+            panel,
+            thickness_mm: project.deck.thickness_mm,
+        }),
+        penetration_mm,
+        toe_nail: project.framing.toe_nailed,
+        service: if project.deck.wet_service {
+            Service::Wet
+        } else {
+            Service::Dry
+        },
+        grain: Grain::Side,
+        load: LoadDuration::Short,
+        treated: project.deck.treated,
+        member_depth_mm: Some(project.framing.member_depth_mm),
+    })
+}
+
+/// Penetration of the point into the framing, mm. The resistance credits at most the member depth (a
+/// nail that exits the member holds only along the part inside it) and says so in its warnings.
+pub fn penetration_for(project: &Project, nail: &Nail) -> f64 {
+    deckhold_fasten::penetration_mm(nail, project.deck.thickness_mm, project.deck.between_mm)
+}
+
+fn work_nail(
+    project: &Project,
+    wind: &WindAnalysis,
+    geometry: &DeckGeometry,
+    nail: &'static Nail,
+    rules: &SpacingRules,
+) -> Result<NailOutcome, JobError> {
+    let penetration_mm = penetration_for(project, nail);
+    let input = resistance_input(project, nail, penetration_mm)?;
+    let resistance = match deckhold_fasten::nail_resistance(&input) {
+        Ok(resistance) => resistance,
+        Err(error) => {
+            return Ok(NailOutcome {
+                nail,
+                penetration_mm,
+                resistance: Err(error.to_string()),
+                plan: None,
+                feasible: false,
+            })
+        }
+    };
+    let plan = plan_with_resistance(wind, geometry, nail, resistance.governing_n, rules)?;
+    let feasible = plan.zone_roles.iter().all(|role| role.spacing_mm.is_some());
+    Ok(NailOutcome {
+        nail,
+        penetration_mm,
+        resistance: Ok(resistance),
+        plan: Some(plan),
+        feasible,
+    })
+}
+
+/// Plans the deck for one nail of known factored resistance.
+pub fn plan_with_resistance(
+    wind: &WindAnalysis,
+    geometry: &DeckGeometry,
+    nail: &Nail,
+    resistance_n: f64,
+    rules: &SpacingRules,
+) -> Result<DeckPlan, JobError> {
+    let uplift = |zone_index: usize, area_m2: f64| -> Result<f64, String> {
+        wind.uplift(zone_index, area_m2)
+            .map(|uplift| uplift.net_uplift_kpa)
+            .map_err(|error| error.to_string())
+    };
+    let option = NailOption {
+        id: nail.id.to_string(),
+        resistance_n,
+        mass_g: nail.mass_g,
+    };
+    Ok(plan_deck(
+        &geometry.planes,
+        &geometry.zones,
+        &geometry.zone_rank,
+        &geometry.framing,
+        &geometry.panel,
+        &uplift,
+        &option,
+        rules,
+    )?)
+}

@@ -1,0 +1,622 @@
+//! Project file (JSON) to a validated [`Project`]. Every message names the key path and the allowed range;
+//! unknown keys are refused so that a misspelt key never falls back to a default silently.
+
+use crate::basis::Basis;
+use crate::error::ProjectError;
+use crate::project::{
+    Deck, ExistingPattern, Framing, LinesAlong, MemberRole, PatternSpacing, Project, StaggerChoice,
+};
+use crate::reader::{as_finite_number, check_range, ObjectReader};
+use crate::units::Quantity;
+use deckhold_schedule::ProjectInfo;
+use deckhold_wind::{
+    AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
+    NbcWind, RidgeAlong, Roof, RoofShape, SiteWind, Terrain, WindInput,
+};
+use serde_json::Value;
+
+/// Plan dimensions the tool accepts at all (the wind method narrows this further), m.
+const PLAN_SIZE_RANGE_M: (f64, f64) = (1.0, 300.0);
+/// The date printed when the project gives none: fixed, so output stays reproducible.
+pub const DEFAULT_DATE: &str = "2026-01-01";
+
+/// Parses and validates a project file's text.
+pub fn parse_project(text: &str) -> Result<Project, ProjectError> {
+    let value: Value =
+        serde_json::from_str(text).map_err(|error| ProjectError::Json(error.to_string()))?;
+    project_from_value(&value)
+}
+
+/// Validates an already-parsed JSON value.
+pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
+    let root = ObjectReader::new("", value)?;
+    let info = read_info(&root)?;
+    let basis_id = root.string("basis")?.ok_or_else(|| ProjectError::Missing {
+        path: "basis".to_string(),
+    })?;
+    let basis = Basis::parse(basis_id).ok_or_else(|| ProjectError::Invalid {
+        path: "basis".to_string(),
+        message: format!(
+            "'{basis_id}' is not one of {}",
+            Basis::CHOICES.map(|(id, _)| id).join(", ")
+        ),
+    })?;
+    let building = read_building(&root.require_object("building")?)?;
+    let roof = read_roof(&root.require_object("roof")?)?;
+    let site = read_wind(&root.require_object("wind")?, basis)?;
+    let overrides = read_overrides(&root)?;
+    let framing = read_framing(&root.require_object("framing")?, basis)?;
+    let deck = read_deck(&root.require_object("deck")?, basis)?;
+    let nails = read_nails(&root)?;
+    let existing = match root.object("existing")? {
+        Some(block) => Some(read_existing(&block)?),
+        None => None,
+    };
+    root.finish()?;
+    Ok(Project {
+        info,
+        basis,
+        wind: WindInput {
+            building,
+            roof,
+            site,
+            overrides,
+        },
+        framing,
+        deck,
+        nails,
+        existing,
+    })
+}
+
+fn read_info(root: &ObjectReader) -> Result<ProjectInfo, ProjectError> {
+    let Some(block) = root.object("project")? else {
+        return Ok(ProjectInfo {
+            date: DEFAULT_DATE.to_string(),
+            ..ProjectInfo::default()
+        });
+    };
+    let text = |key: &str| -> Result<String, ProjectError> {
+        Ok(block.string(key)?.unwrap_or_default().to_string())
+    };
+    let date = block.string("date")?.unwrap_or(DEFAULT_DATE).to_string();
+    if !is_iso_date(&date) {
+        return Err(ProjectError::Invalid {
+            path: "project.date".to_string(),
+            message: format!("'{date}' is not a date in the form YYYY-MM-DD"),
+        });
+    }
+    let info = ProjectInfo {
+        name: text("name")?,
+        site: text("site")?,
+        owner: text("owner")?,
+        prepared_by: text("prepared_by")?,
+        date,
+        notes: text("notes")?,
+    };
+    block.finish()?;
+    Ok(info)
+}
+
+fn is_iso_date(text: &str) -> bool {
+    let parts: Vec<&str> = text.split('-').collect();
+    if parts.len() != 3 || parts[0].len() != 4 || parts[1].len() != 2 || parts[2].len() != 2 {
+        return false;
+    }
+    let numbers: Option<Vec<u32>> = parts.iter().map(|part| part.parse().ok()).collect();
+    matches!(numbers.as_deref(), Some([_, month, day]) if (1..=12).contains(month) && (1..=31).contains(day))
+}
+
+fn read_building(block: &ObjectReader) -> Result<Building, ProjectError> {
+    let footprint_block = block.require_object("footprint")?;
+    let footprint = if let Some(rectangle) = footprint_block.object("rectangle")? {
+        let (min, max) = PLAN_SIZE_RANGE_M;
+        let length_m = rectangle.require_quantity("length", Quantity::LengthM, min, max)?;
+        let width_m = rectangle.require_quantity("width", Quantity::LengthM, min, max)?;
+        rectangle.finish()?;
+        Footprint::Rectangle { length_m, width_m }
+    } else if footprint_block.has("polygon_m") || footprint_block.has("polygon_ft") {
+        Footprint::Polygon {
+            vertices_m: read_polygon(&footprint_block)?,
+        }
+    } else {
+        return Err(ProjectError::Missing {
+            path: "building.footprint.rectangle (or building.footprint.polygon_m)".to_string(),
+        });
+    };
+    footprint_block.finish()?;
+    let eave_height_m = block.require_quantity("eave_height", Quantity::LengthM, 1.0, 100.0)?;
+    Ok(Building {
+        footprint,
+        eave_height_m,
+    })
+}
+
+fn read_polygon(block: &ObjectReader) -> Result<Vec<[f64; 2]>, ProjectError> {
+    let (key, scale) = match (block.has("polygon_m"), block.has("polygon_ft")) {
+        (true, true) => {
+            return Err(ProjectError::BothUnits {
+                first: block.key_path("polygon_m"),
+                second: block.key_path("polygon_ft"),
+            })
+        }
+        (true, false) => ("polygon_m", 1.0),
+        _ => ("polygon_ft", Quantity::LengthM.to_si(1.0)),
+    };
+    let path = block.key_path(key);
+    let Some(Value::Array(points)) = block.get(key) else {
+        return Err(ProjectError::WrongType {
+            path,
+            expected: "a list of [x, y] points".to_string(),
+        });
+    };
+    if points.len() < 4 || points.len() > 200 {
+        return Err(ProjectError::OutOfRange {
+            path,
+            value: format!("{} points", points.len()),
+            range: "4..200 points".to_string(),
+        });
+    }
+    points
+        .iter()
+        .enumerate()
+        .map(|(index, point)| {
+            let coordinates: Option<Vec<f64>> = point
+                .as_array()
+                .map(|pair| pair.iter().filter_map(as_finite_number).collect());
+            match coordinates.as_deref() {
+                Some([x, y]) if point.as_array().map(Vec::len) == Some(2) => {
+                    let point_path = format!("{path}[{index}]");
+                    check_range(&point_path, *x * scale, -1000.0, 1000.0, "m")?;
+                    check_range(&point_path, *y * scale, -1000.0, 1000.0, "m")?;
+                    Ok([*x * scale, *y * scale])
+                }
+                _ => Err(ProjectError::WrongType {
+                    path: format!("{path}[{index}]"),
+                    expected: "a point [x, y] of two numbers".to_string(),
+                }),
+            }
+        })
+        .collect()
+}
+
+fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
+    let shape = block
+        .choice(
+            "shape",
+            &[
+                ("gable", RoofShape::Gable),
+                ("hip", RoofShape::Hip),
+                ("monoslope", RoofShape::Monoslope),
+                ("flat", RoofShape::Flat),
+            ],
+        )?
+        .ok_or_else(|| ProjectError::Missing {
+            path: "roof.shape".to_string(),
+        })?;
+    let slope_deg = match (block.has("slope"), block.has("slope_deg")) {
+        (true, true) => {
+            return Err(ProjectError::BothUnits {
+                first: "roof.slope".to_string(),
+                second: "roof.slope_deg".to_string(),
+            })
+        }
+        (true, false) => parse_rise_run(block.string("slope")?.unwrap_or_default())?,
+        (false, true) => block.number("slope_deg", 0.0, 60.0)?.unwrap_or_default(),
+        (false, false) if shape == RoofShape::Flat => 0.0,
+        (false, false) => {
+            return Err(ProjectError::Missing {
+                path: "roof.slope (or roof.slope_deg)".to_string(),
+            })
+        }
+    };
+    let ridge_along = block
+        .choice(
+            "ridge_along",
+            &[("length", RidgeAlong::Length), ("width", RidgeAlong::Width)],
+        )?
+        .unwrap_or(RidgeAlong::Length);
+    let overhang_mm = block
+        .quantity("overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .unwrap_or(0.0);
+    let eave_overhang_mm = block
+        .quantity("eave_overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .unwrap_or(overhang_mm);
+    let rake_overhang_mm = block
+        .quantity("rake_overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .unwrap_or(overhang_mm);
+    let dead_load_kpa = block
+        .quantity("dead_load", Quantity::PressureKpa, 0.0, 5.0)?
+        .unwrap_or(0.0);
+    block.finish()?;
+    Ok(Roof {
+        shape,
+        slope_deg,
+        ridge_along,
+        eave_overhang_mm,
+        rake_overhang_mm,
+        dead_load_kpa,
+    })
+}
+
+/// "5:12" (rise:run, the framer's way) to degrees.
+fn parse_rise_run(text: &str) -> Result<f64, ProjectError> {
+    let invalid = || ProjectError::Invalid {
+        path: "roof.slope".to_string(),
+        message: format!("'{text}' is not a rise:run such as \"5:12\""),
+    };
+    let (rise, run) = text.split_once(':').ok_or_else(invalid)?;
+    let rise: f64 = rise.trim().parse().map_err(|_| invalid())?;
+    let run: f64 = run.trim().parse().map_err(|_| invalid())?;
+    if !(rise.is_finite() && run.is_finite() && rise >= 0.0 && run > 0.0) {
+        return Err(invalid());
+    }
+    let slope_deg = (rise / run).atan().to_degrees();
+    check_range("roof.slope", slope_deg, 0.0, 60.0, "deg")?;
+    Ok(slope_deg)
+}
+
+fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectError> {
+    let site = match basis.strength_method() {
+        None => {
+            let q50_kpa =
+                block
+                    .number("q50_kpa", 0.1, 3.0)?
+                    .ok_or_else(|| ProjectError::Missing {
+                        path: "wind.q50_kpa".to_string(),
+                    })?;
+            let terrain = block
+                .choice(
+                    "terrain",
+                    &[("open", Terrain::Open), ("rough", Terrain::Rough)],
+                )?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: "wind.terrain".to_string(),
+                })?;
+            let topographic_factor = block.number("topographic_factor", 1.0, 4.0)?.unwrap_or(1.0);
+            let importance = block
+                .choice(
+                    "importance",
+                    &[
+                        ("low", Importance::Low),
+                        ("normal", Importance::Normal),
+                        ("high", Importance::High),
+                        ("post-disaster", Importance::PostDisaster),
+                    ],
+                )?
+                .unwrap_or(Importance::Normal);
+            let internal_category =
+                block
+                    .number("internal_category", 1.0, 3.0)?
+                    .ok_or_else(|| ProjectError::Missing {
+                        path: "wind.internal_category".to_string(),
+                    })?;
+            if internal_category.fract() != 0.0 {
+                return Err(ProjectError::Invalid {
+                    path: "wind.internal_category".to_string(),
+                    message: format!("{internal_category} is not one of 1, 2, 3"),
+                });
+            }
+            SiteWind::Nbc2020(NbcWind {
+                q50_kpa,
+                terrain,
+                topographic_factor,
+                importance,
+                internal_category: internal_category as u8,
+            })
+        }
+        Some(method) => {
+            let speed_mph =
+                block
+                    .number("speed_mph", 60.0, 300.0)?
+                    .ok_or_else(|| ProjectError::Missing {
+                        path: "wind.speed_mph".to_string(),
+                    })?;
+            let exposure = block
+                .choice(
+                    "exposure",
+                    &[("B", Exposure::B), ("C", Exposure::C), ("D", Exposure::D)],
+                )?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: "wind.exposure".to_string(),
+                })?;
+            let kzt = block.number("kzt", 1.0, 4.0)?.unwrap_or(1.0);
+            let ground_elevation_ft = block
+                .quantity("ground_elevation", Quantity::LengthM, -100.0, 3500.0)?
+                .map(|elevation_m| Quantity::LengthM.from_si(elevation_m))
+                .unwrap_or(0.0);
+            let enclosure = block
+                .choice(
+                    "enclosure",
+                    &[
+                        ("enclosed", Enclosure::Enclosed),
+                        ("partially-enclosed", Enclosure::PartiallyEnclosed),
+                        ("partially-open", Enclosure::PartiallyOpen),
+                    ],
+                )?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: "wind.enclosure".to_string(),
+                })?;
+            SiteWind::Asce722(AsceWind {
+                speed_mph,
+                exposure,
+                kzt,
+                ground_elevation_ft,
+                enclosure,
+                method,
+            })
+        }
+    };
+    block.finish()?;
+    Ok(site)
+}
+
+fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectError> {
+    let Some(value) = root.get("coefficient_overrides") else {
+        return Ok(Vec::new());
+    };
+    let Value::Array(items) = value else {
+        return Err(ProjectError::WrongType {
+            path: "coefficient_overrides".to_string(),
+            expected: "a list of { code_zone, points, source }".to_string(),
+        });
+    };
+    items
+        .iter()
+        .enumerate()
+        .map(|(index, item)| {
+            let path = format!("coefficient_overrides[{index}]");
+            let block = ObjectReader::new(&path, item)?;
+            let code_zone = block
+                .string("code_zone")?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: format!("{path}.code_zone"),
+                })?
+                .to_string();
+            let source = block
+                .string("source")?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: format!("{path}.source (where the values come from)"),
+                })?
+                .to_string();
+            let Some(Value::Array(raw_points)) = block.get("points") else {
+                return Err(ProjectError::WrongType {
+                    path: format!("{path}.points"),
+                    expected: "a list of { area_m2, coefficient }".to_string(),
+                });
+            };
+            if raw_points.is_empty() {
+                return Err(ProjectError::Missing {
+                    path: format!("{path}.points[0]"),
+                });
+            }
+            let points = raw_points
+                .iter()
+                .enumerate()
+                .map(|(point_index, raw)| {
+                    let point = ObjectReader::new(&format!("{path}.points[{point_index}]"), raw)?;
+                    let area_m2 =
+                        point.require_quantity("area", Quantity::AreaM2, 0.01, 10_000.0)?;
+                    let coefficient =
+                        point.number("coefficient", -20.0, 20.0)?.ok_or_else(|| {
+                            ProjectError::Missing {
+                                path: point.key_path("coefficient"),
+                            }
+                        })?;
+                    point.finish()?;
+                    Ok(CurvePoint {
+                        area_m2,
+                        coefficient,
+                    })
+                })
+                .collect::<Result<Vec<_>, ProjectError>>()?;
+            block.finish()?;
+            Ok(CurveOverride {
+                code_zone,
+                points,
+                source,
+            })
+        })
+        .collect()
+}
+
+fn read_framing(block: &ObjectReader, basis: Basis) -> Result<Framing, ProjectError> {
+    let spacing_mm = block.require_quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)?;
+    let species_id = block
+        .string("species")?
+        .ok_or_else(|| ProjectError::Missing {
+            path: "framing.species".to_string(),
+        })?
+        .to_string();
+    deckhold_fasten::species(&species_id).map_err(|error| ProjectError::Invalid {
+        path: "framing.species".to_string(),
+        message: error.to_string(),
+    })?;
+    let member = block
+        .choice(
+            "member",
+            &[
+                ("rafter", MemberRole::Rafter),
+                ("truss", MemberRole::Truss),
+                ("joist", MemberRole::Joist),
+                ("clt", MemberRole::Clt),
+            ],
+        )?
+        .unwrap_or(MemberRole::Rafter);
+    // A 2x nominal member: 38 mm (1-1/2 in) face, 89 mm (3-1/2 in) deep, the smallest common chord.
+    let (default_width_mm, default_depth_mm) = if basis.is_us() {
+        (38.1, 88.9)
+    } else {
+        (38.0, 89.0)
+    };
+    let member_width_mm = block
+        .quantity("member_width", Quantity::LengthMm, 19.0, 400.0)?
+        .unwrap_or(default_width_mm);
+    let member_depth_mm = block
+        .quantity("member_depth", Quantity::LengthMm, 19.0, 1200.0)?
+        .unwrap_or(default_depth_mm);
+    let lines_along = block.choice(
+        "runs_along",
+        &[("length", LinesAlong::Length), ("width", LinesAlong::Width)],
+    )?;
+    let toe_nailed = block.bool("toe_nailed")?.unwrap_or(false);
+    block.finish()?;
+    Ok(Framing {
+        spacing_mm,
+        species_id,
+        member,
+        member_width_mm,
+        member_depth_mm,
+        lines_along,
+        toe_nailed,
+    })
+}
+
+fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
+    let panel_id = block
+        .string("panel")?
+        .ok_or_else(|| ProjectError::Missing {
+            path: "deck.panel".to_string(),
+        })?
+        .to_string();
+    deckhold_fasten::panel(&panel_id).map_err(|error| ProjectError::Invalid {
+        path: "deck.panel".to_string(),
+        message: error.to_string(),
+    })?;
+    let thickness_mm = block.require_quantity("thickness", Quantity::LengthMm, 6.0, 40.0)?;
+    // 1220 x 2440 mm in Canada, 48 x 96 in in the US.
+    let (default_length_mm, default_width_mm) = if basis.is_us() {
+        (2438.4, 1219.2)
+    } else {
+        (2440.0, 1220.0)
+    };
+    let panel_length_mm = block
+        .quantity("panel_length", Quantity::LengthMm, 600.0, 3700.0)?
+        .unwrap_or(default_length_mm);
+    let panel_width_mm = block
+        .quantity("panel_width", Quantity::LengthMm, 300.0, 1250.0)?
+        .unwrap_or(default_width_mm);
+    let stagger = match block.get("stagger") {
+        None => StaggerChoice::Half,
+        Some(Value::String(word)) if word == "half" => StaggerChoice::Half,
+        Some(Value::String(word)) if word == "none" => StaggerChoice::None,
+        Some(Value::Object(_)) => {
+            let offset = block.require_object("stagger")?;
+            let offset_mm =
+                offset.require_quantity("offset", Quantity::LengthMm, 0.0, panel_length_mm)?;
+            offset.finish()?;
+            StaggerChoice::OffsetMm(offset_mm)
+        }
+        Some(_) => {
+            return Err(ProjectError::Invalid {
+                path: "deck.stagger".to_string(),
+                message: "expected \"half\", \"none\" or {\"offset_mm\": number}".to_string(),
+            })
+        }
+    };
+    let wet_service = block
+        .choice("service", &[("dry", false), ("wet", true)])?
+        .unwrap_or(false);
+    let treated = block.bool("treated")?.unwrap_or(false);
+    let between_mm = block
+        .quantity("between", Quantity::LengthMm, 0.0, 100.0)?
+        .unwrap_or(0.0);
+    block.finish()?;
+    Ok(Deck {
+        panel_id,
+        thickness_mm,
+        panel_length_mm,
+        panel_width_mm,
+        stagger,
+        wet_service,
+        treated,
+        between_mm,
+    })
+}
+
+fn read_nails(root: &ObjectReader) -> Result<Vec<String>, ProjectError> {
+    let Value::Array(items) = root.require("nails")? else {
+        return Err(ProjectError::WrongType {
+            path: "nails".to_string(),
+            expected: "a list of nail ids".to_string(),
+        });
+    };
+    if items.is_empty() {
+        return Err(ProjectError::Missing {
+            path: "nails[0]".to_string(),
+        });
+    }
+    items
+        .iter()
+        .enumerate()
+        .map(|(index, item)| {
+            let path = format!("nails[{index}]");
+            let id = item.as_str().ok_or_else(|| ProjectError::WrongType {
+                path: path.clone(),
+                expected: "a nail id (see `deckhold catalog nails`)".to_string(),
+            })?;
+            check_nail_id(&path, id)?;
+            Ok(id.to_string())
+        })
+        .collect()
+}
+
+fn check_nail_id(path: &str, id: &str) -> Result<(), ProjectError> {
+    deckhold_fasten::nail(id)
+        .map(|_| ())
+        .map_err(|error| ProjectError::Invalid {
+            path: path.to_string(),
+            message: error.to_string(),
+        })
+}
+
+fn read_existing(block: &ObjectReader) -> Result<ExistingPattern, ProjectError> {
+    let nail_id = block
+        .string("nail")?
+        .ok_or_else(|| ProjectError::Missing {
+            path: "existing.nail".to_string(),
+        })?
+        .to_string();
+    check_nail_id("existing.nail", &nail_id)?;
+    let all_zones = read_pattern_spacing(block)?;
+    let mut by_zone = Vec::new();
+    if let Some(zones) = block.object("zones")? {
+        for label in [
+            "interior",
+            "edge",
+            "corner",
+            "overhang-interior",
+            "overhang-edge",
+            "overhang-corner",
+        ] {
+            if let Some(zone) = zones.object(label)? {
+                by_zone.push((label.to_string(), read_pattern_spacing(&zone)?));
+                zone.finish()?;
+            }
+        }
+        zones.finish()?;
+    }
+    block.finish()?;
+    Ok(ExistingPattern {
+        nail_id,
+        all_zones,
+        by_zone,
+    })
+}
+
+fn read_pattern_spacing(block: &ObjectReader) -> Result<PatternSpacing, ProjectError> {
+    Ok(PatternSpacing {
+        edge_spacing_mm: block.require_quantity(
+            "edge_spacing",
+            Quantity::LengthMm,
+            10.0,
+            1000.0,
+        )?,
+        intermediate_spacing_mm: block.require_quantity(
+            "intermediate_spacing",
+            Quantity::LengthMm,
+            10.0,
+            1000.0,
+        )?,
+    })
+}

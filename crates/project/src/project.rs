@@ -1,0 +1,110 @@
+//! The validated project: everything the job needs, typed and in SI units.
+
+use crate::basis::Basis;
+use deckhold_schedule::ProjectInfo;
+use deckhold_wind::WindInput;
+
+/// Which way the framing lines run in plan, when the user overrides the roof's natural direction.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum LinesAlong {
+    /// Parallel to the building length (plan x).
+    Length,
+    /// Parallel to the building width (plan y).
+    Width,
+}
+
+/// The kind of member the sheathing is nailed to.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum MemberRole {
+    Rafter,
+    Truss,
+    Joist,
+    Clt,
+}
+
+impl MemberRole {
+    pub fn as_str(self) -> &'static str {
+        match self {
+            MemberRole::Rafter => "rafter",
+            MemberRole::Truss => "truss",
+            MemberRole::Joist => "joist",
+            MemberRole::Clt => "clt",
+        }
+    }
+}
+
+/// The framing under the deck.
+#[derive(Debug, Clone, PartialEq)]
+pub struct Framing {
+    pub spacing_mm: f64,
+    pub species_id: String,
+    pub member: MemberRole,
+    /// Width of the face the nails go into (edge distance).
+    pub member_width_mm: f64,
+    /// Depth of the member along the nail (the nail must not exit it).
+    pub member_depth_mm: f64,
+    pub lines_along: Option<LinesAlong>,
+    pub toe_nailed: bool,
+}
+
+/// How the panels of one course are offset from the course below.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub enum StaggerChoice {
+    Half,
+    None,
+    OffsetMm(f64),
+}
+
+/// The roof deck (the side member the nails pass through).
+#[derive(Debug, Clone, PartialEq)]
+pub struct Deck {
+    pub panel_id: String,
+    pub thickness_mm: f64,
+    pub panel_length_mm: f64,
+    pub panel_width_mm: f64,
+    pub stagger: StaggerChoice,
+    pub wet_service: bool,
+    pub treated: bool,
+    /// Anything between deck and framing (e.g. an existing board deck in a re-roof), mm.
+    pub between_mm: f64,
+}
+
+/// Spacings of an existing or proposed pattern, for one zone or for all.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PatternSpacing {
+    pub edge_spacing_mm: f64,
+    pub intermediate_spacing_mm: f64,
+}
+
+/// The pattern a plan check judges.
+#[derive(Debug, Clone, PartialEq)]
+pub struct ExistingPattern {
+    pub nail_id: String,
+    pub all_zones: PatternSpacing,
+    /// Per-zone overrides by zone label (`corner`, `edge`, ...).
+    pub by_zone: Vec<(String, PatternSpacing)>,
+}
+
+impl ExistingPattern {
+    /// The spacings that apply in a zone.
+    pub fn for_zone(&self, label: &str) -> PatternSpacing {
+        self.by_zone
+            .iter()
+            .find(|(zone, _)| zone == label)
+            .map(|(_, spacing)| *spacing)
+            .unwrap_or(self.all_zones)
+    }
+}
+
+/// One whole project, validated.
+#[derive(Debug, Clone)]
+pub struct Project {
+    pub info: ProjectInfo,
+    pub basis: Basis,
+    pub wind: WindInput,
+    pub framing: Framing,
+    pub deck: Deck,
+    /// Candidate nail ids, in order of preference.
+    pub nails: Vec<String>,
+    pub existing: Option<ExistingPattern>,
+}

@@ -1,0 +1,325 @@
+//! A strict reader over a JSON object that remembers the key path, so every message can name the key, and
+//! that refuses keys nobody asked for (a misspelt key must not silently fall back to a default).
+
+use crate::error::ProjectError;
+use crate::units::Quantity;
+use serde_json::{Map, Value};
+use std::cell::RefCell;
+use std::collections::BTreeSet;
+
+/// One JSON object being read, with its path from the file's root.
+#[derive(Debug)]
+pub struct ObjectReader<'a> {
+    path: String,
+    map: &'a Map<String, Value>,
+    used: RefCell<BTreeSet<&'a str>>,
+}
+
+impl<'a> ObjectReader<'a> {
+    /// Wraps `value`, which must be an object, found at `path` (empty for the root).
+    pub fn new(path: &str, value: &'a Value) -> Result<Self, ProjectError> {
+        match value {
+            Value::Object(map) => Ok(Self {
+                path: path.to_string(),
+                map,
+                used: RefCell::new(BTreeSet::new()),
+            }),
+            _ => Err(ProjectError::WrongType {
+                path: display_path(path),
+                expected: "an object".to_string(),
+            }),
+        }
+    }
+
+    /// The path of `key` below this object.
+    pub fn key_path(&self, key: &str) -> String {
+        if self.path.is_empty() {
+            key.to_string()
+        } else {
+            format!("{}.{key}", self.path)
+        }
+    }
+
+    /// The raw value of `key`, marking it as read.
+    pub fn get(&self, key: &str) -> Option<&'a Value> {
+        let (stored_key, value) = self.map.get_key_value(key)?;
+        self.used.borrow_mut().insert(stored_key.as_str());
+        Some(value)
+    }
+
+    pub fn has(&self, key: &str) -> bool {
+        self.map.contains_key(key)
+    }
+
+    pub fn require(&self, key: &str) -> Result<&'a Value, ProjectError> {
+        self.get(key).ok_or_else(|| ProjectError::Missing {
+            path: self.key_path(key),
+        })
+    }
+
+    /// A nested object, if present.
+    pub fn object(&self, key: &str) -> Result<Option<ObjectReader<'a>>, ProjectError> {
+        match self.get(key) {
+            None => Ok(None),
+            Some(value) => ObjectReader::new(&self.key_path(key), value).map(Some),
+        }
+    }
+
+    pub fn require_object(&self, key: &str) -> Result<ObjectReader<'a>, ProjectError> {
+        self.object(key)?.ok_or_else(|| ProjectError::Missing {
+            path: self.key_path(key),
+        })
+    }
+
+    pub fn string(&self, key: &str) -> Result<Option<&'a str>, ProjectError> {
+        match self.get(key) {
+            None => Ok(None),
+            Some(Value::String(text)) => Ok(Some(text.as_str())),
+            Some(_) => Err(self.wrong_type(key, "a string")),
+        }
+    }
+
+    pub fn bool(&self, key: &str) -> Result<Option<bool>, ProjectError> {
+        match self.get(key) {
+            None => Ok(None),
+            Some(Value::Bool(flag)) => Ok(Some(*flag)),
+            Some(_) => Err(self.wrong_type(key, "true or false")),
+        }
+    }
+
+    /// A plain number (no unit variants), checked to lie in `min..=max`.
+    pub fn number(&self, key: &str, min: f64, max: f64) -> Result<Option<f64>, ProjectError> {
+        let Some(value) = self.get(key) else {
+            return Ok(None);
+        };
+        let number = as_finite_number(value).ok_or_else(|| self.wrong_type(key, "a number"))?;
+        check_range(&self.key_path(key), number, min, max, "")?;
+        Ok(Some(number))
+    }
+
+    /// One of a fixed set of words.
+    pub fn choice<T: Copy>(
+        &self,
+        key: &str,
+        choices: &[(&str, T)],
+    ) -> Result<Option<T>, ProjectError> {
+        let Some(word) = self.string(key)? else {
+            return Ok(None);
+        };
+        choices
+            .iter()
+            .find(|(name, _)| *name == word)
+            .map(|(_, value)| Some(*value))
+            .ok_or_else(|| ProjectError::Invalid {
+                path: self.key_path(key),
+                message: format!(
+                    "'{word}' is not one of {}",
+                    choices
+                        .iter()
+                        .map(|(name, _)| *name)
+                        .collect::<Vec<_>>()
+                        .join(", ")
+                ),
+            })
+    }
+
+    /// A quantity that may be given in SI or US units (`eave_height_m` or `eave_height_ft`), never both.
+    /// Returns the value converted to the SI unit, checked against the SI range.
+    pub fn quantity(
+        &self,
+        stem: &str,
+        quantity: Quantity,
+        min_si: f64,
+        max_si: f64,
+    ) -> Result<Option<f64>, ProjectError> {
+        let si_key = format!("{stem}_{}", quantity.si_suffix());
+        let us_key = format!("{stem}_{}", quantity.us_suffix());
+        match (self.has(&si_key), self.has(&us_key)) {
+            (true, true) => Err(ProjectError::BothUnits {
+                first: self.key_path(&si_key),
+                second: self.key_path(&us_key),
+            }),
+            (false, false) => Ok(None),
+            (true, false) => {
+                let value = self.raw_number(&si_key)?;
+                check_range(
+                    &self.key_path(&si_key),
+                    value,
+                    min_si,
+                    max_si,
+                    quantity.si_unit(),
+                )?;
+                Ok(Some(value))
+            }
+            (false, true) => {
+                let value = self.raw_number(&us_key)?;
+                let value_si = quantity.to_si(value);
+                let (min_us, max_us) = (quantity.from_si(min_si), quantity.from_si(max_si));
+                if !(min_si..=max_si).contains(&value_si) {
+                    return Err(ProjectError::OutOfRange {
+                        path: self.key_path(&us_key),
+                        value: format!("{value} {}", quantity.us_unit()),
+                        range: format!(
+                            "{}..{} {}",
+                            round_for_message(min_us),
+                            round_for_message(max_us),
+                            quantity.us_unit()
+                        ),
+                    });
+                }
+                Ok(Some(value_si))
+            }
+        }
+    }
+
+    pub fn require_quantity(
+        &self,
+        stem: &str,
+        quantity: Quantity,
+        min_si: f64,
+        max_si: f64,
+    ) -> Result<f64, ProjectError> {
+        self.quantity(stem, quantity, min_si, max_si)?
+            .ok_or_else(|| ProjectError::Missing {
+                path: self.key_path(&format!("{stem}_{}", quantity.si_suffix())),
+            })
+    }
+
+    fn raw_number(&self, key: &str) -> Result<f64, ProjectError> {
+        let value = self.require(key)?;
+        as_finite_number(value).ok_or_else(|| self.wrong_type(key, "a number"))
+    }
+
+    fn wrong_type(&self, key: &str, expected: &str) -> ProjectError {
+        ProjectError::WrongType {
+            path: self.key_path(key),
+            expected: expected.to_string(),
+        }
+    }
+
+    /// Call when done: any key that was never read is an error (misspelt or unsupported).
+    pub fn finish(&self) -> Result<(), ProjectError> {
+        let used = self.used.borrow();
+        if let Some(unknown) = self.map.keys().find(|key| !used.contains(key.as_str())) {
+            return Err(ProjectError::UnknownKey {
+                path: self.key_path(unknown),
+                allowed: if used.is_empty() {
+                    "none".to_string()
+                } else {
+                    used.iter().copied().collect::<Vec<_>>().join(", ")
+                },
+            });
+        }
+        Ok(())
+    }
+}
+
+fn display_path(path: &str) -> String {
+    if path.is_empty() {
+        "(project file)".to_string()
+    } else {
+        path.to_string()
+    }
+}
+
+/// A JSON number as a finite f64.
+pub fn as_finite_number(value: &Value) -> Option<f64> {
+    value.as_f64().filter(|number| number.is_finite())
+}
+
+/// Refuses a value outside `min..=max`, naming the key and the range in its unit.
+pub fn check_range(
+    path: &str,
+    value: f64,
+    min: f64,
+    max: f64,
+    unit: &str,
+) -> Result<(), ProjectError> {
+    if (min..=max).contains(&value) {
+        return Ok(());
+    }
+    let unit_text = if unit.is_empty() {
+        String::new()
+    } else {
+        format!(" {unit}")
+    };
+    Err(ProjectError::OutOfRange {
+        path: path.to_string(),
+        value: format!("{}{unit_text}", round_for_message(value)),
+        range: format!(
+            "{}..{}{unit_text}",
+            round_for_message(min),
+            round_for_message(max)
+        ),
+    })
+}
+
+/// Up to three decimals, no trailing zeros: messages read "outside 0..45", not "0.000000..45.000000".
+pub fn round_for_message(value: f64) -> String {
+    let text = format!("{value:.3}");
+    let text = text.trim_end_matches('0').trim_end_matches('.');
+    if text == "-0" {
+        "0".to_string()
+    } else {
+        text.to_string()
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use serde_json::json;
+
+    #[test]
+    fn unknown_key_is_named_with_its_path() {
+        let value = json!({"slope_deg": 20.0, "slop": 3});
+        let reader = ObjectReader::new("roof", &value).expect("object");
+        reader.number("slope_deg", 0.0, 60.0).expect("in range");
+        let error = reader.finish().expect_err("unknown key");
+        assert!(
+            error.to_string().starts_with("roof.slop: unknown key"),
+            "{error}"
+        );
+    }
+
+    #[test]
+    fn both_unit_variants_are_refused() {
+        let value = json!({"eave_height_m": 5.0, "eave_height_ft": 16.0});
+        let reader = ObjectReader::new("building", &value).expect("object");
+        let error = reader
+            .quantity("eave_height", Quantity::LengthM, 0.1, 100.0)
+            .expect_err("both");
+        assert_eq!(
+            error.to_string(),
+            "building.eave_height_m and building.eave_height_ft: give one unit variant of this quantity, not both"
+        );
+    }
+
+    #[test]
+    fn us_variant_converts_and_reports_its_own_range() {
+        let value = json!({"spacing_in": 24.0});
+        let reader = ObjectReader::new("framing", &value).expect("object");
+        let spacing_mm = reader
+            .quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)
+            .expect("ok")
+            .expect("present");
+        approx::assert_relative_eq!(spacing_mm, 609.6, epsilon = 1e-9);
+        let value = json!({"spacing_in": 60.0});
+        let reader = ObjectReader::new("framing", &value).expect("object");
+        let error = reader
+            .quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)
+            .expect_err("too wide");
+        assert_eq!(
+            error.to_string(),
+            "framing.spacing_in: 60 in is outside 7.874..48.031 in"
+        );
+    }
+
+    #[test]
+    fn out_of_range_message_names_key_and_range() {
+        let value = json!({"slope_deg": 75});
+        let reader = ObjectReader::new("roof", &value).expect("object");
+        let error = reader.number("slope_deg", 0.0, 45.0).expect_err("range");
+        assert_eq!(error.to_string(), "roof.slope_deg: 75 is outside 0..45");
+    }
+}

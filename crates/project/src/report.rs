@@ -1,0 +1,492 @@
+//! From a worked [`Job`] to the report data the writers print ([`Schedule`]).
+//!
+//! Only gathering and naming here: every number is one the wind, resistance or spacing step computed.
+
+use crate::job::{Job, NailOutcome};
+use crate::project::{Project, StaggerChoice};
+use crate::rules::spacing_rule_sources;
+use deckhold_fasten::layout::SupportRole;
+use deckhold_fasten::spacing::{role_name, DeckPlan};
+use deckhold_schedule::{
+    standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
+    ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
+};
+use deckhold_wind::{Footprint, SiteWind, WindAnalysis};
+
+/// The report for the job's chosen nail.
+pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
+    let outcome = job.chosen();
+    let wind = &job.wind;
+    let plan = outcome.plan.as_ref();
+    let nail = outcome.nail;
+    let (building_length_m, building_width_m) = plan_size_m(&project.wind.building.footprint);
+
+    let resistance = match &outcome.resistance {
+        Ok(resistance) => ResistanceInfo {
+            withdrawal_n: resistance.withdrawal_n,
+            pull_through_n: resistance.pull_through_n,
+            pull_through_is_advisory: resistance.pull_through_is_advisory,
+            governing_n: resistance.governing_n,
+            governing_mode: resistance.governing_mode.as_str().to_string(),
+            penetration_mm: outcome.penetration_mm,
+            factors: resistance
+                .factors
+                .iter()
+                .map(|factor| FactorRow {
+                    name: if factor.unit.is_empty() {
+                        factor.name.clone()
+                    } else {
+                        format!("{} ({})", factor.name, factor.unit)
+                    },
+                    value: factor.value,
+                    source: factor.source.clone(),
+                })
+                .collect(),
+        },
+        Err(_) => ResistanceInfo {
+            withdrawal_n: 0.0,
+            pull_through_n: None,
+            pull_through_is_advisory: false,
+            governing_n: 0.0,
+            governing_mode: "none".to_string(),
+            penetration_mm: outcome.penetration_mm,
+            factors: Vec::new(),
+        },
+    };
+
+    let zone_pressures = zone_pressures(wind, plan);
+    let zones = plan
+        .map(|plan| zone_rows(wind, plan, outcome))
+        .unwrap_or_default();
+    let lines = plan.map(|plan| line_rows(wind, plan)).unwrap_or_default();
+
+    let mut warnings = wind.warnings.clone();
+    if let Ok(resistance) = &outcome.resistance {
+        warnings.extend(resistance.warnings.iter().cloned());
+    }
+    if let Some(reason) = outcome.shortfall() {
+        warnings.push(format!("{}: {reason}", nail.id));
+    }
+
+    let mut provenance = vec![format!("Nail {}: {}", nail.id, nail.provenance())];
+    provenance.extend(
+        wind.factors
+            .iter()
+            .map(|factor| format!("{}: {}", factor.name, factor.source)),
+    );
+    provenance.extend(zone_pressures.iter().map(|row| {
+        format!(
+            "Zone {} ({}) coefficient: {}",
+            row.label, row.code_zone, row.source
+        )
+    }));
+    provenance.extend(spacing_rule_sources(project.basis));
+    provenance.dedup();
+
+    Schedule {
+        project: project.info.clone(),
+        basis: project.basis.info(),
+        plan: plan_view(wind, plan),
+        building_length_m,
+        building_width_m,
+        framing_spacing_mm: project.framing.spacing_mm,
+        framing_member: project.framing.member.as_str().to_string(),
+        deck_description: deck_description(project),
+        nail: NailInfo {
+            id: nail.id.clone(),
+            description: nail.description.clone(),
+            length_mm: nail.length_mm,
+            shank_diameter_mm: nail.shank_diameter_mm,
+            head_diameter_mm: nail.head_diameter_mm,
+            shank: nail.shank.as_str().to_string(),
+            material: nail.material.as_str().to_string(),
+            source: nail.provenance(),
+        },
+        resistance,
+        wind_factors: wind
+            .factors
+            .iter()
+            .map(|factor| FactorRow {
+                name: factor.name.clone(),
+                value: factor.value,
+                source: factor.source.clone(),
+            })
+            .collect(),
+        edge_width_m: wind.edge_width_m,
+        zone_pressures,
+        zones,
+        lines,
+        total_nail_count: plan.map_or(0, |plan| plan.total_nail_count),
+        total_nail_mass_kg: plan.map_or(0.0, |plan| plan.total_nail_mass_kg),
+        inputs: input_rows(project),
+        provenance,
+        warnings,
+        feasible: outcome.feasible,
+        alternatives: alternatives(job),
+        cautions: standard_cautions(),
+    }
+}
+
+/// Length (along x) and width (along y) of the wall line's bounding box, m.
+fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
+    match footprint {
+        Footprint::Rectangle { length_m, width_m } => (*length_m, *width_m),
+        Footprint::Polygon { vertices_m } => {
+            let xs = vertices_m.iter().map(|p| p[0]);
+            let ys = vertices_m.iter().map(|p| p[1]);
+            let span = |values: &mut dyn Iterator<Item = f64>| {
+                let (lo, hi) = values.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), v| {
+                    (lo.min(v), hi.max(v))
+                });
+                if hi >= lo {
+                    hi - lo
+                } else {
+                    0.0
+                }
+            };
+            (span(&mut xs.into_iter()), span(&mut ys.into_iter()))
+        }
+    }
+}
+
+fn deck_description(project: &Project) -> String {
+    let deck = &project.deck;
+    let panel = deckhold_fasten::panel(&deck.panel_id)
+        .map(|panel| panel.name.clone())
+        .unwrap_or_else(|_| deck.panel_id.clone());
+    let stagger = match deck.stagger {
+        StaggerChoice::Half => "half stagger".to_string(),
+        StaggerChoice::None => "no stagger".to_string(),
+        StaggerChoice::OffsetMm(offset_mm) => format!("end joints offset {offset_mm:.0} mm"),
+    };
+    format!(
+        "{panel} {:.1} mm, {:.0} x {:.0} mm panels, {stagger}",
+        deck.thickness_mm, deck.panel_width_mm, deck.panel_length_mm
+    )
+}
+
+/// The pressure on each zone at the effective area of the nail that governs it (the panel-edge role, the
+/// closer spacing); at a nail-sized 0.1 m² when the zone has no planned nail.
+fn zone_pressures(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> Vec<ZonePressureRow> {
+    wind.zones
+        .iter()
+        .enumerate()
+        .filter_map(|(zone_index, zone)| {
+            let effective_area_m2 = plan
+                .and_then(|plan| {
+                    plan.lines
+                        .iter()
+                        .flat_map(|line| &line.segments)
+                        .filter(|segment| segment.zone_index == zone_index)
+                        .map(|segment| segment.effective_area_m2)
+                        .fold(None, |least: Option<f64>, area| {
+                            Some(least.map_or(area, |l| l.min(area)))
+                        })
+                })
+                .unwrap_or(0.1);
+            let uplift = wind.uplift(zone_index, effective_area_m2).ok()?;
+            Some(ZonePressureRow {
+                label: zone.label.as_str().to_string(),
+                code_zone: zone.code_zone.clone(),
+                area_m2: zone.area_m2,
+                effective_area_m2,
+                cp_ext: uplift.cp_ext,
+                cp_int: uplift.cp_int,
+                external_kpa: uplift.external_kpa,
+                internal_kpa: uplift.internal_kpa,
+                dead_counteracting_kpa: uplift.dead_counteracting_kpa,
+                net_uplift_kpa: uplift.net_uplift_kpa,
+                source: uplift.source,
+            })
+        })
+        .collect()
+}
+
+fn zone_rows(wind: &WindAnalysis, plan: &DeckPlan, outcome: &NailOutcome) -> Vec<ZoneRow> {
+    let governing_mode = outcome
+        .resistance
+        .as_ref()
+        .map(|r| r.governing_mode.as_str())
+        .unwrap_or("none");
+    let mut rows: Vec<(u32, ZoneRow)> = plan
+        .zone_roles
+        .iter()
+        .filter_map(|role| {
+            let zone = wind.zones.get(role.zone_index)?;
+            let order = zone_order(zone.label.as_str()) * 2
+                + u32::from(role.support_role == SupportRole::Intermediate);
+            Some((
+                order,
+                ZoneRow {
+                    label: zone.label.as_str().to_string(),
+                    code_zone: zone.code_zone.clone(),
+                    support_role: role_name(role.support_role).to_string(),
+                    nail_id: outcome.nail.id.clone(),
+                    nail_description: outcome.nail.description.clone(),
+                    spacing_mm: role.spacing_mm,
+                    net_uplift_kpa: role.net_uplift_kpa,
+                    demand_n: role.demand_n,
+                    resistance_n: role.resistance_n,
+                    governing_mode: governing_mode.to_string(),
+                    utilization: role.utilization,
+                    nail_count: role.nail_count,
+                    governing_check: role.limited_by.as_str().to_string(),
+                    governing_line: role.governing_line,
+                },
+            ))
+        })
+        .collect();
+    rows.sort_by_key(|(order, _)| *order);
+    rows.into_iter().map(|(_, row)| row).collect()
+}
+
+/// Worst zones first on the crew's sheet.
+fn zone_order(label: &str) -> u32 {
+    match label {
+        "corner" => 0,
+        "edge" => 1,
+        "interior" => 2,
+        "overhang-corner" => 3,
+        "overhang-edge" => 4,
+        _ => 5,
+    }
+}
+
+fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
+    plan.lines
+        .iter()
+        .map(|line| LineRow {
+            number: line.number,
+            position_m: line.position_m,
+            length_m: line.length_m,
+            segments: line
+                .segments
+                .iter()
+                .map(|segment| SegmentRow {
+                    from_m: segment.from_m,
+                    to_m: segment.to_m,
+                    zone_label: wind
+                        .zones
+                        .get(segment.zone_index)
+                        .map(|zone| zone.label.as_str().to_string())
+                        .unwrap_or_default(),
+                    support_role: role_name(segment.support_role).to_string(),
+                    spacing_mm: segment.spacing_mm,
+                    utilization: segment.utilization,
+                })
+                .collect(),
+        })
+        .collect()
+}
+
+fn plan_view(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> PlanView {
+    let mut view = PlanView {
+        building_outline_m: wind.building_outline_m.clone(),
+        roof_outline_m: wind.roof_outline_m.clone(),
+        ridge_lines_m: wind.ridge_lines_m.clone(),
+        zones: wind
+            .zones
+            .iter()
+            .map(|zone| PlanZone {
+                label: zone.label.as_str().to_string(),
+                code_zone: zone.code_zone.clone(),
+                polygons_m: zone.polygons_m.clone(),
+            })
+            .collect(),
+        ..PlanView::default()
+    };
+    let Some(plan) = plan else {
+        return view;
+    };
+    for line in &plan.lines {
+        view.rafter_lines.push(PlanLine {
+            number: line.number,
+            start_m: line.plan_start_m,
+            end_m: line.plan_end_m,
+        });
+        // Panel end joints: where two panels meet on the line (two rows of nails).
+        let plan_at = |along_m: f64| -> [f64; 2] {
+            let fraction = if line.length_m > 0.0 {
+                along_m / line.length_m
+            } else {
+                0.0
+            };
+            [
+                line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
+                line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
+            ]
+        };
+        for segment in &line.segments {
+            if segment.support_role == SupportRole::PanelEdge && segment.rows == 2 {
+                view.panel_joints_m
+                    .push([plan_at(segment.from_m), plan_at(segment.to_m)]);
+            }
+        }
+    }
+    // Course lines (long panel edges) across each plane, drawn between the plane's outer lines.
+    for course in &plan.courses {
+        if course.index == 0 {
+            continue;
+        }
+        let plane_lines: Vec<_> = plan
+            .lines
+            .iter()
+            .filter(|line| line.plane_index == course.plane_index)
+            .collect();
+        let (Some(first), Some(last)) = (plane_lines.first(), plane_lines.last()) else {
+            continue;
+        };
+        let point_on = |line: &deckhold_fasten::spacing::RafterLine| -> Option<[f64; 2]> {
+            if course.from_m > line.length_m || line.length_m <= 0.0 {
+                return None;
+            }
+            let fraction = course.from_m / line.length_m;
+            Some([
+                line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
+                line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
+            ])
+        };
+        if let (Some(a), Some(b)) = (point_on(first), point_on(last)) {
+            view.course_lines_m.push([a, b]);
+        }
+    }
+    view
+}
+
+fn input_rows(project: &Project) -> Vec<InputRow> {
+    let row = |key: &str, value: String| InputRow {
+        key: key.to_string(),
+        value,
+    };
+    let wind = &project.wind;
+    let mut rows = vec![row("basis", project.basis.id().to_string())];
+    match &wind.building.footprint {
+        Footprint::Rectangle { length_m, width_m } => {
+            rows.push(row(
+                "building.footprint.rectangle.length_m",
+                format!("{length_m:.2} m"),
+            ));
+            rows.push(row(
+                "building.footprint.rectangle.width_m",
+                format!("{width_m:.2} m"),
+            ));
+        }
+        Footprint::Polygon { vertices_m } => {
+            rows.push(row(
+                "building.footprint.polygon_m",
+                format!("{} corners", vertices_m.len()),
+            ));
+        }
+    }
+    rows.push(row(
+        "building.eave_height_m",
+        format!("{:.2} m", wind.building.eave_height_m),
+    ));
+    rows.push(row(
+        "roof.shape",
+        format!("{:?}", wind.roof.shape).to_lowercase(),
+    ));
+    rows.push(row(
+        "roof.slope_deg",
+        format!("{:.1} deg", wind.roof.slope_deg),
+    ));
+    rows.push(row(
+        "roof.ridge_along",
+        format!("{:?}", wind.roof.ridge_along).to_lowercase(),
+    ));
+    rows.push(row(
+        "roof.eave_overhang_mm",
+        format!("{:.0} mm", wind.roof.eave_overhang_mm),
+    ));
+    rows.push(row(
+        "roof.rake_overhang_mm",
+        format!("{:.0} mm", wind.roof.rake_overhang_mm),
+    ));
+    rows.push(row(
+        "roof.dead_load_kpa",
+        format!("{:.2} kPa", wind.roof.dead_load_kpa),
+    ));
+    match &wind.site {
+        SiteWind::Nbc2020(site) => {
+            rows.push(row("wind.q50_kpa", format!("{:.2} kPa", site.q50_kpa)));
+            rows.push(row(
+                "wind.terrain",
+                format!("{:?}", site.terrain).to_lowercase(),
+            ));
+            rows.push(row(
+                "wind.topographic_factor",
+                format!("{:.2}", site.topographic_factor),
+            ));
+            rows.push(row(
+                "wind.importance",
+                format!("{:?}", site.importance).to_lowercase(),
+            ));
+            rows.push(row(
+                "wind.internal_category",
+                site.internal_category.to_string(),
+            ));
+        }
+        SiteWind::Asce722(site) => {
+            rows.push(row("wind.speed_mph", format!("{:.0} mph", site.speed_mph)));
+            rows.push(row("wind.exposure", format!("{:?}", site.exposure)));
+            rows.push(row("wind.kzt", format!("{:.2}", site.kzt)));
+            rows.push(row(
+                "wind.ground_elevation_ft",
+                format!("{:.0} ft", site.ground_elevation_ft),
+            ));
+            rows.push(row(
+                "wind.enclosure",
+                format!("{:?}", site.enclosure).to_lowercase(),
+            ));
+        }
+    }
+    for curve in &wind.overrides {
+        rows.push(row(
+            "coefficient_overrides",
+            format!("zone {} from {}", curve.code_zone, curve.source),
+        ));
+    }
+    let framing = &project.framing;
+    rows.push(row("framing.member", framing.member.as_str().to_string()));
+    rows.push(row(
+        "framing.spacing_mm",
+        format!("{:.0} mm o.c.", framing.spacing_mm),
+    ));
+    rows.push(row("framing.species", framing.species_id.clone()));
+    rows.push(row(
+        "framing.member_width_mm x member_depth_mm",
+        format!(
+            "{:.0} x {:.0} mm",
+            framing.member_width_mm, framing.member_depth_mm
+        ),
+    ));
+    rows.push(row("framing.toe_nailed", framing.toe_nailed.to_string()));
+    let deck = &project.deck;
+    rows.push(row("deck.panel", deck.panel_id.clone()));
+    rows.push(row(
+        "deck.thickness_mm",
+        format!("{:.1} mm", deck.thickness_mm),
+    ));
+    rows.push(row("deck.between_mm", format!("{:.1} mm", deck.between_mm)));
+    rows.push(row("deck.wet_service", deck.wet_service.to_string()));
+    rows.push(row("deck.treated", deck.treated.to_string()));
+    rows.push(row("nails", project.nails.join(", ")));
+    rows
+}
+
+/// When the chosen nail does not work everywhere: the candidates that do, or what to change.
+fn alternatives(job: &Job) -> Vec<String> {
+    if job.feasible() {
+        return Vec::new();
+    }
+    let mut lines: Vec<String> = job
+        .candidates
+        .iter()
+        .filter(|candidate| candidate.feasible)
+        .map(|candidate| format!("{} works in every zone", candidate.nail.id))
+        .collect();
+    if lines.is_empty() {
+        lines.push("No candidate nail works in every zone. Consider a ring-shank or screw-shank nail, a longer nail, closer framing, or an engineered fastener.".to_string());
+    }
+    lines
+}

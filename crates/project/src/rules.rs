@@ -1,0 +1,67 @@
+//! The spacing rules each basis imposes on roof sheathing nails: practical increments, prescriptive maxima
+//! and the splitting minimum. Data with sources, in one place.
+
+use crate::basis::Basis;
+use crate::units::MM_PER_IN;
+use deckhold_fasten::spacing::SpacingRules;
+
+/// Practical spacings for the SI basis, mm, widest first (common practice, no source).
+pub const SI_INCREMENTS_MM: [f64; 8] = [300.0, 250.0, 200.0, 150.0, 125.0, 100.0, 75.0, 50.0];
+/// Practical spacings for the US bases, in, widest first (common practice, no source).
+pub const US_INCREMENTS_IN: [f64; 5] = [12.0, 6.0, 4.0, 3.0, 2.0];
+
+/// NBC 2020 Part 9, Table 9.23.3.5.-A: roof sheathing nails at 150 mm along edges and 300 mm along
+/// intermediate supports (from memory, NBC 2015/2020).
+pub const NBC_MAX_EDGE_MM: f64 = 150.0;
+pub const NBC_MAX_INTERMEDIATE_MM: f64 = 300.0;
+/// IRC 2021 Table R602.3(1), roof sheathing: 6 in at edges, 12 in in the field (from memory, IRC 2018/2021).
+pub const US_MAX_EDGE_IN: f64 = 6.0;
+pub const US_MAX_INTERMEDIATE_IN: f64 = 12.0;
+
+/// Splitting minimum spacing along the grain for the Canadian basis, in shank diameters:
+/// CSA O86 12.9.2 spacing parallel to grain, 20 d_F (from memory, O86:19). Applied along the member.
+pub const O86_MIN_SPACING_DIAMETERS: f64 = 20.0;
+/// US: closer than 3 in o.c. needs 3x nominal framing at panel edges (AWC SDPWS 2021 4.2.7.1,
+/// from memory); deckhold assumes 2x framing, so 3 in is the closest spacing it gives.
+pub const US_MIN_SPACING_IN: f64 = 3.0;
+
+/// The rules for one basis and a nail of `shank_diameter_mm`.
+pub fn spacing_rules(basis: Basis, shank_diameter_mm: f64) -> SpacingRules {
+    if basis.is_us() {
+        SpacingRules {
+            increments_mm: US_INCREMENTS_IN
+                .iter()
+                .map(|inch| inch * MM_PER_IN)
+                .collect(),
+            max_panel_edge_mm: US_MAX_EDGE_IN * MM_PER_IN,
+            max_intermediate_mm: US_MAX_INTERMEDIATE_IN * MM_PER_IN,
+            min_mm: US_MIN_SPACING_IN * MM_PER_IN,
+            min_effective_area_m2: 0.0,
+        }
+    } else {
+        SpacingRules {
+            increments_mm: SI_INCREMENTS_MM.to_vec(),
+            max_panel_edge_mm: NBC_MAX_EDGE_MM,
+            max_intermediate_mm: NBC_MAX_INTERMEDIATE_MM,
+            min_mm: O86_MIN_SPACING_DIAMETERS * shank_diameter_mm,
+            min_effective_area_m2: 0.0,
+        }
+    }
+}
+
+/// Text for the report: where the limits come from.
+pub fn spacing_rule_sources(basis: Basis) -> Vec<String> {
+    if basis.is_us() {
+        vec![
+            "Maximum spacing 6 in at panel edges, 12 in at intermediate supports: IRC 2021 Table R602.3(1) (from memory)".to_string(),
+            "Closest spacing 3 in o.c. for 2x framing: AWC SDPWS 2021 4.2.7.1 (from memory)".to_string(),
+            "Spacing increments 12, 6, 4, 3, 2 in: common practice, no source".to_string(),
+        ]
+    } else {
+        vec![
+            "Maximum spacing 150 mm at panel edges, 300 mm at intermediate supports: NBC 2020 Table 9.23.3.5.-A (from memory)".to_string(),
+            "Splitting minimum 20 d_F along the grain: CSA O86:19 12.9.2 (from memory)".to_string(),
+            "Spacing increments 300, 250, 200, 150, 125, 100, 75, 50 mm: common practice, no source".to_string(),
+        ]
+    }
+}

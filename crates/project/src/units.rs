@@ -1,0 +1,78 @@
+//! Unit variants of project-file quantities. SI inside; US keys are converted here, at the edge.
+
+/// Millimetres per inch (exact by definition).
+pub const MM_PER_IN: f64 = 25.4;
+/// Metres per foot (exact by definition).
+pub const M_PER_FT: f64 = 0.3048;
+/// Kilopascals per pound-force per square foot.
+pub const KPA_PER_PSF: f64 = 0.047_880_259;
+/// Newtons per pound-force.
+pub const N_PER_LBF: f64 = 4.448_221_615;
+
+/// A kind of quantity with its SI and US key suffixes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum Quantity {
+    /// `_m` or `_ft`.
+    LengthM,
+    /// `_mm` or `_in`.
+    LengthMm,
+    /// `_kpa` or `_psf`.
+    PressureKpa,
+    /// `_m2` or `_ft2`.
+    AreaM2,
+}
+
+impl Quantity {
+    pub fn si_suffix(self) -> &'static str {
+        match self {
+            Quantity::LengthM => "m",
+            Quantity::LengthMm => "mm",
+            Quantity::PressureKpa => "kpa",
+            Quantity::AreaM2 => "m2",
+        }
+    }
+
+    pub fn us_suffix(self) -> &'static str {
+        match self {
+            Quantity::LengthM => "ft",
+            Quantity::LengthMm => "in",
+            Quantity::PressureKpa => "psf",
+            Quantity::AreaM2 => "ft2",
+        }
+    }
+
+    pub fn si_unit(self) -> &'static str {
+        match self {
+            Quantity::LengthM => "m",
+            Quantity::LengthMm => "mm",
+            Quantity::PressureKpa => "kPa",
+            Quantity::AreaM2 => "m²",
+        }
+    }
+
+    pub fn us_unit(self) -> &'static str {
+        match self {
+            Quantity::LengthM => "ft",
+            Quantity::LengthMm => "in",
+            Quantity::PressureKpa => "psf",
+            Quantity::AreaM2 => "ft²",
+        }
+    }
+
+    fn si_per_us(self) -> f64 {
+        match self {
+            Quantity::LengthM => M_PER_FT,
+            Quantity::LengthMm => MM_PER_IN,
+            Quantity::PressureKpa => KPA_PER_PSF,
+            Quantity::AreaM2 => M_PER_FT * M_PER_FT,
+        }
+    }
+
+    pub fn to_si(self, us_value: f64) -> f64 {
+        us_value * self.si_per_us()
+    }
+
+    pub fn from_si(self, si_value: f64) -> f64 {
+        si_value / self.si_per_us()
+    }
+}

@@ -1,0 +1,101 @@
+//! Every project under `fixtures/` runs (or is refused) as it should, through the library pipeline.
+
+use deckhold_project::{check_pattern, parse_project, run_job, schedule_for};
+use deckhold_tests::fixture_text;
+
+#[test]
+fn every_good_fixture_runs_to_a_schedule_with_cautions() {
+    for name in [
+        "demo-ca-gable.json",
+        "us-hip.json",
+        "ca-l-shaped-flat.json",
+        "ca-existing-pattern.json",
+        "ca-no-feasible-nail.json",
+    ] {
+        let project =
+            parse_project(&fixture_text(name)).unwrap_or_else(|error| panic!("{name}: {error}"));
+        let job = run_job(&project).unwrap_or_else(|error| panic!("{name}: {error}"));
+        let schedule = schedule_for(&project, &job);
+        assert!(!schedule.zones.is_empty(), "{name}");
+        assert!(
+            schedule
+                .cautions
+                .iter()
+                .any(|c| c.contains("qualified person")),
+            "{name}"
+        );
+        assert!(schedule.total_nail_count > 0, "{name}");
+        for zone in &schedule.zones {
+            if let Some(spacing_mm) = zone.spacing_mm {
+                assert!(
+                    zone.utilization <= 1.0 + 1e-9,
+                    "{name}: {} {}",
+                    zone.label,
+                    zone.support_role
+                );
+                assert!(spacing_mm > 0.0);
+            }
+        }
+    }
+}
+
+#[test]
+fn the_infeasible_fixture_names_what_would_work() {
+    let project = parse_project(&fixture_text("ca-no-feasible-nail.json")).expect("parses");
+    let job = run_job(&project).expect("runs");
+    let schedule = schedule_for(&project, &job);
+    assert!(!schedule.feasible);
+    assert!(!schedule.alternatives.is_empty());
+    assert!(schedule.zones.iter().any(|zone| zone.spacing_mm.is_none()));
+}
+
+#[test]
+fn the_existing_pattern_is_checked_zone_by_zone() {
+    let project = parse_project(&fixture_text("ca-existing-pattern.json")).expect("parses");
+    let pattern = project
+        .existing
+        .clone()
+        .expect("the fixture has an existing block");
+    let wind = deckhold_wind::analyze(&project.wind).expect("wind");
+    let checked = check_pattern(&project, &wind, &pattern).expect("checks");
+    assert!(!checked.rows.is_empty());
+    for row in &checked.rows {
+        // A row passes exactly when it is strong enough and inside the prescriptive limits.
+        assert_eq!(row.passes, row.notes.is_empty());
+        if row.utilization > 1.0 {
+            assert!(!row.passes);
+        }
+    }
+}
+
+#[test]
+fn every_broken_fixture_is_refused_naming_its_key() {
+    let cases = [
+        ("broken/malformed.json", "JSON"),
+        ("broken/unknown-key.json", "roof.slop"),
+        ("broken/missing-key.json", "wind.q50_kpa"),
+        ("broken/slope-out-of-range.json", "roof.slope_deg"),
+        ("broken/both-units.json", "eave_height"),
+        ("broken/unknown-nail.json", "12d-unobtainium"),
+        ("broken/unknown-species.json", "balsa"),
+        ("broken/negative-spacing.json", "framing.spacing"),
+        ("broken/unknown-basis.json", "basis"),
+    ];
+    for (name, words) in cases {
+        let error = parse_project(&fixture_text(name))
+            .expect_err(name)
+            .to_string();
+        assert!(error.contains(words), "{name}: {error}");
+    }
+    // Refused by the wind method, not the parser: the project is well formed but outside the method.
+    for (name, words) in [
+        ("broken/too-tall.json", "eave_height"),
+        ("broken/not-rectilinear.json", "polygon"),
+    ] {
+        let error = match parse_project(&fixture_text(name)) {
+            Err(error) => error.to_string(),
+            Ok(project) => run_job(&project).expect_err(name).to_string(),
+        };
+        assert!(error.contains(words), "{name}: {error}");
+    }
+}
