@@ -169,7 +169,7 @@ fn check_of_the_existing_pattern_reports_each_zone() {
     let code = output.status.code();
     assert!(code == Some(0) || code == Some(1), "{code:?}");
     let value = json_of(&output.stdout);
-    let passes = value["passes"].as_bool().expect("passes");
+    let passes = value["pass"].as_bool().expect("pass");
     assert_eq!(passes, code == Some(0));
     assert!(value["zones"]
         .as_array()

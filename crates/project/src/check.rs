@@ -21,6 +21,8 @@ pub struct CheckRow {
     pub given_spacing_mm: f64,
     /// The widest practical spacing the zone needs with this nail (None: none works).
     pub required_spacing_mm: Option<f64>,
+    /// Load on the worst-loaded nail at the given spacing, N.
+    pub demand_n: f64,
     pub utilization: f64,
     pub governing_line: u32,
     pub passes: bool,
@@ -146,6 +148,7 @@ pub fn check_pattern(
             support_role: role_name(role.support_role),
             given_spacing_mm,
             required_spacing_mm,
+            demand_n: role.demand_n,
             utilization: role.utilization,
             governing_line: role.governing_line,
             passes: notes.is_empty(),

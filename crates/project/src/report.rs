@@ -91,7 +91,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         building_width_m,
         framing_spacing_mm: project.framing.spacing_mm,
         framing_member: project.framing.member.as_str().to_string(),
-        deck_description: deck_description(project),
+        deck_description: deck_text(project),
         nail: NailInfo {
             id: nail.id.clone(),
             description: nail.description.clone(),
@@ -149,7 +149,8 @@ fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
     }
 }
 
-fn deck_description(project: &Project) -> String {
+/// The deck in one line, e.g. "Oriented strand board 11.1 mm, 1220 x 2440 mm panels, half stagger".
+pub fn deck_text(project: &Project) -> String {
     let deck = &project.deck;
     let panel = deckhold_fasten::panel(&deck.panel_id)
         .map(|panel| panel.name.clone())

@@ -65,3 +65,82 @@ pub fn spacing_rule_sources(basis: Basis) -> Vec<String> {
         ]
     }
 }
+
+/// The shortest nail the prescriptive rules allow for roof sheathing of `thickness_mm`, with its source.
+///
+/// Canada: NBC 2020 Table 9.23.3.5.-A, roof sheathing nails: 45 mm for panels up to 10 mm, 51 mm up to
+/// 20 mm, 57 mm up to 25 mm (from memory, NBC 2015/2020). US: IRC 2021 Table R602.3(1): 6d (2 in) for
+/// 3/8 to 1/2 in panels, 8d (2-1/2 in) for 19/32 to 1-1/4 in (from memory, IRC 2018/2021). Thicker decks
+/// have no prescriptive nail: None.
+pub fn prescriptive_minimum_length(basis: Basis, thickness_mm: f64) -> Option<(f64, &'static str)> {
+    if basis.is_us() {
+        let half_inch_mm = 0.5 * MM_PER_IN + 0.5;
+        if thickness_mm <= half_inch_mm {
+            Some((
+                2.0 * MM_PER_IN,
+                "IRC 2021 Table R602.3(1), 6d for 3/8 to 1/2 in (from memory)",
+            ))
+        } else if thickness_mm <= 1.25 * MM_PER_IN + 0.5 {
+            Some((
+                2.5 * MM_PER_IN,
+                "IRC 2021 Table R602.3(1), 8d for 19/32 to 1-1/4 in (from memory)",
+            ))
+        } else {
+            None
+        }
+    } else if thickness_mm <= 10.0 {
+        Some((
+            45.0,
+            "NBC 2020 Table 9.23.3.5.-A, 45 mm for panels up to 10 mm (from memory)",
+        ))
+    } else if thickness_mm <= 20.0 {
+        Some((
+            51.0,
+            "NBC 2020 Table 9.23.3.5.-A, 51 mm for panels 10 to 20 mm (from memory)",
+        ))
+    } else if thickness_mm <= 25.0 {
+        Some((
+            57.0,
+            "NBC 2020 Table 9.23.3.5.-A, 57 mm for panels 20 to 25 mm (from memory)",
+        ))
+    } else {
+        None
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn prescriptive_minimum_nail_lengths_follow_the_tables() {
+        // NBC 2020 Table 9.23.3.5.-A (from memory, NBC 2015/2020).
+        assert_eq!(
+            prescriptive_minimum_length(Basis::Nbc2020O86, 9.5).map(|r| r.0),
+            Some(45.0)
+        );
+        assert_eq!(
+            prescriptive_minimum_length(Basis::Nbc2020O86, 11.1).map(|r| r.0),
+            Some(51.0)
+        );
+        assert_eq!(prescriptive_minimum_length(Basis::Nbc2020O86, 30.0), None);
+        // IRC 2021 Table R602.3(1) (from memory): 15/32 in -> 6d, 19/32 in -> 8d.
+        assert_eq!(
+            prescriptive_minimum_length(Basis::Asce722Nds2018Asd, 11.9).map(|r| r.0),
+            Some(50.8)
+        );
+        assert_eq!(
+            prescriptive_minimum_length(Basis::Asce722Nds2018Asd, 15.1).map(|r| r.0),
+            Some(63.5)
+        );
+    }
+
+    #[test]
+    fn the_splitting_minimum_scales_with_the_shank() {
+        // CSA O86:19 12.9.2 (from memory): 20 d_F along the grain.
+        let rules = spacing_rules(Basis::Nbc2020O86, 3.25);
+        assert!((rules.min_mm - 65.0).abs() < 1e-9);
+        assert_eq!(rules.max_panel_edge_mm, 150.0);
+        assert_eq!(rules.max_intermediate_mm, 300.0);
+    }
+}

@@ -32,7 +32,9 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
                     "required_spacing_mm": row.required_spacing_mm,
                     "utilization": row.utilization,
                     "governing_line": row.governing_line,
-                    "passes": row.passes,
+                    "demand_n": row.demand_n,
+                    "resistance_n": checked.resistance.governing_n,
+                    "pass": row.passes,
                     "notes": row.notes,
                     "added_nails_per_gap": row.added_nails_per_gap,
                 })
@@ -43,7 +45,7 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
             "nail": checked.nail.id,
             "resistance_n": checked.resistance.governing_n,
             "governing_mode": checked.resistance.governing_mode.as_str(),
-            "passes": passes,
+            "pass": passes,
             "zones": rows,
             "cautions": deckhold_schedule::standard_cautions(),
         });

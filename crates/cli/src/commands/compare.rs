@@ -1,4 +1,5 @@
-//! `deckhold compare`: several nails on one deck: capacity per nail, spacing per zone, nail count, mass.
+//! `deckhold compare`: several nails on one deck: capacity per nail, spacing per zone, nail count, mass,
+//! and whether the nail meets the prescriptive minimum length. Sorted by total nail count.
 
 use anyhow::{Context, Result};
 use serde_json::json;
@@ -8,32 +9,75 @@ use crate::args::CompareArgs;
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_fasten::layout::SupportRole;
-use deckhold_project::run_job_with_nails;
+use deckhold_fasten::CatalogBasis;
+use deckhold_project::rules::prescriptive_minimum_length;
+use deckhold_project::{run_job_with_nails, NailOutcome, Project};
+
+const LB_PER_KG: f64 = 2.204_622_6;
+
+/// Every catalog nail of the project's basis that reaches the minimum penetration through the deck.
+fn fitting_nails(project: &Project) -> Vec<String> {
+    let us = project.basis.is_us();
+    deckhold_fasten::nails()
+        .iter()
+        .filter(|nail| match nail.basis {
+            CatalogBasis::Both => true,
+            CatalogBasis::Us => us,
+            CatalogBasis::Ca => !us,
+        })
+        .filter(|nail| {
+            let penetration_mm = deckhold_project::job::penetration_for(project, nail);
+            let minimum =
+                deckhold_fasten::minimum_penetration(project.basis.fastener_method(), nail);
+            penetration_mm >= minimum.min_mm
+        })
+        .map(|nail| nail.id.clone())
+        .collect()
+}
+
+/// Whether the nail is at least as long as the prescriptive table asks for this deck (None: no table row).
+fn meets_prescriptive(project: &Project, candidate: &NailOutcome) -> Option<bool> {
+    prescriptive_minimum_length(project.basis, project.deck.thickness_mm)
+        .map(|(length_mm, _)| candidate.nail.length_mm + 0.05 >= length_mm)
+}
 
 pub fn run(args: &CompareArgs) -> Result<Outcome> {
     let project = load_project(args.project.as_deref())?;
     let nail_ids: Vec<String> = if args.nails.is_empty() {
-        project.nails.clone()
+        fitting_nails(&project)
     } else {
         args.nails.iter().map(|id| id.trim().to_string()).collect()
     };
     let job = run_job_with_nails(&project, &nail_ids).context("the nails could not be compared")?;
     let us = project.basis.is_us();
-    // The zones in the order the wind analysis gives them, each with both support roles.
     let zone_names: Vec<String> = job
         .wind
         .zones
         .iter()
         .map(|zone| zone.label.as_str().to_string())
         .collect();
+    let mut order: Vec<&NailOutcome> = job.candidates.iter().collect();
+    // Working nails first, fewest nails first; refused nails last.
+    order.sort_by_key(|candidate| {
+        (
+            !candidate.feasible,
+            candidate
+                .plan
+                .as_ref()
+                .map_or(u64::MAX, |plan| plan.total_nail_count),
+        )
+    });
+    let rule = prescriptive_minimum_length(project.basis, project.deck.thickness_mm);
 
     if args.json {
-        let nails: Vec<serde_json::Value> = job
-            .candidates
+        let nails: Vec<serde_json::Value> = order
             .iter()
             .map(|candidate| {
                 let (resistance_n, mode) = match &candidate.resistance {
-                    Ok(resistance) => (Some(resistance.governing_n), Some(resistance.governing_mode.as_str())),
+                    Ok(resistance) => (
+                        Some(resistance.governing_n),
+                        Some(resistance.governing_mode.as_str()),
+                    ),
                     Err(_) => (None, None),
                 };
                 let zones: Vec<serde_json::Value> = candidate
@@ -50,6 +94,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                         })
                     })
                     .collect();
+                let mass_kg = candidate.plan.as_ref().map(|plan| plan.total_nail_mass_kg);
                 json!({
                     "nail": candidate.nail.id,
                     "description": candidate.nail.description,
@@ -58,14 +103,17 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                     "governing_mode": mode,
                     "refused": candidate.resistance.as_ref().err(),
                     "feasible": candidate.feasible,
+                    "meets_prescriptive_minimum": meets_prescriptive(&project, candidate),
                     "zones": zones,
                     "total_nail_count": candidate.plan.as_ref().map(|plan| plan.total_nail_count),
-                    "total_nail_mass_kg": candidate.plan.as_ref().map(|plan| plan.total_nail_mass_kg),
+                    "total_nail_mass_kg": mass_kg,
+                    "total_nail_mass_lb": mass_kg.map(|kg| kg * LB_PER_KG),
                 })
             })
             .collect();
         let value = json!({
             "basis": project.basis.id(),
+            "prescriptive_minimum": rule.map(|(length_mm, source)| json!({ "length_mm": length_mm, "source": source })),
             "nails": nails,
             "cautions": deckhold_schedule::standard_cautions(),
         });
@@ -75,7 +123,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
 
     let mut header = vec![
         "nail".to_string(),
-        "N per nail".to_string(),
+        "per nail".to_string(),
         "mode".to_string(),
     ];
     let mut keys = Vec::new();
@@ -95,14 +143,26 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
             }
         }
     }
-    header.extend(["nails".to_string(), "kg".to_string(), "works".to_string()]);
+    header.extend([
+        "nails".to_string(),
+        "mass".to_string(),
+        "prescr.".to_string(),
+        "works".to_string(),
+    ]);
     let header_refs: Vec<&str> = header.iter().map(String::as_str).collect();
     let mut table = Table::new(&header_refs);
-    for candidate in &job.candidates {
+    for candidate in &order {
         let mut cells = vec![candidate.nail.id.clone()];
         match &candidate.resistance {
+            Ok(resistance) if us => {
+                cells.push(format!(
+                    "{:.0} lbf",
+                    resistance.governing_n / deckhold_project::units::N_PER_LBF
+                ));
+                cells.push(resistance.governing_mode.as_str().to_string());
+            }
             Ok(resistance) => {
-                cells.push(format!("{:.0}", resistance.governing_n));
+                cells.push(format!("{:.0} N", resistance.governing_n));
                 cells.push(resistance.governing_mode.as_str().to_string());
             }
             Err(reason) => {
@@ -117,26 +177,39 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                 .and_then(|plan| plan.zone_role(*zone_index, *role))
                 .map(|result| spacing_text(result.spacing_mm, us))
                 .unwrap_or_else(|| "-".to_string());
-            cells.push(spacing);
+            cells.push(spacing.replace(" o.c.", ""));
         }
         match &candidate.plan {
             Some(plan) => {
                 cells.push(plan.total_nail_count.to_string());
-                cells.push(format!("{:.1}", plan.total_nail_mass_kg));
+                cells.push(if us {
+                    format!("{:.1} lb", plan.total_nail_mass_kg * LB_PER_KG)
+                } else {
+                    format!("{:.1} kg", plan.total_nail_mass_kg)
+                });
             }
             None => {
                 cells.push("-".to_string());
                 cells.push("-".to_string());
             }
         }
+        cells.push(match meets_prescriptive(&project, candidate) {
+            Some(true) => "yes".to_string(),
+            Some(false) => "too short".to_string(),
+            None => "-".to_string(),
+        });
         cells.push(if candidate.feasible { "yes" } else { "no" }.to_string());
         table.row(cells);
     }
     println!(
-        "{}: nails compared on one deck\n",
-        project.basis.info().title
+        "{}: nails compared on one deck ({})\n",
+        project.basis.info().title,
+        deckhold_project::report::deck_text(&project)
     );
     print!("{}", table.render());
+    if let Some((length_mm, source)) = rule {
+        println!("\nprescr.: at least {length_mm:.0} mm long per {source}.");
+    }
     print!("{}", caution_lines());
     Ok(Outcome::Works)
 }
