@@ -10,6 +10,14 @@ use deckhold_wind::SiteWind;
 use proptest::prelude::*;
 use serde_json::Value;
 
+/// The case count: `PROPTEST_CASES` when set (for long fuzz runs, see docs/fuzzing.md), else `default`.
+fn cases(default: u32) -> u32 {
+    std::env::var("PROPTEST_CASES")
+        .ok()
+        .and_then(|text| text.parse().ok())
+        .unwrap_or(default)
+}
+
 fn demo() -> deckhold_project::Project {
     parse_project(DEMO_PROJECT_JSON).expect("the demo parses")
 }
@@ -71,7 +79,7 @@ fn any_json() -> impl Strategy<Value = Value> {
 }
 
 proptest! {
-    #![proptest_config(ProptestConfig::with_cases(64))]
+    #![proptest_config(ProptestConfig::with_cases(cases(64)))]
 
     #[test]
     fn the_parser_never_panics_on_any_text(text in "\\PC{0,200}") {
@@ -98,7 +106,7 @@ proptest! {
 }
 
 proptest! {
-    #![proptest_config(ProptestConfig::with_cases(12))]
+    #![proptest_config(ProptestConfig::with_cases(cases(12)))]
 
     #[test]
     fn more_wind_never_allows_a_wider_spacing(factor in 1.0f64..2.5) {

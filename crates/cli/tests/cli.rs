@@ -122,6 +122,20 @@ fn every_broken_project_is_refused_with_exit_2_naming_the_problem() {
 }
 
 #[test]
+fn a_refused_project_writes_no_file() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("out");
+    deckhold()
+        .arg("run")
+        .arg(fixture("broken/unknown-key.json"))
+        .arg("--out")
+        .arg(&out)
+        .assert()
+        .code(2);
+    assert!(!out.exists(), "no output folder for a refused project");
+}
+
+#[test]
 fn a_missing_project_file_is_exit_2() {
     deckhold()
         .args(["run", "no-such-project.json"])

@@ -163,6 +163,15 @@ pub fn plan_length_label(m: f64, imperial: bool) -> String {
     }
 }
 
+/// The plural of a framing member's name: "trusses", "rafters", "joists".
+pub fn plural(word: &str) -> String {
+    if word.ends_with('s') {
+        format!("{word}es")
+    } else {
+        format!("{word}s")
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -228,14 +237,5 @@ mod tests {
         assert_eq!(spacing_label(None, true), "none");
         assert_eq!(force_label(444.8222, true), "100.0 lbf (445 N)");
         assert_eq!(pressure_label(1.0, false), "1.000 kPa");
-    }
-}
-
-/// The plural of a framing member's name: "trusses", "rafters", "joists".
-pub fn plural(word: &str) -> String {
-    if word.ends_with('s') {
-        format!("{word}es")
-    } else {
-        format!("{word}s")
     }
 }

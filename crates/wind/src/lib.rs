@@ -1,1 +1,27 @@
-//! placeholder
+//! Roof components-and-cladding wind zones and uplift pressures, NBC 2020 Part 4 (4.1.7.6, low
+//! buildings) and ASCE 7-22 Chapter 30 Part 1. Pure functions: typed inputs, typed results, SI inside.
+//!
+//! [`analyze`] lays out the zones in plan and fixes the velocity pressure; [`WindAnalysis::uplift`]
+//! evaluates the factored net uplift of a zone at an effective wind area.
+
+mod analysis;
+mod asce;
+mod basis;
+mod coefficients;
+mod error;
+mod geometry;
+mod nbc;
+mod outline;
+mod types;
+mod uplift;
+mod zones;
+
+pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone, ZoneLabel};
+pub use basis::{Factor, PressureBasis};
+pub use coefficients::ZoneCurve;
+pub use error::WindError;
+pub use types::{
+    AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
+    NbcWind, RidgeAlong, Roof, RoofShape, SiteWind, StrengthMethod, Terrain, WindInput,
+};
+pub use uplift::Uplift;

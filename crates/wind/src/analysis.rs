@@ -1,0 +1,698 @@
+//! `analyze`: from a validated input to zones in plan, each with its coefficient curve.
+
+use serde::Serialize;
+
+use crate::basis::{Factor, PressureBasis, StandardBasis};
+use crate::coefficients::{check_points, table, ZoneCurve};
+use crate::error::{check_range, WindError};
+use crate::geometry::{area_m2, Point};
+use crate::outline::{local_roof, validate_footprint, Plan};
+use crate::types::{CurveOverride, RoofShape, SiteWind, WindInput};
+use crate::uplift::{evaluate, Uplift};
+use crate::zones::{layout, Region};
+use crate::{asce, nbc};
+
+/// One roof plane in plan.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct RoofPlane {
+    pub polygon_m: Vec<[f64; 2]>,
+    pub slope_deg: f64,
+    /// Unit plan vector pointing down the slope; [0, 0] for a level roof.
+    pub downslope_m: [f64; 2],
+}
+
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum ZoneLabel {
+    Interior,
+    Edge,
+    Corner,
+    OverhangInterior,
+    OverhangEdge,
+    OverhangCorner,
+}
+
+impl ZoneLabel {
+    pub fn as_str(self) -> &'static str {
+        match self {
+            ZoneLabel::Interior => "interior",
+            ZoneLabel::Edge => "edge",
+            ZoneLabel::Corner => "corner",
+            ZoneLabel::OverhangInterior => "overhang-interior",
+            ZoneLabel::OverhangEdge => "overhang-edge",
+            ZoneLabel::OverhangCorner => "overhang-corner",
+        }
+    }
+
+    fn of(region: Region, overhang: bool) -> Self {
+        match (region, overhang) {
+            (Region::Interior, false) => ZoneLabel::Interior,
+            (Region::Edge, false) => ZoneLabel::Edge,
+            (Region::Corner, false) => ZoneLabel::Corner,
+            (Region::Interior, true) => ZoneLabel::OverhangInterior,
+            (Region::Edge, true) => ZoneLabel::OverhangEdge,
+            (Region::Corner, true) => ZoneLabel::OverhangCorner,
+        }
+    }
+
+    fn is_overhang(self) -> bool {
+        matches!(
+            self,
+            ZoneLabel::OverhangInterior | ZoneLabel::OverhangEdge | ZoneLabel::OverhangCorner
+        )
+    }
+}
+
+impl std::fmt::Display for ZoneLabel {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(self.as_str())
+    }
+}
+
+/// One wind zone: all its pieces in plan.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct Zone {
+    pub label: ZoneLabel,
+    /// The standard's zone name (NBC `r`/`s`/`c`, ASCE `1`/`2`/`3`; overhangs add `-oh`).
+    pub code_zone: String,
+    pub polygons_m: Vec<Vec<[f64; 2]>>,
+    /// Plan area, m².
+    pub area_m2: f64,
+}
+
+/// The result of a wind analysis; `uplift` evaluates any zone at any effective area.
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct WindAnalysis {
+    pub edge_width_m: f64,
+    /// Canada: q·C_e·C_t at the reference height (I_w listed separately in `factors`); US: q_h, kPa.
+    pub q_kpa: f64,
+    pub mean_roof_height_m: f64,
+    pub building_outline_m: Vec<[f64; 2]>,
+    pub roof_outline_m: Vec<[f64; 2]>,
+    pub ridge_lines_m: Vec<[[f64; 2]; 2]>,
+    pub planes: Vec<RoofPlane>,
+    pub zones: Vec<Zone>,
+    pub factors: Vec<Factor>,
+    pub warnings: Vec<String>,
+    /// One curve per zone, same order as `zones`.
+    pub curves: Vec<ZoneCurve>,
+    pub pressure: PressureBasis,
+}
+
+impl WindAnalysis {
+    /// Net uplift on zone `zone_index` (order of `zones`) at an effective wind area, m².
+    pub fn uplift(&self, zone_index: usize, effective_area_m2: f64) -> Result<Uplift, WindError> {
+        let (Some(zone), Some(curve)) = (self.zones.get(zone_index), self.curves.get(zone_index))
+        else {
+            return Err(WindError::range(
+                "zone_index",
+                format!("{zone_index} is outside 0..{}", self.zones.len()),
+            ));
+        };
+        evaluate(
+            &self.pressure,
+            curve,
+            zone.label.is_overhang(),
+            effective_area_m2,
+        )
+    }
+}
+
+/// Runs the wind method on one roof.
+pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
+    let roof = &input.roof;
+    check_range("roof.slope_deg", roof.slope_deg, 0.0, 45.0, "deg")?;
+    check_range(
+        "roof.eave_overhang_mm",
+        roof.eave_overhang_mm,
+        0.0,
+        3000.0,
+        "mm",
+    )?;
+    check_range(
+        "roof.rake_overhang_mm",
+        roof.rake_overhang_mm,
+        0.0,
+        3000.0,
+        "mm",
+    )?;
+    check_range("roof.dead_load_kpa", roof.dead_load_kpa, 0.0, 10.0, "kPa")?;
+    check_range(
+        "building.eave_height_m",
+        input.building.eave_height_m,
+        0.5,
+        100.0,
+        "m",
+    )?;
+    match roof.shape {
+        RoofShape::Flat if roof.slope_deg > 7.0 => {
+            return Err(WindError::range(
+                "roof.slope_deg",
+                format!(
+                    "{} deg is outside 0..7 deg for a flat roof; use gable, hip or monoslope",
+                    roof.slope_deg
+                ),
+            ));
+        }
+        RoofShape::Monoslope if roof.slope_deg > 3.0 => {
+            return Err(WindError::unsupported(
+                "roof.shape",
+                format!(
+                    "monoslope roofs over 3 deg ({} deg given) need the monoslope figures (NBC 2020 Figure 4.1.7.6.-G, ASCE 7-22 Figure 30.3-5), which are not implemented",
+                    roof.slope_deg
+                ),
+            ));
+        }
+        _ => {}
+    }
+    let plan = validate_footprint(&input.building.footprint, roof.ridge_along)?;
+    let local = local_roof(&plan, roof)?;
+    let tan = roof.slope_deg.to_radians().tan();
+    let rise_m = match (&plan, roof.shape) {
+        (Plan::Rectangle { across_ridge_m, .. }, RoofShape::Gable | RoofShape::Hip) => {
+            across_ridge_m / 2.0 * tan
+        }
+        (Plan::Rectangle { across_ridge_m, .. }, _) => across_ridge_m * tan,
+        (Plan::Polygon { .. }, _) => 0.0,
+    };
+    let least_m = plan.least_dimension_m();
+    let (basis, mean_roof_height_m) = match &input.site {
+        SiteWind::Nbc2020(site) => {
+            let height = input.building.eave_height_m + rise_m / 2.0;
+            (
+                nbc::basis(
+                    site,
+                    height,
+                    least_m,
+                    roof.shape,
+                    roof.slope_deg,
+                    roof.dead_load_kpa,
+                )?,
+                height,
+            )
+        }
+        SiteWind::Asce722(site) => {
+            // ASCE 7-22 26.2, from memory: for slopes of 10 deg or less h is the eave height.
+            let height = if roof.slope_deg <= 10.0 {
+                input.building.eave_height_m
+            } else {
+                input.building.eave_height_m + rise_m / 2.0
+            };
+            (
+                asce::basis(
+                    site,
+                    height,
+                    least_m,
+                    roof.shape,
+                    roof.slope_deg,
+                    roof.dead_load_kpa,
+                )?,
+                height,
+            )
+        }
+    };
+    let zones_and_curves = build_zones(&plan, &local, &basis)?;
+    let (zones, mut curves): (Vec<Zone>, Vec<ZoneCurve>) = zones_and_curves.into_iter().unzip();
+    apply_overrides(&zones, &mut curves, &input.overrides)?;
+    let mut warnings = basis.warnings.clone();
+    if roof.shape == RoofShape::Hip && roof.rake_overhang_mm > 0.0 {
+        warnings.push(
+            "hip roof: rake_overhang_mm is not used; the eave overhang runs on all four sides"
+                .to_string(),
+        );
+    }
+    if basis.strips.hips {
+        warnings.push("hip roof: edge bands along the hips are approximated by bands of the edge width each side of the hip line".to_string());
+    }
+    if zones.iter().any(|zone| zone.label.is_overhang()) {
+        warnings.push("overhang coefficients are the adjacent roof zone plus the wall positive coefficient on the soffit, with no internal pressure (from memory)".to_string());
+    }
+    let to_plan_vector = |v: Point| plan.to_plan(v);
+    let planes = local
+        .planes
+        .iter()
+        .map(|(polygon, down)| RoofPlane {
+            polygon_m: plan.polygon_to_plan(polygon),
+            slope_deg: roof.slope_deg,
+            downslope_m: to_plan_vector(*down),
+        })
+        .collect();
+    Ok(WindAnalysis {
+        edge_width_m: basis.strips.edge_width_m,
+        q_kpa: basis.q_kpa,
+        mean_roof_height_m,
+        building_outline_m: plan.polygon_to_plan(&local.building_m),
+        roof_outline_m: plan.polygon_to_plan(&local.outline_m),
+        ridge_lines_m: local
+            .ridge_lines_m
+            .iter()
+            .map(|[a, b]| [plan.to_plan(*a), plan.to_plan(*b)])
+            .collect(),
+        planes,
+        zones,
+        factors: basis.factors.clone(),
+        warnings,
+        curves,
+        pressure: basis.pressure.clone(),
+    })
+}
+
+fn build_zones(
+    plan: &Plan,
+    local: &crate::outline::LocalRoof,
+    basis: &StandardBasis,
+) -> Result<Vec<(Zone, ZoneCurve)>, WindError> {
+    let data = table(basis.edition)?;
+    let pieces = layout(plan, local, basis.strips);
+    let mut result = Vec::new();
+    for overhang in [false, true] {
+        for (index, region) in [Region::Interior, Region::Edge, Region::Corner]
+            .into_iter()
+            .enumerate()
+        {
+            let polygons_m: Vec<Vec<Point>> = pieces
+                .iter()
+                .filter(|piece| piece.region == region && piece.overhang == overhang)
+                .map(|piece| plan.polygon_to_plan(&piece.polygon_m))
+                .collect();
+            if polygons_m.is_empty() {
+                continue;
+            }
+            let area: f64 = polygons_m.iter().map(|p| area_m2(p)).sum();
+            let name = basis.zone_names[index];
+            let code_zone = if overhang {
+                format!("{name}-oh")
+            } else {
+                name.to_string()
+            };
+            let curve_data = data.curve(&basis.slope_set, region)?;
+            let curve = ZoneCurve::from_data(curve_data, overhang.then_some(&data.soffit));
+            result.push((
+                Zone {
+                    label: ZoneLabel::of(region, overhang),
+                    code_zone,
+                    polygons_m,
+                    area_m2: area,
+                },
+                curve,
+            ));
+        }
+    }
+    Ok(result)
+}
+
+fn apply_overrides(
+    zones: &[Zone],
+    curves: &mut [ZoneCurve],
+    overrides: &[CurveOverride],
+) -> Result<(), WindError> {
+    for (index, replacement) in overrides.iter().enumerate() {
+        let field = format!("coefficient_overrides[{index}]");
+        check_points(&replacement.points)
+            .map_err(|detail| WindError::range(format!("{field}.points"), detail))?;
+        if replacement.source.trim().is_empty() {
+            return Err(WindError::range(
+                format!("{field}.source"),
+                "must name where the values come from",
+            ));
+        }
+        let mut matched = false;
+        for (zone, curve) in zones.iter().zip(curves.iter_mut()) {
+            if zone.code_zone == replacement.code_zone {
+                matched = true;
+                *curve = ZoneCurve {
+                    points: replacement.points.clone(),
+                    soffit: None,
+                    source: replacement.source.clone(),
+                };
+            }
+        }
+        if !matched {
+            let known: Vec<&str> = zones.iter().map(|zone| zone.code_zone.as_str()).collect();
+            return Err(WindError::range(
+                format!("{field}.code_zone"),
+                format!(
+                    "'{}' is not a zone of this roof (zones: {})",
+                    replacement.code_zone,
+                    known.join(", ")
+                ),
+            ));
+        }
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::types::{
+        AsceWind, Building, CurvePoint, Enclosure, Exposure, Footprint, Importance, NbcWind,
+        RidgeAlong, Roof, StrengthMethod, Terrain,
+    };
+    use approx::assert_relative_eq;
+    use proptest::prelude::*;
+
+    fn nbc_site(q50_kpa: f64) -> SiteWind {
+        SiteWind::Nbc2020(NbcWind {
+            q50_kpa,
+            terrain: Terrain::Open,
+            topographic_factor: 1.0,
+            importance: Importance::Normal,
+            internal_category: 2,
+        })
+    }
+
+    fn asce_site(speed_mph: f64) -> SiteWind {
+        SiteWind::Asce722(AsceWind {
+            speed_mph,
+            exposure: Exposure::C,
+            kzt: 1.0,
+            ground_elevation_ft: 0.0,
+            enclosure: Enclosure::Enclosed,
+            method: StrengthMethod::Asd,
+        })
+    }
+
+    fn input(
+        shape: RoofShape,
+        slope_deg: f64,
+        ridge_along: RidgeAlong,
+        site: SiteWind,
+    ) -> WindInput {
+        WindInput {
+            building: Building {
+                footprint: Footprint::Rectangle {
+                    length_m: 14.0,
+                    width_m: 9.0,
+                },
+                eave_height_m: 3.0,
+            },
+            roof: Roof {
+                shape,
+                slope_deg,
+                ridge_along,
+                eave_overhang_mm: 600.0,
+                rake_overhang_mm: 300.0,
+                dead_load_kpa: 0.4,
+            },
+            site,
+            overrides: Vec::new(),
+        }
+    }
+
+    fn all_inputs() -> Vec<WindInput> {
+        let mut inputs = Vec::new();
+        for site in [nbc_site(0.5), asce_site(130.0)] {
+            for (shape, slope) in [
+                (RoofShape::Gable, 22.0),
+                (RoofShape::Gable, 35.0),
+                (RoofShape::Gable, 5.0),
+                (RoofShape::Hip, 18.0),
+                (RoofShape::Flat, 0.0),
+                (RoofShape::Monoslope, 2.0),
+            ] {
+                for ridge in [RidgeAlong::Length, RidgeAlong::Width] {
+                    if shape == RoofShape::Hip && ridge == RidgeAlong::Width {
+                        continue;
+                    }
+                    inputs.push(input(shape, slope, ridge, site.clone()));
+                }
+            }
+        }
+        inputs
+    }
+
+    fn total_zone_area(analysis: &WindAnalysis) -> f64 {
+        analysis.zones.iter().map(|zone| zone.area_m2).sum()
+    }
+
+    #[test]
+    fn zones_tile_the_roof_outline() {
+        for case in all_inputs() {
+            let analysis = analyze(&case).expect("analysis");
+            let outline = area_m2(&analysis.roof_outline_m);
+            assert_relative_eq!(total_zone_area(&analysis), outline, max_relative = 1e-6);
+            let planes: f64 = analysis.planes.iter().map(|p| area_m2(&p.polygon_m)).sum();
+            assert_relative_eq!(planes, outline, max_relative = 1e-6);
+        }
+    }
+
+    #[test]
+    fn outlines_are_counter_clockwise_and_expanded() {
+        let analysis = analyze(&input(
+            RoofShape::Gable,
+            22.0,
+            RidgeAlong::Width,
+            nbc_site(0.5),
+        ))
+        .expect("analysis");
+        assert!(crate::geometry::signed_area_m2(&analysis.roof_outline_m) > 0.0);
+        // Ridge along the width: eaves at x = 0 and x = 14 get 0.6 m, rakes 0.3 m.
+        let (min, max) = crate::outline::bounds(&analysis.roof_outline_m);
+        assert_relative_eq!(min[0], -0.6, max_relative = 1e-12);
+        assert_relative_eq!(max[0], 14.6, max_relative = 1e-12);
+        assert_relative_eq!(min[1], -0.3, max_relative = 1e-12);
+        assert_relative_eq!(analysis.ridge_lines_m[0][0][0], 7.0, max_relative = 1e-12);
+        assert_relative_eq!(analysis.planes[0].downslope_m[0].abs(), 1.0);
+    }
+
+    #[test]
+    fn swapping_ridge_direction_keeps_zone_areas() {
+        // A symmetric roof gives the same zone areas whichever way the ridge is drawn on a square.
+        let mut along = input(RoofShape::Gable, 22.0, RidgeAlong::Length, asce_site(130.0));
+        along.building.footprint = Footprint::Rectangle {
+            length_m: 10.0,
+            width_m: 10.0,
+        };
+        let mut across = along.clone();
+        across.roof.ridge_along = RidgeAlong::Width;
+        let a = analyze(&along).expect("along");
+        let b = analyze(&across).expect("across");
+        for (za, zb) in a.zones.iter().zip(b.zones.iter()) {
+            assert_eq!(za.code_zone, zb.code_zone);
+            assert_relative_eq!(za.area_m2, zb.area_m2, max_relative = 1e-9);
+        }
+    }
+
+    #[test]
+    fn symmetric_gable_has_symmetric_zones() {
+        // A gable roof on a rectangle is symmetric about both centre lines, so every zone's
+        // area centroid is the centre of the building.
+        let analysis = analyze(&input(
+            RoofShape::Gable,
+            22.0,
+            RidgeAlong::Length,
+            nbc_site(0.5),
+        ))
+        .expect("analysis");
+        for zone in &analysis.zones {
+            let (mut ax, mut ay) = (0.0, 0.0);
+            for polygon in &zone.polygons_m {
+                let c = crate::geometry::centroid(polygon);
+                ax += c[0] * area_m2(polygon);
+                ay += c[1] * area_m2(polygon);
+            }
+            assert_relative_eq!(ax / zone.area_m2, 7.0, max_relative = 1e-9);
+            assert_relative_eq!(ay / zone.area_m2, 4.5, max_relative = 1e-9);
+        }
+    }
+
+    #[test]
+    fn corner_is_worst_and_overhang_has_no_internal() {
+        let analysis = analyze(&input(
+            RoofShape::Gable,
+            22.0,
+            RidgeAlong::Length,
+            nbc_site(0.5),
+        ))
+        .expect("analysis");
+        let labels: Vec<&str> = analysis.zones.iter().map(|z| z.label.as_str()).collect();
+        // Overhangs border the wall line, so they take its edge or corner zone; none is interior.
+        assert_eq!(
+            labels,
+            [
+                "interior",
+                "edge",
+                "corner",
+                "overhang-edge",
+                "overhang-corner"
+            ]
+        );
+        let uplift: Vec<Uplift> = (0..analysis.zones.len())
+            .map(|i| analysis.uplift(i, 0.3).expect("uplift"))
+            .collect();
+        assert!(uplift[2].net_uplift_kpa > uplift[1].net_uplift_kpa);
+        assert!(uplift[1].net_uplift_kpa > uplift[0].net_uplift_kpa);
+        assert_relative_eq!(uplift[4].cp_int, 0.0);
+        assert!(analysis.uplift(99, 0.3).is_err());
+    }
+
+    #[test]
+    fn asce_zone_one_hand_calculation() {
+        // ASCE 7-22 Eq. 26.10-1 and 30.3-1 by hand, h = 3 m < 15 ft, Exposure C: K_z = 0.85 (Table 26.10-1,
+        // from memory); flat-roof zone 1 GC_p = -1.7 at 10 ft² (Figure 30.3-2A, from memory).
+        let analysis = analyze(&input(
+            RoofShape::Flat,
+            0.0,
+            RidgeAlong::Length,
+            asce_site(140.0),
+        ))
+        .expect("analysis");
+        let q_h_psf = analysis.q_kpa / 0.047_880_259;
+        assert_relative_eq!(q_h_psf, 42.65, epsilon = 0.3);
+        let uplift = analysis.uplift(0, 0.5).expect("uplift");
+        let expected = 0.6 * analysis.q_kpa * 0.85 * (1.7 + 0.18) - 0.6 * 0.4;
+        assert_relative_eq!(uplift.net_uplift_kpa, expected, max_relative = 1e-9);
+        assert_relative_eq!(analysis.edge_width_m, 1.8, max_relative = 1e-12);
+    }
+
+    #[test]
+    fn refusals_name_the_field() {
+        let mut steep = input(RoofShape::Gable, 50.0, RidgeAlong::Length, nbc_site(0.5));
+        assert!(analyze(&steep)
+            .expect_err("steep")
+            .to_string()
+            .starts_with("roof.slope_deg"));
+        steep.roof.slope_deg = 20.0;
+        steep.building.eave_height_m = 25.0;
+        assert!(analyze(&steep)
+            .expect_err("tall")
+            .to_string()
+            .starts_with("building.eave_height_m"));
+        let mut zero = input(RoofShape::Flat, 0.0, RidgeAlong::Length, asce_site(130.0));
+        zero.building.footprint = Footprint::Rectangle {
+            length_m: 0.0,
+            width_m: 9.0,
+        };
+        assert!(analyze(&zero)
+            .expect_err("zero")
+            .to_string()
+            .starts_with("building.footprint.length_m"));
+        let mut polygon_gable = input(RoofShape::Gable, 20.0, RidgeAlong::Length, asce_site(130.0));
+        polygon_gable.building.footprint = Footprint::Polygon {
+            vertices_m: vec![[0.0, 0.0], [10.0, 0.0], [10.0, 8.0], [0.0, 8.0]],
+        };
+        assert!(analyze(&polygon_gable)
+            .expect_err("gable polygon")
+            .to_string()
+            .starts_with("roof.shape"));
+        let mut slanted = input(RoofShape::Flat, 0.0, RidgeAlong::Length, asce_site(130.0));
+        slanted.building.footprint = Footprint::Polygon {
+            vertices_m: vec![[0.0, 0.0], [10.0, 0.0], [12.0, 8.0], [0.0, 8.0]],
+        };
+        assert!(analyze(&slanted)
+            .expect_err("slanted")
+            .to_string()
+            .starts_with("building.footprint.polygon_m"));
+    }
+
+    #[test]
+    fn overrides_replace_and_unknown_zone_is_refused() {
+        let mut case = input(RoofShape::Gable, 22.0, RidgeAlong::Length, nbc_site(0.5));
+        case.overrides = vec![CurveOverride {
+            code_zone: "c".to_string(),
+            points: vec![CurvePoint {
+                area_m2: 1.0,
+                coefficient: -6.0,
+            }],
+            source: "printed NBC 2020 Figure 4.1.7.6.-E".to_string(),
+        }];
+        let analysis = analyze(&case).expect("analysis");
+        let corner = analysis
+            .zones
+            .iter()
+            .position(|z| z.code_zone == "c")
+            .expect("corner");
+        let uplift = analysis.uplift(corner, 0.5).expect("uplift");
+        assert_relative_eq!(uplift.cp_ext, -6.0);
+        assert_eq!(uplift.source, "printed NBC 2020 Figure 4.1.7.6.-E");
+        case.overrides[0].code_zone = "3e".to_string();
+        let error = analyze(&case).expect_err("unknown zone");
+        assert!(error.to_string().starts_with("coefficient_overrides"));
+    }
+
+    #[test]
+    fn l_shaped_flat_roof_tiles() {
+        let mut case = input(RoofShape::Flat, 0.0, RidgeAlong::Length, nbc_site(0.5));
+        case.building.footprint = Footprint::Polygon {
+            vertices_m: vec![
+                [0.0, 0.0],
+                [20.0, 0.0],
+                [20.0, 8.0],
+                [8.0, 8.0],
+                [8.0, 16.0],
+                [0.0, 16.0],
+            ],
+        };
+        let analysis = analyze(&case).expect("analysis");
+        assert_relative_eq!(
+            total_zone_area(&analysis),
+            area_m2(&analysis.roof_outline_m),
+            max_relative = 1e-6
+        );
+        assert_eq!(analysis.planes.len(), 1);
+    }
+
+    proptest! {
+        #[test]
+        fn more_wind_never_lowers_uplift(low in 85.0f64..200.0, extra in 0.0f64..80.0, area in 0.05f64..50.0) {
+            for shape in [RoofShape::Gable, RoofShape::Hip, RoofShape::Flat] {
+                let slope = if shape == RoofShape::Flat { 0.0 } else { 25.0 };
+                let weak = analyze(&input(shape, slope, RidgeAlong::Length, asce_site(low))).expect("weak");
+                let strong = analyze(&input(shape, slope, RidgeAlong::Length, asce_site(low + extra))).expect("strong");
+                for index in 0..weak.zones.len() {
+                    let a = weak.uplift(index, area).expect("uplift").net_uplift_kpa;
+                    let b = strong.uplift(index, area).expect("uplift").net_uplift_kpa;
+                    prop_assert!(b >= a - 1e-12);
+                }
+                let weak = analyze(&input(shape, slope, RidgeAlong::Length, nbc_site(low / 300.0))).expect("weak");
+                let strong = analyze(&input(shape, slope, RidgeAlong::Length, nbc_site((low + extra) / 300.0))).expect("strong");
+                for index in 0..weak.zones.len() {
+                    let a = weak.uplift(index, area).expect("uplift").net_uplift_kpa;
+                    let b = strong.uplift(index, area).expect("uplift").net_uplift_kpa;
+                    prop_assert!(b >= a - 1e-12);
+                }
+            }
+        }
+
+        #[test]
+        fn larger_area_never_raises_coefficient(small in 0.01f64..100.0, factor in 1.0f64..50.0) {
+            for case in all_inputs() {
+                let analysis = analyze(&case).expect("analysis");
+                for index in 0..analysis.zones.len() {
+                    let a = analysis.uplift(index, small).expect("uplift").cp_ext.abs();
+                    let b = analysis.uplift(index, small * factor).expect("uplift").cp_ext.abs();
+                    prop_assert!(b <= a + 1e-12);
+                }
+            }
+        }
+
+        #[test]
+        fn zones_tile_any_rectangle(
+            length in 4.0f64..60.0,
+            width in 4.0f64..60.0,
+            slope in 0.0f64..45.0,
+            eave in 0.0f64..900.0,
+            rake in 0.0f64..900.0,
+            hip in any::<bool>(),
+            nbc in any::<bool>(),
+        ) {
+            let (length, width) = if hip { (length.max(width), length.min(width)) } else { (length, width) };
+            let shape = if hip { RoofShape::Hip } else { RoofShape::Gable };
+            let site = if nbc { nbc_site(0.5) } else { asce_site(130.0) };
+            let mut case = input(shape, slope, RidgeAlong::Length, site);
+            case.building.footprint = Footprint::Rectangle { length_m: length, width_m: width };
+            case.building.eave_height_m = 2.5;
+            case.roof.eave_overhang_mm = eave;
+            case.roof.rake_overhang_mm = rake;
+            match analyze(&case) {
+                Ok(analysis) => {
+                    let outline = area_m2(&analysis.roof_outline_m);
+                    prop_assert!((total_zone_area(&analysis) - outline).abs() <= 1e-6 * outline);
+                }
+                // Steep roofs on narrow buildings exceed the height limits: that refusal must name the height.
+                Err(error) => prop_assert!(error.to_string().starts_with("building.eave_height_m"), "{}", error),
+            }
+        }
+    }
+}

@@ -1,0 +1,475 @@
+//! Footprint validation and the plan geometry of the roof: wall line, roof outline with overhangs,
+//! roof planes and ridge/hip lines.
+//!
+//! Rectangles are worked in a local frame (u along the ridge, v across it, building on
+//! [0, lu] × [0, lv]); `swap` maps it back to plan (u, v) → (v, u) when the ridge runs along the width.
+//! Polygons are worked in plan directly.
+
+use crate::error::{check_range, WindError};
+use crate::geometry::{make_ccw, rectangle, segments_touch, signed_area_m2, Point};
+use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
+
+/// Largest plan dimension accepted, m (a sanity bound, not a code limit).
+const MAX_PLAN_M: f64 = 1000.0;
+
+/// The validated plan the zone layout works on.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) enum Plan {
+    Rectangle {
+        along_ridge_m: f64,
+        across_ridge_m: f64,
+        swap: bool,
+    },
+    Polygon {
+        building_m: Vec<Point>,
+    },
+}
+
+impl Plan {
+    /// Least horizontal dimension, m (for polygons: the smaller side of the bounding box).
+    pub(crate) fn least_dimension_m(&self) -> f64 {
+        match self {
+            Plan::Rectangle {
+                along_ridge_m,
+                across_ridge_m,
+                ..
+            } => along_ridge_m.min(*across_ridge_m),
+            Plan::Polygon { building_m } => {
+                let (min, max) = bounds(building_m);
+                (max[0] - min[0]).min(max[1] - min[1])
+            }
+        }
+    }
+
+    /// Maps a local point to plan coordinates.
+    pub(crate) fn to_plan(&self, point: Point) -> Point {
+        match self {
+            Plan::Rectangle { swap: true, .. } => [point[1], point[0]],
+            _ => point,
+        }
+    }
+
+    /// Maps a local polygon to plan, counter-clockwise.
+    pub(crate) fn polygon_to_plan(&self, polygon: &[Point]) -> Vec<Point> {
+        make_ccw(polygon.iter().map(|p| self.to_plan(*p)).collect())
+    }
+}
+
+/// Plan geometry in the local frame.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct LocalRoof {
+    pub building_m: Vec<Point>,
+    pub outline_m: Vec<Point>,
+    pub ridge_lines_m: Vec<[Point; 2]>,
+    /// (polygon, downslope unit vector) per roof plane.
+    pub planes: Vec<(Vec<Point>, Point)>,
+}
+
+pub(crate) fn bounds(polygon: &[Point]) -> (Point, Point) {
+    let mut min = [f64::INFINITY, f64::INFINITY];
+    let mut max = [f64::NEG_INFINITY, f64::NEG_INFINITY];
+    for p in polygon {
+        min = [min[0].min(p[0]), min[1].min(p[1])];
+        max = [max[0].max(p[0]), max[1].max(p[1])];
+    }
+    (min, max)
+}
+
+/// Checks the footprint and returns the plan in its working frame.
+pub(crate) fn validate_footprint(
+    footprint: &Footprint,
+    ridge_along: RidgeAlong,
+) -> Result<Plan, WindError> {
+    match footprint {
+        Footprint::Rectangle { length_m, width_m } => {
+            check_range(
+                "building.footprint.length_m",
+                *length_m,
+                0.5,
+                MAX_PLAN_M,
+                "m",
+            )?;
+            check_range("building.footprint.width_m", *width_m, 0.5, MAX_PLAN_M, "m")?;
+            Ok(match ridge_along {
+                RidgeAlong::Length => Plan::Rectangle {
+                    along_ridge_m: *length_m,
+                    across_ridge_m: *width_m,
+                    swap: false,
+                },
+                RidgeAlong::Width => Plan::Rectangle {
+                    along_ridge_m: *width_m,
+                    across_ridge_m: *length_m,
+                    swap: true,
+                },
+            })
+        }
+        Footprint::Polygon { vertices_m } => Ok(Plan::Polygon {
+            building_m: validate_polygon(vertices_m)?,
+        }),
+    }
+}
+
+const POLYGON_FIELD: &str = "building.footprint.polygon_m";
+
+/// A simple rectilinear polygon, counter-clockwise, collinear vertices removed.
+fn validate_polygon(vertices: &[Point]) -> Result<Vec<Point>, WindError> {
+    if vertices.iter().any(|p| {
+        !p[0].is_finite() || !p[1].is_finite() || p[0].abs() > MAX_PLAN_M || p[1].abs() > MAX_PLAN_M
+    }) {
+        return Err(WindError::range(
+            POLYGON_FIELD,
+            format!("every coordinate must be finite and within -{MAX_PLAN_M}..{MAX_PLAN_M} m"),
+        ));
+    }
+    let mut points: Vec<Point> = Vec::with_capacity(vertices.len());
+    for p in vertices {
+        if points.last().is_none_or(|last| last != p) {
+            points.push(*p);
+        }
+    }
+    if points.len() > 1 && points.first() == points.last() {
+        points.pop();
+    }
+    // Remove vertices that lie on a straight run.
+    let mut changed = true;
+    while changed && points.len() >= 3 {
+        changed = false;
+        let count = points.len();
+        for index in 0..count {
+            let prev = points[(index + count - 1) % count];
+            let here = points[index];
+            let next = points[(index + 1) % count];
+            let cross = (here[0] - prev[0]) * (next[1] - here[1])
+                - (here[1] - prev[1]) * (next[0] - here[0]);
+            if cross.abs() < 1e-12 {
+                points.remove(index);
+                changed = true;
+                break;
+            }
+        }
+    }
+    if points.len() < 4 {
+        return Err(WindError::range(
+            POLYGON_FIELD,
+            "needs at least 4 corners enclosing an area".to_string(),
+        ));
+    }
+    let count = points.len();
+    for index in 0..count {
+        let a = points[index];
+        let b = points[(index + 1) % count];
+        let dx = (b[0] - a[0]).abs();
+        let dy = (b[1] - a[1]).abs();
+        if dx > 1e-9 && dy > 1e-9 {
+            return Err(WindError::unsupported(
+                POLYGON_FIELD,
+                format!("edge {index} is not parallel to x or y; only rectilinear outlines are supported"),
+            ));
+        }
+    }
+    for i in 0..count {
+        for j in (i + 1)..count {
+            let adjacent = j == i + 1 || (i == 0 && j == count - 1);
+            if adjacent {
+                continue;
+            }
+            if segments_touch(
+                points[i],
+                points[(i + 1) % count],
+                points[j],
+                points[(j + 1) % count],
+            ) {
+                return Err(WindError::range(
+                    POLYGON_FIELD,
+                    format!(
+                        "edges {i} and {j} cross or touch; the outline must be a simple polygon"
+                    ),
+                ));
+            }
+        }
+    }
+    let points = make_ccw(points);
+    if signed_area_m2(&points) < 0.25 {
+        return Err(WindError::range(
+            POLYGON_FIELD,
+            "encloses no usable area (under 0.25 m²)".to_string(),
+        ));
+    }
+    let (min, max) = bounds(&points);
+    if (max[0] - min[0]) < 0.5 || (max[1] - min[1]) < 0.5 {
+        return Err(WindError::range(
+            POLYGON_FIELD,
+            "is narrower than 0.5 m".to_string(),
+        ));
+    }
+    Ok(points)
+}
+
+/// Offsets a counter-clockwise rectilinear polygon outward by `distance_m`.
+fn offset_rectilinear(polygon: &[Point], distance_m: f64) -> Vec<Point> {
+    let count = polygon.len();
+    let normal = |index: usize| {
+        let a = polygon[index % count];
+        let b = polygon[(index + 1) % count];
+        let length = ((b[0] - a[0]).powi(2) + (b[1] - a[1]).powi(2)).sqrt();
+        [(b[1] - a[1]) / length, -(b[0] - a[0]) / length]
+    };
+    (0..count)
+        .map(|index| {
+            let before = normal(index + count - 1);
+            let after = normal(index);
+            [
+                polygon[index][0] + distance_m * (before[0] + after[0]),
+                polygon[index][1] + distance_m * (before[1] + after[1]),
+            ]
+        })
+        .collect()
+}
+
+/// Builds the wall line, roof outline, planes and ridge lines in the local frame.
+pub(crate) fn local_roof(plan: &Plan, roof: &Roof) -> Result<LocalRoof, WindError> {
+    let eave_m = roof.eave_overhang_mm / 1000.0;
+    let rake_m = roof.rake_overhang_mm / 1000.0;
+    match plan {
+        Plan::Rectangle {
+            along_ridge_m: lu,
+            across_ridge_m: lv,
+            ..
+        } => {
+            let (lu, lv) = (*lu, *lv);
+            // Hip roofs have eaves on all four sides.
+            let end_m = if roof.shape == RoofShape::Hip {
+                eave_m
+            } else {
+                rake_m
+            };
+            let building_m = rectangle(0.0, 0.0, lu, lv);
+            let outline_m = rectangle(-end_m, -eave_m, lu + end_m, lv + eave_m);
+            let sloped = roof.slope_deg > 0.0;
+            let (planes, ridge_lines_m) = match roof.shape {
+                RoofShape::Gable => (
+                    vec![
+                        (
+                            rectangle(-end_m, -eave_m, lu + end_m, lv / 2.0),
+                            [0.0, -1.0],
+                        ),
+                        (
+                            rectangle(-end_m, lv / 2.0, lu + end_m, lv + eave_m),
+                            [0.0, 1.0],
+                        ),
+                    ],
+                    vec![[[-end_m, lv / 2.0], [lu + end_m, lv / 2.0]]],
+                ),
+                RoofShape::Hip => {
+                    if lu + 1e-9 < lv {
+                        return Err(WindError::unsupported(
+                            "roof.ridge_along",
+                            format!(
+                                "a hip ridge along the {lu} m side is shorter than the {lv} m side it spans; set the ridge along the longer side"
+                            ),
+                        ));
+                    }
+                    let e = eave_m;
+                    let left = [lv / 2.0, lv / 2.0];
+                    let right = [lu - lv / 2.0, lv / 2.0];
+                    let mut ridges = vec![
+                        [[-e, -e], left],
+                        [[-e, lv + e], left],
+                        [[lu + e, -e], right],
+                        [[lu + e, lv + e], right],
+                    ];
+                    if right[0] - left[0] > 1e-9 {
+                        ridges.insert(0, [left, right]);
+                    }
+                    (
+                        vec![
+                            (vec![[-e, -e], [lu + e, -e], right, left], [0.0, -1.0]),
+                            (
+                                vec![[lu + e, lv + e], [-e, lv + e], left, right],
+                                [0.0, 1.0],
+                            ),
+                            (vec![[-e, -e], left, [-e, lv + e]], [-1.0, 0.0]),
+                            (vec![[lu + e, -e], [lu + e, lv + e], right], [1.0, 0.0]),
+                        ],
+                        ridges,
+                    )
+                }
+                // Monoslope and sloped flat roofs fall toward local -v (plan -y for a ridge along the length).
+                RoofShape::Monoslope | RoofShape::Flat => (
+                    vec![(
+                        outline_m.clone(),
+                        if sloped { [0.0, -1.0] } else { [0.0, 0.0] },
+                    )],
+                    Vec::new(),
+                ),
+            };
+            let planes = planes
+                .into_iter()
+                .map(|(polygon, down)| (make_ccw(polygon), down))
+                .filter(|(polygon, _)| signed_area_m2(polygon) > 1e-12)
+                .collect();
+            Ok(LocalRoof {
+                building_m,
+                outline_m,
+                ridge_lines_m,
+                planes,
+            })
+        }
+        Plan::Polygon { building_m } => {
+            if roof.shape != RoofShape::Flat {
+                return Err(WindError::unsupported(
+                    "roof.shape",
+                    "polygon footprints support flat roofs only; gable, hip and monoslope need a rectangle",
+                ));
+            }
+            let outline_m = if eave_m > 0.0 {
+                let outline = make_ccw(offset_rectilinear(building_m, eave_m));
+                validate_polygon(&outline).map_err(|_| {
+                    WindError::range(
+                        "roof.eave_overhang_mm",
+                        format!(
+                            "{} mm overhang folds the roof outline onto itself",
+                            roof.eave_overhang_mm
+                        ),
+                    )
+                })?
+            } else {
+                building_m.clone()
+            };
+            let down = if roof.slope_deg > 0.0 {
+                [0.0, -1.0]
+            } else {
+                [0.0, 0.0]
+            };
+            Ok(LocalRoof {
+                building_m: building_m.clone(),
+                outline_m: outline_m.clone(),
+                ridge_lines_m: Vec::new(),
+                planes: vec![(outline_m, down)],
+            })
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::geometry::area_m2;
+    use approx::assert_relative_eq;
+
+    fn roof(shape: RoofShape) -> Roof {
+        Roof {
+            shape,
+            slope_deg: 20.0,
+            ridge_along: RidgeAlong::Length,
+            eave_overhang_mm: 600.0,
+            rake_overhang_mm: 300.0,
+            dead_load_kpa: 0.5,
+        }
+    }
+
+    #[test]
+    fn gable_outline_uses_eave_and_rake_overhangs() {
+        let plan = validate_footprint(
+            &Footprint::Rectangle {
+                length_m: 12.0,
+                width_m: 8.0,
+            },
+            RidgeAlong::Length,
+        )
+        .expect("valid");
+        let local = local_roof(&plan, &roof(RoofShape::Gable)).expect("gable");
+        assert_relative_eq!(area_m2(&local.outline_m), 12.6 * 9.2, max_relative = 1e-12);
+        let planes: f64 = local.planes.iter().map(|(p, _)| area_m2(p)).sum();
+        assert_relative_eq!(planes, 12.6 * 9.2, max_relative = 1e-12);
+    }
+
+    #[test]
+    fn hip_planes_tile_outline() {
+        let plan = validate_footprint(
+            &Footprint::Rectangle {
+                length_m: 12.0,
+                width_m: 8.0,
+            },
+            RidgeAlong::Length,
+        )
+        .expect("valid");
+        let local = local_roof(&plan, &roof(RoofShape::Hip)).expect("hip");
+        assert_eq!(local.planes.len(), 4);
+        let planes: f64 = local.planes.iter().map(|(p, _)| area_m2(p)).sum();
+        assert_relative_eq!(planes, 13.2 * 9.2, max_relative = 1e-12);
+        assert_eq!(local.ridge_lines_m.len(), 5);
+    }
+
+    #[test]
+    fn l_shape_is_accepted_and_offset() {
+        let l_shape = vec![
+            [0.0, 0.0],
+            [10.0, 0.0],
+            [10.0, 4.0],
+            [4.0, 4.0],
+            [4.0, 10.0],
+            [0.0, 10.0],
+        ];
+        let plan = validate_footprint(
+            &Footprint::Polygon {
+                vertices_m: l_shape,
+            },
+            RidgeAlong::Length,
+        )
+        .expect("L");
+        let mut flat = roof(RoofShape::Flat);
+        flat.eave_overhang_mm = 500.0;
+        let local = local_roof(&plan, &flat).expect("flat");
+        // 64 m² + perimeter 40 m × 0.5 m + 4 convex corners (5 convex, 1 reflex) × 0.25 m².
+        assert_relative_eq!(
+            area_m2(&local.outline_m),
+            64.0 + 20.0 + 4.0 * 0.25,
+            max_relative = 1e-12
+        );
+    }
+
+    #[test]
+    fn non_rectilinear_and_crossing_polygons_are_refused() {
+        let slanted = vec![[0.0, 0.0], [10.0, 0.0], [8.0, 5.0], [0.0, 5.0]];
+        let error = validate_footprint(
+            &Footprint::Polygon {
+                vertices_m: slanted,
+            },
+            RidgeAlong::Length,
+        )
+        .expect_err("slanted");
+        assert!(error
+            .to_string()
+            .starts_with("building.footprint.polygon_m"));
+        let bow_tie = vec![
+            [0.0, 0.0],
+            [4.0, 0.0],
+            [4.0, 2.0],
+            [2.0, 2.0],
+            [2.0, -2.0],
+            [0.0, -2.0],
+        ];
+        let error = validate_footprint(
+            &Footprint::Polygon {
+                vertices_m: bow_tie,
+            },
+            RidgeAlong::Length,
+        )
+        .expect_err("crossing");
+        assert!(error.to_string().contains("simple polygon"));
+    }
+
+    #[test]
+    fn zero_size_is_refused() {
+        let error = validate_footprint(
+            &Footprint::Rectangle {
+                length_m: 0.0,
+                width_m: 8.0,
+            },
+            RidgeAlong::Length,
+        )
+        .expect_err("zero");
+        assert!(error.to_string().starts_with("building.footprint.length_m"));
+    }
+}

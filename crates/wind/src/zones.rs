@@ -1,0 +1,357 @@
+//! Zone layout in plan: corner squares, edge strips (eaves, rakes, ridge, hips) and interior, plus the
+//! overhang parts of the roof outside the wall line. The pieces are cut from the roof outline, so the
+//! zones tile it exactly.
+
+use crate::geometry::{area_m2, centroid, contains, split_by_line, Point};
+use crate::outline::{bounds, LocalRoof, Plan};
+
+/// Which kind of roof area a point lies in, before the standard names it.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, PartialOrd, Ord)]
+pub(crate) enum Region {
+    Interior,
+    Edge,
+    Corner,
+}
+
+/// The strips the layout draws besides the wall-line strips.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct Strips {
+    pub edge_width_m: f64,
+    /// Edge strips both sides of the ridge, corners where they meet the rakes (gable > 7°).
+    pub ridge: bool,
+    /// Edge bands along the hip lines and ridge (hip > 7°).
+    pub hips: bool,
+}
+
+/// One classified piece of the roof outline, local frame.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct Piece {
+    pub region: Region,
+    pub overhang: bool,
+    pub polygon_m: Vec<Point>,
+}
+
+const SLIVER_M2: f64 = 1e-10;
+
+/// Cuts the roof outline into classified pieces.
+pub(crate) fn layout(plan: &Plan, local: &LocalRoof, strips: Strips) -> Vec<Piece> {
+    match plan {
+        Plan::Rectangle {
+            along_ridge_m,
+            across_ridge_m,
+            ..
+        } => rectangle_layout(*along_ridge_m, *across_ridge_m, local, strips),
+        Plan::Polygon { building_m } => polygon_layout(building_m, local, strips.edge_width_m),
+    }
+}
+
+fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<Piece> {
+    let a = strips.edge_width_m;
+    let mut u_cuts = vec![0.0, a, lu - a, lu];
+    let mut v_cuts = vec![0.0, a, lv - a, lv, lv / 2.0];
+    if strips.ridge || strips.hips {
+        v_cuts.extend([lv / 2.0 - a, lv / 2.0 + a]);
+    }
+    // Lines as (normal, offset): normal · p = offset.
+    let mut lines: Vec<(Point, f64)> = Vec::new();
+    if strips.hips {
+        u_cuts.extend([
+            lv / 2.0 - a,
+            lv / 2.0 + a,
+            lu - lv / 2.0 - a,
+            lu - lv / 2.0 + a,
+        ]);
+        let shift = a * std::f64::consts::SQRT_2;
+        for base in [0.0, lu - lv] {
+            for delta in [-shift, 0.0, shift] {
+                lines.push(([1.0, -1.0], base + delta));
+            }
+        }
+        for base in [lu, lv] {
+            for delta in [-shift, 0.0, shift] {
+                lines.push(([1.0, 1.0], base + delta));
+            }
+        }
+    }
+    lines.extend(u_cuts.iter().map(|u| ([1.0, 0.0], *u)));
+    lines.extend(v_cuts.iter().map(|v| ([0.0, 1.0], *v)));
+    let pieces = cut_all(vec![local.outline_m.clone()], &lines);
+    pieces
+        .into_iter()
+        .map(|polygon_m| {
+            let [u, v] = centroid(&polygon_m);
+            let (region, overhang) = classify_rectangle(u, v, lu, lv, strips);
+            Piece {
+                region,
+                overhang,
+                polygon_m,
+            }
+        })
+        .collect()
+}
+
+fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
+    for (normal, offset) in lines {
+        let mut next = Vec::with_capacity(pieces.len() * 2);
+        for piece in &pieces {
+            let (below, above) = split_by_line(piece, *normal, *offset);
+            for part in [below, above] {
+                if part.len() >= 3 && area_m2(&part) > SLIVER_M2 {
+                    next.push(part);
+                }
+            }
+        }
+        pieces = next;
+    }
+    pieces
+}
+
+/// Region of a point in the local rectangle frame; overhang points take the region of the
+/// nearest point of the wall line.
+fn classify_rectangle(u: f64, v: f64, lu: f64, lv: f64, strips: Strips) -> (Region, bool) {
+    let a = strips.edge_width_m;
+    let qu = u.clamp(0.0, lu);
+    let qv = v.clamp(0.0, lv);
+    let overhang = (qu - u).abs() > 1e-9 || (qv - v).abs() > 1e-9;
+    let du = qu.min(lu - qu);
+    let dv = qv.min(lv - qv);
+    let near_ridge = (qv - lv / 2.0).abs() < a;
+    let near_wall = du < a || dv < a;
+    // Eave corners, and for gables the ends of the ridge strip at the rakes.
+    let corner = (du < a && dv < a) || (strips.ridge && near_ridge && du < a);
+    let ridge_strip = strips.ridge && near_ridge;
+    let hip_ridge = strips.hips && near_ridge && du > lv / 2.0 - a;
+    let hip_band = strips.hips
+        && (du - dv).abs() / std::f64::consts::SQRT_2 < a
+        && du < lv / 2.0 + a
+        && dv < lv / 2.0 + a;
+    let region = if corner {
+        Region::Corner
+    } else if near_wall || ridge_strip || hip_ridge || hip_band {
+        Region::Edge
+    } else {
+        Region::Interior
+    };
+    (region, overhang)
+}
+
+fn polygon_layout(building: &[Point], local: &LocalRoof, a: f64) -> Vec<Piece> {
+    let mut xs: Vec<f64> = Vec::new();
+    let mut ys: Vec<f64> = Vec::new();
+    for p in local.outline_m.iter().chain(building.iter()) {
+        xs.push(p[0]);
+        ys.push(p[1]);
+    }
+    for p in building {
+        xs.extend([p[0] - a, p[0] + a]);
+        ys.extend([p[1] - a, p[1] + a]);
+    }
+    let (min, max) = bounds(&local.outline_m);
+    let clean = |mut values: Vec<f64>, low: f64, high: f64| {
+        values.retain(|value| *value >= low && *value <= high);
+        values.sort_by(f64::total_cmp);
+        values.dedup_by(|x, y| (*x - *y).abs() < 1e-9);
+        values
+    };
+    let xs = clean(xs, min[0], max[0]);
+    let ys = clean(ys, min[1], max[1]);
+    let mut pieces = Vec::new();
+    for column in xs.windows(2) {
+        for row in ys.windows(2) {
+            let center = [(column[0] + column[1]) / 2.0, (row[0] + row[1]) / 2.0];
+            if !contains(&local.outline_m, center) {
+                continue;
+            }
+            let polygon_m = crate::geometry::rectangle(column[0], row[0], column[1], row[1]);
+            if area_m2(&polygon_m) <= SLIVER_M2 {
+                continue;
+            }
+            let (region, overhang) = classify_polygon(center, building, a);
+            pieces.push(Piece {
+                region,
+                overhang,
+                polygon_m,
+            });
+        }
+    }
+    pieces
+}
+
+/// Region of a point for a counter-clockwise rectilinear wall line.
+fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Region, bool) {
+    let count = building.len();
+    let inside = contains(building, point);
+    let q = if inside {
+        point
+    } else {
+        nearest_on_boundary(point, building)
+    };
+    let corner = (0..count).any(|index| {
+        let prev = building[(index + count - 1) % count];
+        let here = building[index];
+        let next = building[(index + 1) % count];
+        let cross =
+            (here[0] - prev[0]) * (next[1] - here[1]) - (here[1] - prev[1]) * (next[0] - here[0]);
+        cross > 0.0 && (q[0] - here[0]).abs() < a && (q[1] - here[1]).abs() < a
+    });
+    let edge = (0..count).any(|index| {
+        let start = building[index];
+        let end = building[(index + 1) % count];
+        let (dx, dy) = (end[0] - start[0], end[1] - start[1]);
+        let length = (dx * dx + dy * dy).sqrt();
+        let along = ((q[0] - start[0]) * dx + (q[1] - start[1]) * dy) / length;
+        // Counter-clockwise: the inside is to the left of each edge.
+        let inward = (dx * (q[1] - start[1]) - dy * (q[0] - start[0])) / length;
+        along >= -1e-9 && along <= length + 1e-9 && inward >= -1e-9 && inward < a
+    });
+    let region = if corner {
+        Region::Corner
+    } else if edge {
+        Region::Edge
+    } else {
+        Region::Interior
+    };
+    (region, !inside)
+}
+
+fn nearest_on_boundary(point: Point, polygon: &[Point]) -> Point {
+    let count = polygon.len();
+    let mut best = polygon[0];
+    let mut best_distance = f64::INFINITY;
+    for index in 0..count {
+        let start = polygon[index];
+        let end = polygon[(index + 1) % count];
+        let (dx, dy) = (end[0] - start[0], end[1] - start[1]);
+        let t = (((point[0] - start[0]) * dx + (point[1] - start[1]) * dy) / (dx * dx + dy * dy))
+            .clamp(0.0, 1.0);
+        let candidate = [start[0] + t * dx, start[1] + t * dy];
+        let distance = (candidate[0] - point[0]).hypot(candidate[1] - point[1]);
+        if distance < best_distance {
+            best_distance = distance;
+            best = candidate;
+        }
+    }
+    best
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::outline::{local_roof, validate_footprint};
+    use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
+    use approx::assert_relative_eq;
+
+    fn pieces_for(
+        shape: RoofShape,
+        footprint: Footprint,
+        strips: Strips,
+    ) -> (LocalRoof, Vec<Piece>) {
+        let roof = Roof {
+            shape,
+            slope_deg: 20.0,
+            ridge_along: RidgeAlong::Length,
+            eave_overhang_mm: 600.0,
+            rake_overhang_mm: 300.0,
+            dead_load_kpa: 0.5,
+        };
+        let plan = validate_footprint(&footprint, RidgeAlong::Length).expect("plan");
+        let local = local_roof(&plan, &roof).expect("roof");
+        let pieces = layout(&plan, &local, strips);
+        (local, pieces)
+    }
+
+    fn area_of(pieces: &[Piece], region: Region, overhang: bool) -> f64 {
+        pieces
+            .iter()
+            .filter(|p| p.region == region && p.overhang == overhang)
+            .map(|p| area_m2(&p.polygon_m))
+            .sum()
+    }
+
+    #[test]
+    fn gable_corner_and_tiling() {
+        let strips = Strips {
+            edge_width_m: 1.0,
+            ridge: true,
+            hips: false,
+        };
+        let (local, pieces) = pieces_for(
+            RoofShape::Gable,
+            Footprint::Rectangle {
+                length_m: 12.0,
+                width_m: 8.0,
+            },
+            strips,
+        );
+        let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
+        assert_relative_eq!(total, area_m2(&local.outline_m), max_relative = 1e-9);
+        // Four eave corners plus four ridge-end corners, each 1 m × 1 m inside the wall line.
+        assert_relative_eq!(
+            area_of(&pieces, Region::Corner, false),
+            8.0,
+            max_relative = 1e-9
+        );
+        // Interior: (12 - 2) × (8 - 4 strips of 1 m).
+        assert_relative_eq!(
+            area_of(&pieces, Region::Interior, false),
+            40.0,
+            max_relative = 1e-9
+        );
+    }
+
+    #[test]
+    fn hip_tiles_outline() {
+        let strips = Strips {
+            edge_width_m: 1.0,
+            ridge: false,
+            hips: true,
+        };
+        let (local, pieces) = pieces_for(
+            RoofShape::Hip,
+            Footprint::Rectangle {
+                length_m: 14.0,
+                width_m: 9.0,
+            },
+            strips,
+        );
+        let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
+        assert_relative_eq!(total, area_m2(&local.outline_m), max_relative = 1e-9);
+        assert_relative_eq!(
+            area_of(&pieces, Region::Corner, false),
+            4.0,
+            max_relative = 1e-9
+        );
+        assert!(area_of(&pieces, Region::Interior, false) > 0.0);
+    }
+
+    #[test]
+    fn l_shape_flat_corners_at_convex_vertices_only() {
+        let strips = Strips {
+            edge_width_m: 1.0,
+            ridge: false,
+            hips: false,
+        };
+        let l_shape = vec![
+            [0.0, 0.0],
+            [10.0, 0.0],
+            [10.0, 4.0],
+            [4.0, 4.0],
+            [4.0, 10.0],
+            [0.0, 10.0],
+        ];
+        let (local, pieces) = pieces_for(
+            RoofShape::Flat,
+            Footprint::Polygon {
+                vertices_m: l_shape,
+            },
+            strips,
+        );
+        let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
+        assert_relative_eq!(total, area_m2(&local.outline_m), max_relative = 1e-9);
+        assert_relative_eq!(
+            area_of(&pieces, Region::Corner, false),
+            5.0,
+            max_relative = 1e-9
+        );
+    }
+}
