@@ -25,7 +25,10 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     let project = parse_project(DEMO_PROJECT_JSON).expect("the demo parses");
     let job = run_job(&project).expect("runs");
     let schedule = schedule_for(&project, &job);
-    assert_eq!(schedule.nail.id, "common-63x3.25", "the 51 mm nail fails somewhere, the 63 mm one is next");
+    assert_eq!(
+        schedule.nail.id, "common-63x3.25",
+        "the 51 mm nail fails somewhere, the 63 mm one is next"
+    );
 
     let q_ce_kpa: f64 = 0.45 * 0.6f64.powf(0.2);
     let wind_kpa = 1.4 * q_ce_kpa * (3.8 + 0.6);
@@ -33,7 +36,11 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     let net_kpa = wind_kpa - dead_kpa;
     let resistance_n = 0.6 * 16.4 * 3.25f64.powf(0.82) * 0.42f64.powf(2.2) * (63.0 - 11.1);
 
-    assert_relative_eq!(schedule.resistance.governing_n, resistance_n, max_relative = 1e-3);
+    assert_relative_eq!(
+        schedule.resistance.governing_n,
+        resistance_n,
+        max_relative = 1e-3
+    );
     let corner = schedule
         .zone_pressures
         .iter()
@@ -50,6 +57,10 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     let demand_n = net_kpa * 610.0 * 32.0 / 28.0 * 125.0 / 1000.0;
     // The governing stretch may carry slightly more than the equal-span strip (the closing bay at the
     // gable end is shorter), never less.
-    assert!(row.demand_n >= demand_n * 0.999 && row.demand_n <= resistance_n * 1.000_001, "{}", row.demand_n);
+    assert!(
+        row.demand_n >= demand_n * 0.999 && row.demand_n <= resistance_n * 1.000_001,
+        "{}",
+        row.demand_n
+    );
     assert!(row.utilization > 0.95 && row.utilization <= 1.0);
 }
