@@ -250,6 +250,62 @@ fn capacity_refuses_end_grain_and_long_term_load() {
 }
 
 #[test]
+fn capacity_json_for_the_fema_example_nail() {
+    // FEMA P-55 (4th ed., 2011) Vol. II Example 9.1 (checked): 8d common in G = 0.42 framing, NDS withdrawal
+    // with C_D = 1.6 is about 66 lb per nail at 2 in penetration. `hem-fir` here is NDS G = 0.43, so
+    // expect 66 lb x (0.43/0.42)^2.5 = 70 lb within rounding of the nail diameter.
+    let output = deckhold()
+        .args([
+            "capacity",
+            "--basis",
+            "asce7-22-nds2018-asd",
+            "--nail",
+            "8d-common",
+            "--species",
+            "hem-fir",
+            "--penetration-in",
+            "2",
+            "--json",
+        ])
+        .output()
+        .expect("runs");
+    assert!(
+        output.status.success(),
+        "{}",
+        String::from_utf8_lossy(&output.stderr)
+    );
+    let value = json_of(&output.stdout);
+    let withdrawal_lbf = value["withdrawal_lbf"].as_f64().expect("lbf twin");
+    assert!(
+        (withdrawal_lbf - 66.0 * (0.43f64 / 0.42).powf(2.5)).abs() < 2.0,
+        "{withdrawal_lbf}"
+    );
+    assert!(value["pull_through_n"].is_null(), "no deck given");
+    assert!(value["factors"]
+        .as_object()
+        .is_some_and(|f| f.contains_key("C_D")));
+    assert_eq!(value["governing_mode"], "withdrawal");
+}
+
+#[test]
+fn capacity_refuses_a_negative_penetration_naming_it() {
+    deckhold()
+        .args([
+            "capacity",
+            "--basis",
+            "nbc2020-o86",
+            "--nail",
+            "common-63x3.25",
+            "--species",
+            "spf",
+            "--penetration-mm=-5",
+        ])
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("penetration"));
+}
+
+#[test]
 fn catalog_lists_the_required_nails() {
     let output = deckhold()
         .args(["catalog", "nails"])

@@ -61,14 +61,19 @@ pub fn run(args: &CapacityArgs) -> Result<Outcome> {
     let resistance = nail_resistance(&input)?;
     let us = basis.is_us();
     if args.json {
-        let factors: Vec<serde_json::Value> = resistance
+        let factor_details: Vec<serde_json::Value> = resistance
             .factors
             .iter()
             .map(
                 |f| json!({ "name": f.name, "value": f.value, "unit": f.unit, "source": f.source }),
             )
             .collect();
-        let value = json!({
+        let factors: serde_json::Map<String, serde_json::Value> = resistance
+            .factors
+            .iter()
+            .map(|f| (f.name.clone(), json!(f.value)))
+            .collect();
+        let mut value = json!({
             "basis": basis.id(),
             "method": resistance.method.as_str(),
             "nail": nail.id,
@@ -80,9 +85,16 @@ pub fn run(args: &CapacityArgs) -> Result<Outcome> {
             "governing_n": resistance.governing_n,
             "governing_mode": resistance.governing_mode.as_str(),
             "factors": factors,
+            "factor_details": factor_details,
             "warnings": resistance.warnings,
             "cautions": deckhold_schedule::standard_cautions(),
         });
+        if us {
+            value["withdrawal_lbf"] = json!(resistance.withdrawal_lbf());
+            value["pull_through_lbf"] = json!(resistance.pull_through_lbf());
+            value["governing_lbf"] = json!(resistance.governing_lbf());
+            value["penetration_in"] = json!(penetration_mm / MM_PER_IN);
+        }
         println!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
