@@ -83,6 +83,13 @@ pub(super) fn framing_gravity(species: &Species) -> Result<&SourcedValue, Fasten
         })
 }
 
+/// deckhold's limit, stricter than the NDS: nails in withdrawal under sustained load creep out of the
+/// wood, and roof sheathing nails carry wind, so permanent withdrawal is refused (common practice, no
+/// source; NDS 2018 Table 2.3.2 itself gives C_D = 0.9 for permanent loads, from memory).
+const NDS_NO_PERMANENT_WITHDRAWAL_RULE: &str =
+    "deckhold does not rely on nail withdrawal under permanent (sustained) load; NDS 2018 Table 2.3.2 C_D = 0.9 \
+     exists but sustained withdrawal is outside this tool's method: use short-term (wind) loading";
+
 /// C_D for ASD, or K_F, φ_z and λ for LRFD: the factors that set the format and the load duration.
 pub(super) fn format_factors(method: Method, load: LoadDuration) -> Vec<&'static Coefficient> {
     match method {
@@ -108,6 +115,13 @@ pub(super) fn withdrawal(
     penetration_mm: f64,
 ) -> Result<ModeResult, FastenError> {
     let nail = input.nail;
+    if input.load == LoadDuration::Permanent {
+        return Err(FastenError::LoadDurationNotPermitted {
+            method: "NDS 2018 (as deckhold applies it)",
+            load: input.load.as_str(),
+            rule: NDS_NO_PERMANENT_WITHDRAWAL_RULE,
+        });
+    }
     let gravity = framing_gravity(input.species)?;
     let equation = NdsWithdrawalEquation::for_nail(nail);
     let mut warnings = Vec::new();

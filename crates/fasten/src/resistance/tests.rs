@@ -317,16 +317,26 @@ fn o86_refuses_long_term_loads() {
 }
 
 #[test]
-fn nds_accepts_long_term_loads_with_their_factors() {
-    // NDS 2018 Table 2.3.2: C_D = 1.0 (ten years), 0.9 (permanent) vs 1.6 (wind) (from memory).
+fn nds_accepts_ten_year_loads_and_refuses_permanent_withdrawal() {
+    // NDS 2018 Table 2.3.2: C_D = 1.0 (ten years) vs 1.6 (wind) (from memory).
     let short = resist(&base(Method::NdsAsd, "8d-common", "spf", 45.0));
-    let mut permanent = base(Method::NdsAsd, "8d-common", "spf", 45.0);
-    permanent.load = LoadDuration::Permanent;
+    let mut ten_years = base(Method::NdsAsd, "8d-common", "spf", 45.0);
+    ten_years.load = LoadDuration::Standard;
     assert_relative_eq!(
-        resist(&permanent).withdrawal_n / short.withdrawal_n,
-        0.9 / 1.6,
+        resist(&ten_years).withdrawal_n / short.withdrawal_n,
+        1.0 / 1.6,
         max_relative = 1e-12
     );
+    // Sustained withdrawal is refused by deckhold (common practice, no source).
+    for method in [Method::NdsAsd, Method::NdsLrfd] {
+        let mut permanent = base(method, "8d-common", "spf", 45.0);
+        permanent.load = LoadDuration::Permanent;
+        let error = nail_resistance(&permanent).expect_err("permanent refused");
+        assert!(
+            matches!(error, FastenError::LoadDurationNotPermitted { .. }),
+            "{error}"
+        );
+    }
 }
 
 #[test]
