@@ -99,3 +99,31 @@ fn every_broken_fixture_is_refused_naming_its_key() {
         assert!(error.contains(words), "{name}: {error}");
     }
 }
+
+#[test]
+fn worse_zones_never_get_wider_spacing_than_milder_ones() {
+    // The zones' order of severity (corner >= edge >= interior suction) is the standards' own
+    // (NBC 2020 Figure 4.1.7.6.-C, ASCE 7-22 Figure 30.3-2 series, from memory); the spacing must follow it.
+    for name in ["demo-ca-gable.json", "us-hip.json", "ca-l-shaped-flat.json"] {
+        let project = parse_project(&fixture_text(name)).expect("parses");
+        let schedule = schedule_for(&project, &run_job(&project).expect("runs"));
+        for role in ["panel-edge", "intermediate"] {
+            let spacing = |label: &str| {
+                schedule
+                    .zones
+                    .iter()
+                    .find(|zone| zone.label == label && zone.support_role == role)
+                    .map(|zone| zone.spacing_mm.unwrap_or(0.0))
+            };
+            let (Some(corner), Some(edge), Some(interior)) =
+                (spacing("corner"), spacing("edge"), spacing("interior"))
+            else {
+                panic!("{name}: every roof has corner, edge and interior zones");
+            };
+            assert!(
+                corner <= edge && edge <= interior,
+                "{name} {role}: {corner} {edge} {interior}"
+            );
+        }
+    }
+}

@@ -139,6 +139,16 @@ proptest! {
         for role in &weak.zone_roles {
             let other = strong.zone_role(role.zone_index, role.support_role).expect("same roles");
             prop_assert!(other.spacing_mm.unwrap_or(0.0) >= role.spacing_mm.unwrap_or(0.0));
+            // Prescriptive maxima and the splitting minimum always hold (NBC 2020 Table 9.23.3.5.-A and
+            // CSA O86:19 12.9.2, from memory).
+            if let Some(spacing_mm) = role.spacing_mm {
+                let maximum_mm = match role.support_role {
+                    SupportRole::PanelEdge => rules.max_panel_edge_mm,
+                    SupportRole::Intermediate => rules.max_intermediate_mm,
+                };
+                prop_assert!(spacing_mm <= maximum_mm && spacing_mm >= rules.min_mm);
+                prop_assert!(role.utilization <= 1.0 + 1e-9);
+            }
         }
     }
 }
