@@ -30,10 +30,30 @@ pub enum ProjectError {
 pub enum JobError {
     #[error(transparent)]
     Project(#[from] ProjectError),
-    #[error("wind: {0}")]
-    Wind(#[from] deckhold_wind::WindError),
+    // The inner message is printed in the variant's own text and not chained as a source, so that a
+    // report of the error chain says it once.
+    #[error("wind zones: {0}")]
+    Wind(deckhold_wind::WindError),
     #[error("nail resistance: {0}")]
-    Fasten(#[from] deckhold_fasten::FastenError),
+    Fasten(deckhold_fasten::FastenError),
     #[error("nail spacing: {0}")]
-    Spacing(#[from] deckhold_fasten::spacing::SpacingError),
+    Spacing(deckhold_fasten::spacing::SpacingError),
+}
+
+impl From<deckhold_wind::WindError> for JobError {
+    fn from(error: deckhold_wind::WindError) -> Self {
+        JobError::Wind(error)
+    }
+}
+
+impl From<deckhold_fasten::FastenError> for JobError {
+    fn from(error: deckhold_fasten::FastenError) -> Self {
+        JobError::Fasten(error)
+    }
+}
+
+impl From<deckhold_fasten::spacing::SpacingError> for JobError {
+    fn from(error: deckhold_fasten::spacing::SpacingError) -> Self {
+        JobError::Spacing(error)
+    }
 }

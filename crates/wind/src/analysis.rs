@@ -149,7 +149,7 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
             return Err(WindError::range(
                 "roof.slope_deg",
                 format!(
-                    "{} deg is outside 0..7 deg for a flat roof; use gable, hip or monoslope",
+                    "{:.1} deg is outside 0..7 deg for a flat roof; use gable, hip or monoslope",
                     roof.slope_deg
                 ),
             ));
@@ -158,7 +158,7 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
             return Err(WindError::unsupported(
                 "roof.shape",
                 format!(
-                    "monoslope roofs over 3 deg ({} deg given) need the monoslope figures (NBC 2020 Figure 4.1.7.6.-G, ASCE 7-22 Figure 30.3-5), which are not implemented",
+                    "monoslope roofs over 3 deg ({:.1} deg given) need the monoslope figures (NBC 2020 Figure 4.1.7.6.-G, ASCE 7-22 Figure 30.3-5), which are not implemented",
                     roof.slope_deg
                 ),
             ));
