@@ -30,21 +30,33 @@ pub struct NailOutcome {
 }
 
 impl NailOutcome {
-    /// Why this nail does not work, in one line (None when it works).
-    pub fn shortfall(&self) -> Option<String> {
+    /// Why this nail does not work, in one line naming the zones (None when it works).
+    pub fn shortfall(&self, wind: &WindAnalysis) -> Option<String> {
         if self.feasible {
             return None;
         }
         match (&self.resistance, &self.plan) {
             (Err(reason), _) => Some(reason.clone()),
             (Ok(_), Some(plan)) => {
-                let failing = plan
+                let failing: Vec<String> = plan
                     .zone_roles
                     .iter()
                     .filter(|role| role.spacing_mm.is_none())
-                    .count();
+                    .map(|role| {
+                        let label = wind
+                            .zones
+                            .get(role.zone_index)
+                            .map_or("?", |zone| zone.label.as_str());
+                        format!(
+                            "{label} {} (utilization {:.2} at the closest spacing)",
+                            deckhold_fasten::spacing::role_name(role.support_role),
+                            role.utilization
+                        )
+                    })
+                    .collect();
                 Some(format!(
-                    "no practical spacing works in {failing} zone and support combinations"
+                    "no practical spacing works in {}",
+                    failing.join(", ")
                 ))
             }
             (Ok(_), None) => Some("not planned".to_string()),

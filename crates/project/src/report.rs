@@ -64,8 +64,18 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     if let Ok(resistance) = &outcome.resistance {
         warnings.extend(resistance.warnings.iter().cloned());
     }
-    if let Some(reason) = outcome.shortfall() {
-        warnings.push(format!("{}: {reason}", nail.id));
+    for (index, candidate) in job.candidates.iter().enumerate() {
+        let Some(reason) = candidate.shortfall(wind) else {
+            continue;
+        };
+        if index < job.chosen {
+            warnings.push(format!(
+                "{} (preferred) is not used: {reason}; the schedule uses {}",
+                candidate.nail.id, nail.id
+            ));
+        } else if index == job.chosen {
+            warnings.push(format!("{}: {reason}", nail.id));
+        }
     }
 
     let mut provenance = vec![format!("Nail {}: {}", nail.id, nail.provenance())];
