@@ -6,7 +6,7 @@ use crate::job::{Job, NailOutcome};
 use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
 use deckhold_fasten::layout::SupportRole;
-use deckhold_fasten::spacing::{role_name, DeckPlan};
+use deckhold_fasten::spacing::{role_name, DeckPlan, RafterLine};
 use deckhold_schedule::{
     standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
     ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
@@ -316,21 +316,12 @@ fn plan_view(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> PlanView {
             end_m: line.plan_end_m,
         });
         // Panel end joints: where two panels meet on the line (two rows of nails).
-        let plan_at = |along_m: f64| -> [f64; 2] {
-            let fraction = if line.length_m > 0.0 {
-                along_m / line.length_m
-            } else {
-                0.0
-            };
-            [
-                line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
-                line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
-            ]
-        };
         for segment in &line.segments {
             if segment.support_role == SupportRole::PanelEdge && segment.rows == 2 {
-                view.panel_joints_m
-                    .push([plan_at(segment.from_m), plan_at(segment.to_m)]);
+                view.panel_joints_m.push([
+                    plan_point(line, segment.from_m),
+                    plan_point(line, segment.to_m),
+                ]);
             }
         }
     }
@@ -347,21 +338,28 @@ fn plan_view(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> PlanView {
         let (Some(first), Some(last)) = (plane_lines.first(), plane_lines.last()) else {
             continue;
         };
-        let point_on = |line: &deckhold_fasten::spacing::RafterLine| -> Option<[f64; 2]> {
-            if course.from_m > line.length_m || line.length_m <= 0.0 {
-                return None;
-            }
-            let fraction = course.from_m / line.length_m;
-            Some([
-                line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
-                line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
-            ])
+        let point_on = |line: &RafterLine| -> Option<[f64; 2]> {
+            (course.from_m <= line.length_m && line.length_m > 0.0)
+                .then(|| plan_point(line, course.from_m))
         };
         if let (Some(a), Some(b)) = (point_on(first), point_on(last)) {
             view.course_lines_m.push([a, b]);
         }
     }
     view
+}
+
+/// The plan point `along_m` up the slope from the line's low end (the line is straight in plan).
+fn plan_point(line: &RafterLine, along_m: f64) -> [f64; 2] {
+    let fraction = if line.length_m > 0.0 {
+        along_m / line.length_m
+    } else {
+        0.0
+    };
+    [
+        line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
+        line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
+    ]
 }
 
 fn input_rows(project: &Project) -> Vec<InputRow> {
