@@ -277,22 +277,24 @@ pub(crate) fn draw_plan(
         .max()
         .unwrap_or(0);
     let number_w = width_mm(&max_number.to_string(), Font::Regular, NUMBER_PT);
-    let has_numbers = !plan.rafter_lines.is_empty();
-    let bottom_numbers = if has_numbers && vertical_lines {
-        NUMBER_BAND_MM
-    } else {
-        0.0
-    };
-    let left_numbers = if has_numbers && !vertical_lines {
-        number_w + 2.0
-    } else {
-        0.0
-    };
+    // Each line is numbered beside one of its ends (see `label_side`); leave room on each side that
+    // carries numbers.
+    let plan_center_m = [(x0 + x1) / 2.0, (y0 + y1) / 2.0];
+    let sides: Vec<LabelSide> = plan
+        .rafter_lines
+        .iter()
+        .map(|line| label_side(line, plan_center_m))
+        .collect();
+    let band = |side: LabelSide, size: f64| if sides.contains(&side) { size } else { 0.0 };
+    let bottom_numbers = band(LabelSide::Below, NUMBER_BAND_MM);
+    let top_numbers = band(LabelSide::Above, NUMBER_BAND_MM);
+    let left_numbers = band(LabelSide::Left, number_w + 2.0);
+    let right_numbers = band(LabelSide::Right, number_w + 2.0);
     let plot = Area {
         x: area.x + left_numbers + DIMENSION_BAND_MM,
         y: area.y + SCALE_BAND_MM + DIMENSION_BAND_MM + bottom_numbers,
-        w: area.w - left_numbers - DIMENSION_BAND_MM - 2.0,
-        h: area.h - SCALE_BAND_MM - DIMENSION_BAND_MM - bottom_numbers - 2.0,
+        w: area.w - left_numbers - right_numbers - DIMENSION_BAND_MM - 2.0,
+        h: area.h - SCALE_BAND_MM - DIMENSION_BAND_MM - bottom_numbers - top_numbers - 2.0,
     };
     let span = [(x1 - x0).max(1e-3), (y1 - y0).max(1e-3)];
     let needed = (span[0] * 1000.0 / plot.w).max(span[1] * 1000.0 / plot.h);
@@ -376,8 +378,14 @@ pub(crate) fn draw_plan(
         [low[0], low[1], high[0], high[1]]
     };
     let mut obstacles = Vec::new();
-    let numbered_every =
-        draw_line_numbers(canvas, schedule, &transform, vertical_lines, &mut obstacles);
+    let numbered_every = draw_line_numbers(
+        canvas,
+        schedule,
+        &transform,
+        vertical_lines,
+        plan_center_m,
+        &mut obstacles,
+    );
     let lowest = draw_dimensions(
         canvas,
         schedule,
@@ -421,11 +429,41 @@ pub(crate) fn draw_plan(
 
 /// Numbers at the low (vertical lines) or left (horizontal lines) end of the framing lines: every line
 /// when there is room, else every 2nd, 5th, 10th ... counted from the first.
+/// Where a line's number goes.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum LabelSide {
+    Below,
+    Above,
+    Left,
+    Right,
+}
+
+/// A line is numbered beyond the end farther from the middle of the roof: the eave end of a rafter, so
+/// that the numbers of the two planes of a gable sit at their own eaves and not together along the ridge.
+fn label_side(line: &crate::PlanLine, center_m: [f64; 2]) -> LabelSide {
+    let along_y =
+        (line.end_m[1] - line.start_m[1]).abs() >= (line.end_m[0] - line.start_m[0]).abs();
+    let axis = usize::from(along_y);
+    let (low, high) = if line.start_m[axis] <= line.end_m[axis] {
+        (line.start_m[axis], line.end_m[axis])
+    } else {
+        (line.end_m[axis], line.start_m[axis])
+    };
+    let at_high_end = (high - center_m[axis]).abs() > (low - center_m[axis]).abs() + 1e-6;
+    match (along_y, at_high_end) {
+        (true, false) => LabelSide::Below,
+        (true, true) => LabelSide::Above,
+        (false, false) => LabelSide::Left,
+        (false, true) => LabelSide::Right,
+    }
+}
+
 fn draw_line_numbers(
     canvas: &mut Canvas,
     schedule: &Schedule,
     transform: &Transform,
     vertical_lines: bool,
+    center_m: [f64; 2],
     obstacles: &mut Vec<Area>,
 ) -> u32 {
     let mut lines: Vec<_> = schedule.plan.rafter_lines.iter().collect();
@@ -472,7 +510,41 @@ fn draw_line_numbers(
         let (a, b) = (transform.page(line.start_m), transform.page(line.end_m));
         let text = line.number.to_string();
         let w = width_mm(&text, Font::Regular, NUMBER_PT);
-        if vertical_lines {
+        let side = label_side(line, center_m);
+        if side == LabelSide::Above {
+            let high = if a[1] >= b[1] { a } else { b };
+            let baseline = high[1] + 1.0;
+            canvas.text(
+                high[0],
+                baseline,
+                &text,
+                Font::Regular,
+                NUMBER_PT,
+                Align::Center,
+            );
+            obstacles.push(Area {
+                x: high[0] - w / 2.0,
+                y: baseline - 0.4,
+                w,
+                h: 2.6,
+            });
+        } else if side == LabelSide::Right {
+            let right = if a[0] >= b[0] { a } else { b };
+            canvas.text(
+                right[0] + 1.2,
+                right[1] - 0.75,
+                &text,
+                Font::Regular,
+                NUMBER_PT,
+                Align::Left,
+            );
+            obstacles.push(Area {
+                x: right[0] + 1.2,
+                y: right[1] - 1.2,
+                w,
+                h: 2.6,
+            });
+        } else if side == LabelSide::Below {
             let low = if a[1] <= b[1] { a } else { b };
             let baseline = low[1] - 3.0;
             canvas.text(
