@@ -968,3 +968,45 @@ mod tests {
         assert_eq!(notes.scale_denominator, None);
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::PlanLine;
+
+    fn line(start_m: [f64; 2], end_m: [f64; 2]) -> PlanLine {
+        PlanLine {
+            number: 1,
+            start_m,
+            end_m,
+        }
+    }
+
+    #[test]
+    fn each_gable_plane_is_numbered_at_its_own_eave() {
+        // A 10 m deep gable, ridge at y = 5: the south rafter runs 0 -> 5, the north one 10 -> 5.
+        let center = [9.0, 5.0];
+        assert_eq!(
+            label_side(&line([2.0, 0.0], [2.0, 5.0]), center),
+            LabelSide::Below
+        );
+        assert_eq!(
+            label_side(&line([2.0, 10.0], [2.0, 5.0]), center),
+            LabelSide::Above
+        );
+        // Hip-end jacks run along x: numbered at their eave, left or right.
+        assert_eq!(
+            label_side(&line([0.0, 3.0], [2.0, 3.0]), center),
+            LabelSide::Left
+        );
+        assert_eq!(
+            label_side(&line([18.0, 3.0], [16.0, 3.0]), center),
+            LabelSide::Right
+        );
+        // A joist across a flat roof: both ends equally far, numbered below.
+        assert_eq!(
+            label_side(&line([2.0, 0.0], [2.0, 10.0]), center),
+            LabelSide::Below
+        );
+    }
+}
