@@ -970,7 +970,7 @@ mod tests {
 }
 
 #[cfg(test)]
-mod tests {
+mod label_side_tests {
     use super::*;
     use crate::PlanLine;
 
