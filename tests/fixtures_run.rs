@@ -127,3 +127,34 @@ fn worse_zones_never_get_wider_spacing_than_milder_ones() {
         }
     }
 }
+
+#[test]
+fn a_per_zone_pattern_overrides_the_all_zones_spacing() {
+    let mut value: serde_json::Value =
+        serde_json::from_str(&fixture_text("ca-existing-pattern.json")).expect("JSON");
+    value["existing"]["zones"] = serde_json::json!({
+        "corner": { "edge_spacing_mm": 100, "intermediate_spacing_mm": 100 }
+    });
+    let project = deckhold_project::project_from_value(&value).expect("valid");
+    let pattern = project.existing.clone().expect("existing");
+    let wind = deckhold_wind::analyze(&project.wind).expect("wind");
+    let checked = check_pattern(&project, &wind, &pattern).expect("checks");
+    for row in &checked.rows {
+        let expected = match (row.label.as_str(), row.support_role) {
+            ("corner", _) => 100.0,
+            (_, "panel-edge") => 150.0,
+            _ => 300.0,
+        };
+        assert_eq!(
+            row.given_spacing_mm, expected,
+            "{} {}",
+            row.label, row.support_role
+        );
+    }
+    // Retrofit: a failing zone gets the nails to add between each pair of existing ones.
+    for row in checked.rows.iter().filter(|row| row.utilization > 1.0) {
+        if let (Some(needed), Some(added)) = (row.required_spacing_mm, row.added_nails_per_gap) {
+            assert!(row.given_spacing_mm / f64::from(added + 1) <= needed + 1e-9);
+        }
+    }
+}
