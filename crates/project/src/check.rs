@@ -156,6 +156,13 @@ pub fn check_pattern(
             added_nails_per_gap,
         });
     }
+    // Worst zones first, panel edges before intermediate supports, as on the schedule.
+    rows.sort_by_key(|row| {
+        (
+            crate::report::zone_order(&row.label),
+            row.support_role != "panel-edge",
+        )
+    });
     Ok(PatternCheck {
         nail,
         penetration_mm,

@@ -252,7 +252,7 @@ fn zone_rows(wind: &WindAnalysis, plan: &DeckPlan, outcome: &NailOutcome) -> Vec
 }
 
 /// Worst zones first on the crew's sheet.
-fn zone_order(label: &str) -> u32 {
+pub(crate) fn zone_order(label: &str) -> u32 {
     match label {
         "corner" => 0,
         "edge" => 1,
