@@ -345,6 +345,22 @@ fn init_writes_a_project_that_runs_and_never_overwrites() {
     let path = folder.path().join("project.json");
     deckhold().arg("init").arg(&path).assert().success();
     deckhold().arg("run").arg(&path).assert().success();
+    // The template shows every block of the project file, `existing` included, so `check` runs on it too.
+    let text = std::fs::read_to_string(&path).expect("template");
+    for key in [
+        "\"project\"",
+        "\"coefficient_overrides\"",
+        "\"existing\"",
+        "\"runs_along\"",
+        "\"between_mm\"",
+    ] {
+        assert!(text.contains(key), "{key}");
+    }
+    deckhold()
+        .arg("check")
+        .arg(&path)
+        .assert()
+        .code(predicate::in_iter([0, 1]));
     deckhold().arg("init").arg(&path).assert().code(2);
     let us = folder.path().join("us.json");
     deckhold()

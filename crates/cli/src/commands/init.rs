@@ -7,8 +7,10 @@ use crate::args::InitArgs;
 use crate::output::write_new_file;
 use crate::Outcome;
 
-/// The US-basis example: an invented hip-roof house (ASCE 7-22 with NDS 2018, ASD).
-const US_EXAMPLE_JSON: &str = include_str!("../../../../fixtures/us-hip.json");
+/// The Canadian template: the demo workshop with every key of the project file (NBC 2020 with CSA O86).
+const CA_TEMPLATE_JSON: &str = include_str!("../../../../fixtures/template-ca.json");
+/// The US template: an invented hip-roof duplex with every key, US units (ASCE 7-22 with NDS 2018, ASD).
+const US_TEMPLATE_JSON: &str = include_str!("../../../../fixtures/template-us.json");
 
 pub fn run(args: &InitArgs) -> Result<Outcome> {
     let path = args
@@ -16,9 +18,9 @@ pub fn run(args: &InitArgs) -> Result<Outcome> {
         .clone()
         .unwrap_or_else(|| PathBuf::from("project.json"));
     let text = if args.us {
-        US_EXAMPLE_JSON
+        US_TEMPLATE_JSON
     } else {
-        deckhold_project::DEMO_PROJECT_JSON
+        CA_TEMPLATE_JSON
     };
     write_new_file(&path, text.as_bytes())?;
     eprintln!(
