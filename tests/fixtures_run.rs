@@ -11,6 +11,8 @@ fn every_good_fixture_runs_to_a_schedule_with_cautions() {
         "ca-l-shaped-flat.json",
         "ca-existing-pattern.json",
         "ca-no-feasible-nail.json",
+        "template-ca.json",
+        "template-us.json",
     ] {
         let project =
             parse_project(&fixture_text(name)).unwrap_or_else(|error| panic!("{name}: {error}"));
