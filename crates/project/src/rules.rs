@@ -25,16 +25,21 @@ pub const O86_MIN_SPACING_DIAMETERS: f64 = 20.0;
 /// from memory); deckhold assumes 2x framing, so 3 in is the closest spacing it gives.
 pub const US_MIN_SPACING_IN: f64 = 3.0;
 
+/// Inches to mm rounded to 0.1 µm, so that 6 in prints as 152.4 mm and not 152.39999999999998.
+fn mm_from_in(inch: f64) -> f64 {
+    (inch * MM_PER_IN * 1e4).round() / 1e4
+}
+
 /// The rules for one basis and a nail of `shank_diameter_mm`.
 pub fn spacing_rules(basis: Basis, shank_diameter_mm: f64) -> SpacingRules {
     if basis.is_us() {
         SpacingRules {
             increments_mm: US_INCREMENTS_IN
                 .iter()
-                .map(|inch| inch * MM_PER_IN)
+                .map(|inch| mm_from_in(*inch))
                 .collect(),
-            max_panel_edge_mm: US_MAX_EDGE_IN * MM_PER_IN,
-            max_intermediate_mm: US_MAX_INTERMEDIATE_IN * MM_PER_IN,
+            max_panel_edge_mm: mm_from_in(US_MAX_EDGE_IN),
+            max_intermediate_mm: mm_from_in(US_MAX_INTERMEDIATE_IN),
             min_mm: US_MIN_SPACING_IN * MM_PER_IN,
             min_effective_area_m2: 0.0,
         }

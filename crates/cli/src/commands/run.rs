@@ -82,7 +82,9 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
                 "support_role": zone.support_role,
                 "nail": zone.nail_id,
                 "spacing_mm": zone.spacing_mm,
-                "spacing_in": zone.spacing_mm.map(|mm| mm / deckhold_project::units::MM_PER_IN),
+                "spacing_in": zone
+                    .spacing_mm
+                    .map(|mm| (mm / deckhold_project::units::MM_PER_IN * 1000.0).round() / 1000.0),
                 "net_uplift_kpa": zone.net_uplift_kpa,
                 "demand_n": zone.demand_n,
                 "resistance_n": zone.resistance_n,
