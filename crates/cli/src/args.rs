@@ -9,7 +9,15 @@ use std::path::PathBuf;
 /// of each nail, and sizes the nail spacing on every rafter line. Its output is a design aid for a
 /// qualified person; check it against the governing code and have it reviewed where the law requires.
 #[derive(Debug, Parser)]
-#[command(name = "deckhold", version, about, long_about)]
+#[command(
+    name = "deckhold",
+    version,
+    about,
+    long_about,
+    after_help = "Exit status: 0 done, every zone works; 1 the design does not work (a plan check fails, or no \
+                  practical spacing works in some zone); 2 the input was refused.\n\
+                  Without PROJECT, run, zones and compare use the built-in demo project (invented)."
+)]
 pub struct Cli {
     #[command(subcommand)]
     pub command: Command,
