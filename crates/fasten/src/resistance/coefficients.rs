@@ -162,8 +162,7 @@ pub const NDS_W_SMOOTH_CARBON: Coefficient = checked(
     1380.0,
     "lb/in",
     "NDS 2018 12.2.3.1 Eq. 12.2-3, W = 1380 G^(5/2) D (equation checked against engineeringtoolbox.com \
-     'Nails and Spikes - Withdrawal Force', the xcfem/xc NDS-2018 transcription and the WoodWorks \
-     Shearwalls help page)",
+     'Nails and Spikes - Withdrawal Force' and the xcfem/xc NDS-2018 transcription)",
 );
 pub const NDS_W_SMOOTH_CARBON_EXPONENT: f64 = 2.5;
 
