@@ -242,7 +242,7 @@ mod tests {
 
     #[test]
     fn smooth_8d_common_matches_the_nds_withdrawal_table() {
-        // NDS 2018 Table 12.2C, 0.131 in nail (from memory, NDS 2018; the brief calls it 12.2A):
+        // NDS 2018 Table 12.2C, 0.131 in nail (from memory, NDS 2018; often cited as Table 12.2A):
         // 21 lb/in at G = 0.42, 32 lb/in at G = 0.50, 41 lb/in at G = 0.55. The table rounds Eq. 12.2-3.
         let w = |g| reference_withdrawal_lbf_per_in(NdsWithdrawalEquation::SmoothCarbon, g, 0.131);
         assert_eq!(w(0.42).round(), 21.0);

@@ -354,7 +354,7 @@ fn a_hundred_lines_render_quickly() {
         render(&schedule);
     }
     let each = start.elapsed() / runs;
-    // The brief asks for well under 20 ms in release; debug builds of this crate are several times slower.
+    // The PDF should take well under 20 ms in release; debug builds of this crate are several times slower.
     let limit_ms = if cfg!(debug_assertions) { 400 } else { 20 };
     assert!(each.as_millis() < limit_ms, "{each:?} per PDF");
 }
