@@ -96,6 +96,31 @@ fn a_project_where_no_nail_works_exits_1_and_says_so() {
 }
 
 #[test]
+fn nails_too_short_for_the_deck_are_named_and_the_run_exits_1() {
+    let mut value: serde_json::Value = serde_json::from_str(
+        &std::fs::read_to_string(fixture("demo-ca-gable.json")).expect("demo"),
+    )
+    .expect("JSON");
+    value["deck"]["between_mm"] = serde_json::json!(95);
+    let folder = tempfile::tempdir().expect("temp dir");
+    let path = folder.path().join("thick.json");
+    std::fs::write(&path, value.to_string()).expect("write");
+    deckhold()
+        .arg("run")
+        .arg(&path)
+        .assert()
+        .code(1)
+        .stdout(predicate::str::contains("does not reach the framing"))
+        .stdout(predicate::str::contains("cannot be used"));
+    deckhold()
+        .arg("compare")
+        .arg(&path)
+        .assert()
+        .code(2)
+        .stderr(predicate::str::contains("minimum penetration"));
+}
+
+#[test]
 fn every_broken_project_is_refused_with_exit_2_naming_the_problem() {
     let cases = [
         ("malformed.json", "JSON"),

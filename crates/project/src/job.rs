@@ -248,6 +248,19 @@ fn work_nail(
     rules: &SpacingRules,
 ) -> Result<NailOutcome, JobError> {
     let penetration_mm = penetration_for(project, nail);
+    let through_mm = project.deck.thickness_mm + project.deck.between_mm;
+    if penetration_mm <= 0.0 {
+        return Ok(NailOutcome {
+            nail,
+            penetration_mm,
+            resistance: Err(format!(
+                "the {:.0} mm nail does not reach the framing through {through_mm:.1} mm of deck and layers",
+                nail.length_mm
+            )),
+            plan: None,
+            feasible: false,
+        });
+    }
     let input = resistance_input(project, nail, penetration_mm)?;
     let resistance = match deckhold_fasten::nail_resistance(&input) {
         Ok(resistance) => resistance,

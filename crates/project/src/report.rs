@@ -73,8 +73,8 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
                 "{} (preferred) is not used: {reason}; the schedule uses {}",
                 candidate.nail.id, nail.id
             ));
-        } else if index == job.chosen {
-            warnings.push(format!("{}: {reason}", nail.id));
+        } else if index == job.chosen || !job.feasible() {
+            warnings.push(format!("{}: {reason}", candidate.nail.id));
         }
     }
 

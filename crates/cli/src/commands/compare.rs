@@ -48,6 +48,14 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
     } else {
         args.nails.iter().map(|id| id.trim().to_string()).collect()
     };
+    if nail_ids.is_empty() {
+        anyhow::bail!(
+            "no catalog nail of this basis reaches the minimum penetration through {:.1} mm of deck and {:.1} mm between; \
+             name nails with --nails",
+            project.deck.thickness_mm,
+            project.deck.between_mm
+        );
+    }
     let job = run_job_with_nails(&project, &nail_ids).context("the nails could not be compared")?;
     let us = project.basis.is_us();
     let zone_names: Vec<String> = job

@@ -111,19 +111,26 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
 
 fn summary_text(schedule: &Schedule) -> String {
     let us = schedule.basis.units == deckhold_schedule::Units::Imperial;
-    let mut text = format!(
-        "{}\n{}\nNail: {} ({}), {:.0} N per nail ({})\n\n",
-        if schedule.project.name.is_empty() {
-            "Roof sheathing nailing schedule"
-        } else {
-            &schedule.project.name
-        },
-        schedule.basis.title,
-        schedule.nail.id,
-        schedule.nail.description,
-        schedule.resistance.governing_n,
-        schedule.resistance.governing_mode,
-    );
+    let title = if schedule.project.name.is_empty() {
+        "Roof sheathing nailing schedule"
+    } else {
+        &schedule.project.name
+    };
+    let nail_line = if schedule.resistance.governing_n > 0.0 {
+        format!(
+            "Nail: {} ({}), {:.0} N per nail ({})",
+            schedule.nail.id,
+            schedule.nail.description,
+            schedule.resistance.governing_n,
+            schedule.resistance.governing_mode,
+        )
+    } else {
+        format!(
+            "Nail: {} cannot be used (see the warnings below)",
+            schedule.nail.id
+        )
+    };
+    let mut text = format!("{title}\n{}\n{nail_line}\n\n", schedule.basis.title);
     let mut table = Table::new(&[
         "zone",
         "code",
