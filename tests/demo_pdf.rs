@@ -68,6 +68,11 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
         assert!(words.contains(&start), "caution missing: {caution}");
     }
     assert!(words.contains(&schedule.nail.id));
+    // The crew sheet has the sign-off a reviewer fills in (common practice, no source).
+    assert!(
+        words.contains("Reviewed and sealed by"),
+        "sign-off block on the crew sheet"
+    );
 
     // Page 1 as a greyscale raster: not blank, and with mid-grey zone fills present.
     let prefix = folder.path().join("page");

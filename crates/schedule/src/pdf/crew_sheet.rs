@@ -140,8 +140,59 @@ pub(crate) fn crew_sheet(
     }
     y = spacing_table(&mut canvas, schedule, column, y, imperial);
     y = line_legend(&mut canvas, schedule, column, y, &notes);
-    footnotes(&mut canvas, schedule, column, y, &notes, line_table_page);
+    y = footnotes(&mut canvas, schedule, column, y, &notes, line_table_page);
+    sign_off(&mut canvas, schedule, column, y);
     (canvas, notes)
+}
+
+/// Height of the sign-off block, mm.
+const SIGN_OFF_H_MM: f64 = 17.0;
+
+/// Who prepared the schedule, and blanks for the reviewer's name, seal and date, at the foot of the
+/// column: a schedule goes to the roof only after that review where the law requires one. Left out when
+/// the column is full.
+fn sign_off(canvas: &mut Canvas, schedule: &Schedule, column: Area, y: f64) {
+    if y - SIGN_OFF_H_MM < column.y {
+        return;
+    }
+    let rule = |canvas: &mut Canvas, from_x: f64, baseline: f64| {
+        canvas.line(
+            [from_x, baseline - 0.8],
+            [column.right(), baseline - 0.8],
+            0.2,
+            0.0,
+            super::canvas::Stroke::Solid,
+        );
+    };
+    let mut baseline = column.y + SIGN_OFF_H_MM - 4.0;
+    let prepared = if schedule.project.prepared_by.is_empty() {
+        "Prepared by:".to_string()
+    } else {
+        format!("Prepared by: {}", schedule.project.prepared_by)
+    };
+    canvas.text(
+        column.x,
+        baseline,
+        &super::text::fit(&prepared, Font::Regular, 7.5, column.w),
+        Font::Regular,
+        7.5,
+        Align::Left,
+    );
+    baseline -= 5.5;
+    let label = "Reviewed and sealed by (where the law requires):";
+    canvas.text(column.x, baseline, label, Font::Regular, 7.5, Align::Left);
+    rule(
+        canvas,
+        column.x + super::text::width_mm(label, Font::Regular, 7.5) + 1.5,
+        baseline,
+    );
+    baseline -= 5.5;
+    canvas.text(column.x, baseline, "Date:", Font::Regular, 7.5, Align::Left);
+    rule(
+        canvas,
+        column.x + super::text::width_mm("Date:", Font::Regular, 7.5) + 1.5,
+        baseline,
+    );
 }
 
 fn nail_block(
@@ -536,7 +587,7 @@ fn footnotes(
     mut y: f64,
     notes: &PlanNotes,
     line_table_page: usize,
-) {
+) -> f64 {
     let member = &schedule.framing_member;
     let first = schedule
         .plan
@@ -565,7 +616,7 @@ fn footnotes(
         let lines = wrap(&paragraph, Font::Regular, 7.5, column.w);
         let h = lines.len() as f64 * line_height_mm(7.5);
         if y - h < column.y {
-            return;
+            return y;
         }
         for line in lines {
             y -= line_height_mm(7.5);
@@ -573,6 +624,7 @@ fn footnotes(
         }
         y -= 1.0;
     }
+    y
 }
 
 #[cfg(test)]
