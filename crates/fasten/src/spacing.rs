@@ -566,6 +566,15 @@ mod tests {
         (planes, zones, framing, panel)
     }
 
+    /// A nail of the given resistance, 5 g.
+    fn test_nail(resistance_n: f64) -> NailOption {
+        NailOption {
+            id: "test".to_string(),
+            resistance_n,
+            mass_g: 5.0,
+        }
+    }
+
     fn si_rules() -> SpacingRules {
         SpacingRules {
             increments_mm: vec![300.0, 250.0, 200.0, 150.0, 125.0, 100.0, 75.0, 50.0],
@@ -579,11 +588,7 @@ mod tests {
     fn plan(pressure_kpa: f64, resistance_n: f64) -> DeckPlan {
         let (planes, zones, framing, panel) = flat_deck();
         let uplift = move |_: usize, _: f64| -> Result<f64, String> { Ok(pressure_kpa) };
-        let nail = NailOption {
-            id: "test".to_string(),
-            resistance_n,
-            mass_g: 5.0,
-        };
+        let nail = test_nail(resistance_n);
         plan_deck(
             &planes,
             &zones,
@@ -664,11 +669,7 @@ mod tests {
     fn no_increment_between_minimum_and_maximum_is_an_error() {
         let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(1.0) };
-        let nail = NailOption {
-            id: "test".to_string(),
-            resistance_n: 500.0,
-            mass_g: 5.0,
-        };
+        let nail = test_nail(500.0);
         let rules = SpacingRules {
             min_mm: 200.0,
             ..si_rules()
@@ -694,11 +695,7 @@ mod tests {
     fn an_uplift_error_names_the_zone() {
         let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Err("no curve".to_string()) };
-        let nail = NailOption {
-            id: "test".to_string(),
-            resistance_n: 500.0,
-            mass_g: 5.0,
-        };
+        let nail = test_nail(500.0);
         let error = plan_deck(
             &planes,
             &zones,
@@ -720,11 +717,7 @@ mod tests {
     fn a_checked_pattern_reports_its_utilization() {
         let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(3.0) };
-        let nail = NailOption {
-            id: "test".to_string(),
-            resistance_n: 400.0,
-            mass_g: 5.0,
-        };
+        let nail = test_nail(400.0);
         let pattern = |_: usize, role: SupportRole| match role {
             SupportRole::PanelEdge => 150.0,
             SupportRole::Intermediate => 300.0,

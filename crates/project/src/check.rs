@@ -3,7 +3,7 @@
 //! nails to add between the existing ones where it is not.
 
 use crate::error::JobError;
-use crate::job::{penetration_for, resistance_input, DeckGeometry};
+use crate::job::{net_uplift_kpa, penetration_for, resistance_input, DeckGeometry};
 use crate::project::{ExistingPattern, Project};
 use crate::rules::spacing_rules;
 use deckhold_fasten::layout::SupportRole;
@@ -60,11 +60,7 @@ pub fn check_pattern(
     let resistance =
         deckhold_fasten::nail_resistance(&resistance_input(project, nail, penetration_mm)?)?;
     let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
-    let uplift = |zone_index: usize, area_m2: f64| -> Result<f64, String> {
-        wind.uplift(zone_index, area_m2)
-            .map(|uplift| uplift.net_uplift_kpa)
-            .map_err(|error| error.to_string())
-    };
+    let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
     let given = |zone_index: usize, role: SupportRole| -> f64 {
         let label = wind
             .zones

@@ -285,6 +285,17 @@ fn work_nail(
     })
 }
 
+/// Net factored uplift of a zone at an effective area, in the form the spacing module asks for.
+pub(crate) fn net_uplift_kpa(
+    wind: &WindAnalysis,
+    zone_index: usize,
+    area_m2: f64,
+) -> Result<f64, String> {
+    wind.uplift(zone_index, area_m2)
+        .map(|uplift| uplift.net_uplift_kpa)
+        .map_err(|error| error.to_string())
+}
+
 /// Plans the deck for one nail of known factored resistance.
 pub fn plan_with_resistance(
     wind: &WindAnalysis,
@@ -293,11 +304,7 @@ pub fn plan_with_resistance(
     resistance_n: f64,
     rules: &SpacingRules,
 ) -> Result<DeckPlan, JobError> {
-    let uplift = |zone_index: usize, area_m2: f64| -> Result<f64, String> {
-        wind.uplift(zone_index, area_m2)
-            .map(|uplift| uplift.net_uplift_kpa)
-            .map_err(|error| error.to_string())
-    };
+    let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
     let option = NailOption {
         id: nail.id.to_string(),
         resistance_n,

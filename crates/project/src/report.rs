@@ -142,19 +142,13 @@ fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
     match footprint {
         Footprint::Rectangle { length_m, width_m } => (*length_m, *width_m),
         Footprint::Polygon { vertices_m } => {
-            let xs = vertices_m.iter().map(|p| p[0]);
-            let ys = vertices_m.iter().map(|p| p[1]);
-            let span = |values: &mut dyn Iterator<Item = f64>| {
-                let (lo, hi) = values.fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), v| {
-                    (lo.min(v), hi.max(v))
-                });
-                if hi >= lo {
-                    hi - lo
-                } else {
-                    0.0
-                }
+            // Parsing guarantees at least four finite points, so the spans are finite.
+            let span = |axis: usize| {
+                let values = vertices_m.iter().map(|point| point[axis]);
+                values.clone().fold(f64::NEG_INFINITY, f64::max)
+                    - values.fold(f64::INFINITY, f64::min)
             };
-            (span(&mut xs.into_iter()), span(&mut ys.into_iter()))
+            (span(0), span(1))
         }
     }
 }

@@ -46,3 +46,8 @@ pub fn spacing_text(spacing_mm: Option<f64>, us: bool) -> String {
         Some(spacing_mm) => format!("{spacing_mm:.0} mm o.c."),
     }
 }
+
+/// A spacing in inches for the JSON twins, rounded to 0.001 in.
+pub fn inches(spacing_mm: f64) -> f64 {
+    (spacing_mm / deckhold_project::units::MM_PER_IN * 1000.0).round() / 1000.0
+}

@@ -15,34 +15,34 @@ use deckhold_schedule::{rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions
 pub fn run(args: &RunArgs) -> Result<Outcome> {
     let mut stages: Vec<(&str, f64)> = Vec::new();
     let mut clock = Instant::now();
-    let mut lap = |name: &'static str, stages: &mut Vec<(&str, f64)>| {
+    let mut lap = |name: &'static str| {
         stages.push((name, clock.elapsed().as_secs_f64() * 1000.0));
         clock = Instant::now();
     };
     let project = load_project(args.project.as_deref())?;
-    lap("parse", &mut stages);
+    lap("parse");
     let job = run_job(&project).context("the job could not be run")?;
-    lap("wind + resistance + spacing", &mut stages);
+    lap("wind + resistance + spacing");
     let schedule = schedule_for(&project, &job);
-    lap("report data", &mut stages);
+    lap("report data");
 
     if let Some(folder) = &args.out {
         let mut files = vec![
             ("schedule.csv", schedule_csv(&schedule)?),
             ("rafter-lines.csv", rafter_lines_csv(&schedule)?),
         ];
-        lap("CSV", &mut stages);
+        lap("CSV");
         let options = PdfOptions {
             creation_date: schedule.project.date.clone(),
             document_id: format!("deckhold-{}", schedule.project.date),
         };
         files.push(("schedule.pdf", schedule_pdf(&schedule, &options)?));
-        lap("PDF", &mut stages);
+        lap("PDF");
         if args.json {
             files.push(("schedule.json", serde_json::to_vec_pretty(&schedule)?));
         }
         let written = write_all_atomically(folder, &files)?;
-        lap("write files", &mut stages);
+        lap("write files");
         for path in written {
             eprintln!("wrote {}", path.display());
         }
@@ -84,7 +84,7 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
                 "spacing_mm": zone.spacing_mm,
                 "spacing_in": zone
                     .spacing_mm
-                    .map(|mm| (mm / deckhold_project::units::MM_PER_IN * 1000.0).round() / 1000.0),
+                    .map(super::inches),
                 "net_uplift_kpa": zone.net_uplift_kpa,
                 "demand_n": zone.demand_n,
                 "resistance_n": zone.resistance_n,
