@@ -2,7 +2,7 @@
 //! properties the method must have (more wind never allows a wider spacing; a stronger nail never needs a
 //! closer one; no input makes the parser or the job panic).
 
-use deckhold_fasten::layout::SupportRole;
+use deckhold_deck::layout::SupportRole;
 use deckhold_project::job::{plan_with_resistance, DeckGeometry};
 use deckhold_project::rules::spacing_rules;
 use deckhold_project::{parse_project, run_job, DEMO_PROJECT_JSON};

@@ -1,4 +1,4 @@
-//! Nails, wood, per-nail withdrawal resistance (CSA O86, NDS) and nail spacing.
+//! Nails, wood and per-nail withdrawal resistance (CSA O86, NDS).
 //!
 //! The per-nail part: catalogs of nails, species groups and deck panels (data with provenance under
 //! `data/`), and [`nail_resistance`], which gives the factored or allowable resistance of one nail in
@@ -11,10 +11,6 @@ pub mod panel;
 pub mod penetration;
 pub mod resistance;
 pub mod species;
-
-pub mod beam;
-pub mod layout;
-pub mod spacing;
 
 pub use catalog::{
     nail, nails, panel, panels, species, species_groups, CatalogBasis, Confidence, SourcedValue,

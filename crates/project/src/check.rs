@@ -6,8 +6,8 @@ use crate::error::JobError;
 use crate::job::{net_uplift_kpa, penetration_for, resistance_input, DeckGeometry};
 use crate::project::{ExistingPattern, Project};
 use crate::rules::spacing_rules;
-use deckhold_fasten::layout::SupportRole;
-use deckhold_fasten::spacing::{check_deck, role_name, DeckPlan, NailOption};
+use deckhold_deck::layout::SupportRole;
+use deckhold_deck::spacing::{check_deck, role_name, DeckPlan, NailOption};
 use deckhold_fasten::{Nail, Resistance};
 use deckhold_wind::WindAnalysis;
 

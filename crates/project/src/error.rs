@@ -37,7 +37,7 @@ pub enum JobError {
     #[error("nail resistance: {0}")]
     Fasten(deckhold_fasten::FastenError),
     #[error("nail spacing: {0}")]
-    Spacing(deckhold_fasten::spacing::SpacingError),
+    Spacing(deckhold_deck::spacing::SpacingError),
 }
 
 impl From<deckhold_wind::WindError> for JobError {
@@ -52,8 +52,8 @@ impl From<deckhold_fasten::FastenError> for JobError {
     }
 }
 
-impl From<deckhold_fasten::spacing::SpacingError> for JobError {
-    fn from(error: deckhold_fasten::spacing::SpacingError) -> Self {
+impl From<deckhold_deck::spacing::SpacingError> for JobError {
+    fn from(error: deckhold_deck::spacing::SpacingError) -> Self {
         JobError::Spacing(error)
     }
 }

@@ -6,8 +6,8 @@
 use crate::error::JobError;
 use crate::project::{LinesAlong, MemberRole, Project, StaggerChoice};
 use crate::rules::spacing_rules;
-use deckhold_fasten::layout::{Axis, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion};
-use deckhold_fasten::spacing::{plan_deck, DeckPlan, NailOption, SpacingRules};
+use deckhold_deck::layout::{Axis, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion};
+use deckhold_deck::spacing::{plan_deck, DeckPlan, NailOption, SpacingRules};
 use deckhold_fasten::{
     DeckLayer, Grain, LoadDuration, MemberKind, Nail, Resistance, ResistanceInput, Service,
 };
@@ -49,7 +49,7 @@ impl NailOutcome {
                             .map_or("?", |zone| zone.label.as_str());
                         format!(
                             "{label} {} (utilization {:.2} at the closest spacing)",
-                            deckhold_fasten::spacing::role_name(role.support_role),
+                            deckhold_deck::spacing::role_name(role.support_role),
                             role.utilization
                         )
                     })

@@ -5,8 +5,8 @@
 use crate::job::{Job, NailOutcome};
 use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
-use deckhold_fasten::layout::SupportRole;
-use deckhold_fasten::spacing::{role_name, DeckPlan, RafterLine};
+use deckhold_deck::layout::SupportRole;
+use deckhold_deck::spacing::{role_name, DeckPlan, RafterLine};
 use deckhold_schedule::{
     standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
     ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,

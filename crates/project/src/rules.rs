@@ -3,7 +3,7 @@
 
 use crate::basis::Basis;
 use crate::units::MM_PER_IN;
-use deckhold_fasten::spacing::SpacingRules;
+use deckhold_deck::spacing::SpacingRules;
 
 /// Practical spacings for the SI basis, mm, widest first (common practice, no source).
 pub const SI_INCREMENTS_MM: [f64; 8] = [300.0, 250.0, 200.0, 150.0, 125.0, 100.0, 75.0, 50.0];

@@ -8,7 +8,7 @@ use super::{caution_lines, load_project, spacing_text};
 use crate::args::CompareArgs;
 use crate::table::Table;
 use crate::Outcome;
-use deckhold_fasten::layout::SupportRole;
+use deckhold_deck::layout::SupportRole;
 use deckhold_fasten::CatalogBasis;
 use deckhold_project::rules::prescriptive_minimum_length;
 use deckhold_project::{run_job_with_nails, NailOutcome, Project};
@@ -95,7 +95,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                     .map(|role| {
                         json!({
                             "label": zone_names.get(role.zone_index),
-                            "support_role": deckhold_fasten::spacing::role_name(role.support_role),
+                            "support_role": deckhold_deck::spacing::role_name(role.support_role),
                             "spacing_mm": role.spacing_mm,
                             "utilization": role.utilization,
                             "nail_count": role.nail_count,

@@ -1,6 +1,6 @@
-//! The one error type of the deck modules (beam, layout, spacing).
+//! The one error type of the deck crate (beam, layout, spacing).
 //!
-//! Kept apart from the rest of the crate so that these modules build on their own. Every message
+//! At the root of the crate so that every module depends on it and none on another for it. Every message
 //! names the input field and what is allowed.
 
 use thiserror::Error;

@@ -12,7 +12,7 @@ use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{PanelInput, PanelStrip, Stagger, SupportRole};
 use crate::beam::strip_reactions;
-use crate::spacing::SpacingError;
+use crate::error::SpacingError;
 
 /// Reactions of strips already solved, keyed by their geometry rounded to 0.1 µm.
 #[derive(Debug, Default)]

@@ -12,7 +12,7 @@ mod zones;
 
 use serde::{Deserialize, Serialize};
 
-use crate::spacing::{check_positive, check_range, SpacingError};
+use crate::error::{check_positive, check_range, SpacingError};
 use courses::{bearing_at, course_joints, StripCache};
 use geometry::{validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};

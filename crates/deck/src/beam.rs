@@ -16,7 +16,7 @@
 
 use nalgebra::{DMatrix, DVector};
 
-use crate::spacing::SpacingError;
+use crate::error::SpacingError;
 
 /// Reactions of a beam continuous over `spans_m.len() + 1` simple supports under a uniform load.
 ///
@@ -43,7 +43,7 @@ pub fn strip_reactions(
     load_per_m: f64,
 ) -> Result<Vec<f64>, SpacingError> {
     for (index, span_m) in spans_m.iter().enumerate() {
-        crate::spacing::check_positive(|| format!("spans_m[{index}]"), *span_m)?;
+        crate::error::check_positive(|| format!("spans_m[{index}]"), *span_m)?;
     }
     for (field, overhang_m) in [
         ("overhang_start_m", overhang_start_m),

@@ -7,7 +7,7 @@
 
 use super::geometry::{bounds, crossings, section, MIN_PIECE_M, SAME_POSITION_M};
 use super::{Axis, ZoneRegion};
-use crate::spacing::SpacingError;
+use crate::error::SpacingError;
 
 /// A stretch of a line in one zone, in plan coordinates along the line.
 #[derive(Debug, Clone, Copy, PartialEq)]

@@ -2,7 +2,7 @@
 
 use super::geometry::{bounds, line_intervals, MIN_PIECE_M, SAME_POSITION_M};
 use super::{Axis, FramingInput, PlaneGeometry};
-use crate::spacing::SpacingError;
+use crate::error::SpacingError;
 
 /// A downslope component below this is no component (the vector is along the other axis).
 const ALIGNED: f64 = 1e-6;

@@ -5,7 +5,7 @@
 //! valley) or parallel to the framing.
 
 use super::Axis;
-use crate::spacing::SpacingError;
+use crate::error::SpacingError;
 
 /// Positions closer than this are the same position, m.
 pub(crate) const SAME_POSITION_M: f64 = 1e-6;

@@ -8,15 +8,13 @@
 //! prescriptive maximum for the support role and not below its splitting minimum, is the answer.
 //! The crew nails one spacing per zone and role: the closest one any stretch of that zone needs.
 
-mod error;
-
 use serde::Serialize;
 
+pub use crate::error::SpacingError;
+use crate::error::{check_positive, check_range};
 use crate::layout::{
     layout_deck, Axis, Course, FramingInput, PanelInput, PlaneGeometry, SupportRole, ZoneRegion,
 };
-pub use error::SpacingError;
-pub(crate) use error::{check_positive, check_range};
 
 /// Spacing limits a basis imposes on roof sheathing nails.
 #[derive(Debug, Clone, PartialEq, Serialize)]
