@@ -3,7 +3,7 @@
 use serde::Serialize;
 
 use crate::basis::{Factor, PressureBasis, StandardBasis};
-use crate::coefficients::{check_points, table, ZoneCurve};
+use crate::coefficients::{blend, check_points, table, ZoneCurve};
 use crate::error::{check_range, WindError};
 use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
@@ -286,7 +286,16 @@ fn build_zones(
                 name.to_string()
             };
             let curve_data = data.curve(&basis.slope_set, region)?;
-            let curve = ZoneCurve::from_data(curve_data, overhang.then_some(&data.soffit));
+            let mut curve = ZoneCurve::from_data(curve_data, overhang.then_some(&data.soffit));
+            if let Some(slope_blend) = &basis.slope_blend {
+                let upper = data.curve(&slope_blend.upper_set, region)?;
+                let upper_points = ZoneCurve::from_data(upper, None).points;
+                curve.points = blend(&curve.points, &upper_points, slope_blend.fraction);
+                curve.source = format!(
+                    "{}; blended with {} zone {} ({}): {}",
+                    curve.source, upper.figure, upper.code_zone, upper.confidence, slope_blend.rule
+                );
+            }
             result.push((
                 Zone {
                     label: ZoneLabel::of(region, overhang),
@@ -544,6 +553,49 @@ mod tests {
         let expected = 0.6 * analysis.q_kpa * 0.85 * (1.7 + 0.18) - 0.6 * 0.4;
         assert_relative_eq!(uplift.net_uplift_kpa, expected, max_relative = 1e-9);
         assert_relative_eq!(analysis.edge_width_m, 1.8, max_relative = 1e-12);
+    }
+
+    fn corner_cp_at_small_area(case: &WindInput, code_zone: &str) -> f64 {
+        let analysis = analyze(case).expect("analysis");
+        let index = analysis
+            .zones
+            .iter()
+            .position(|z| z.code_zone == code_zone)
+            .expect("zone");
+        analysis.uplift(index, 0.5).expect("uplift").cp_ext
+    }
+
+    #[test]
+    fn asce_hip_over_27_deg_interpolates_to_the_45_deg_curves() {
+        // ASCE 7-22 hip roofs 27-45 deg, from memory (as read in the STRUCTURE article on the 7-22
+        // C&C changes): 45 deg curves -1.5 / -1.8 / -2.4 at 10 ft², linear in slope from the 20-27 deg
+        // values at 27 deg (-1.4 / -2.0 / -2.4 here, from memory).
+        let mut case = input(RoofShape::Hip, 27.0, RidgeAlong::Length, asce_site(130.0));
+        case.building.eave_height_m = 2.5;
+        let at = |slope: f64, zone: &str| {
+            let mut c = case.clone();
+            c.roof.slope_deg = slope;
+            corner_cp_at_small_area(&c, zone)
+        };
+        assert_relative_eq!(at(27.0, "1"), -1.4, max_relative = 1e-9);
+        assert_relative_eq!(at(45.0, "1"), -1.5, max_relative = 1e-9);
+        assert_relative_eq!(at(36.0, "1"), -1.45, max_relative = 1e-9);
+        assert_relative_eq!(at(45.0, "2"), -1.8, max_relative = 1e-9);
+        assert_relative_eq!(at(36.0, "2"), -1.9, max_relative = 1e-9);
+        assert_relative_eq!(at(40.0, "3"), -2.4, max_relative = 1e-9);
+        // Just over 27 deg the curve moves away from the 20-27 deg values by a small step only.
+        assert!((at(27.1, "2") - at(27.0, "2")).abs() < 0.02);
+    }
+
+    #[test]
+    fn asce_values_raised_to_the_more_severe_reading() {
+        // Severe-of-two, ASCE 7-22 at 10 ft²: gable 27-45 zone 3 -3.2 (was -2.5); hip 7-20 zone 1 -1.8
+        // and zone 2 -2.4 (were -1.6 and -2.3); readings as named in docs/sources.md, not confirmed.
+        let gable = input(RoofShape::Gable, 35.0, RidgeAlong::Length, asce_site(130.0));
+        assert_relative_eq!(corner_cp_at_small_area(&gable, "3"), -3.2);
+        let hip = input(RoofShape::Hip, 15.0, RidgeAlong::Length, asce_site(130.0));
+        assert_relative_eq!(corner_cp_at_small_area(&hip, "1"), -1.8);
+        assert_relative_eq!(corner_cp_at_small_area(&hip, "2"), -2.4);
     }
 
     #[test]

@@ -1,7 +1,7 @@
 //! ASCE 7-22 Chapter 30 Part 1 (low-rise, h <= 60 ft): q_h = 0.00256 K_z K_zt K_e V² psf,
 //! p = q_h K_d [(GC_p) - (GC_pi)].
 
-use crate::basis::{edge_width_m, Factor, PressureBasis, StandardBasis};
+use crate::basis::{edge_width_m, Factor, PressureBasis, SlopeBlend, StandardBasis};
 use crate::coefficients::{table, Edition, Table};
 use crate::error::{check_range, WindError};
 use crate::types::{AsceWind, Enclosure, Exposure, RoofShape, StrengthMethod};
@@ -102,7 +102,8 @@ pub(crate) fn basis(
     let sloped = slope_deg > 7.0 && matches!(shape, RoofShape::Gable | RoofShape::Hip);
     let band = if slope_deg <= 20.0 {
         "7-20"
-    } else if slope_deg <= 27.0 {
+    } else if slope_deg <= 27.0 || shape == RoofShape::Hip {
+        // Hip roofs over 27 deg start from the 20-27 deg curves and blend to 45 deg (`hip_blend`).
         "20-27"
     } else {
         "27-45"
@@ -166,9 +167,26 @@ pub(crate) fn basis(
             hips: sloped && shape == RoofShape::Hip,
         },
         slope_set,
+        slope_blend: hip_blend(shape, slope_deg),
         zone_names: ["1", "2", "3"],
         factors,
         warnings,
+    })
+}
+
+/// Lowest and highest slope of the hip band that interpolates to the 45 deg figure, deg.
+const HIP_BLEND_FROM_DEG: f64 = 27.0;
+const HIP_BLEND_TO_DEG: f64 = 45.0;
+
+/// ASCE 7-22 hip roofs over 27 deg (from memory, as read in the STRUCTURE article on the 7-22 C&C
+/// changes): the 45 deg curves, interpolated linearly by slope from the 20-27 deg values at 27 deg.
+fn hip_blend(shape: RoofShape, slope_deg: f64) -> Option<SlopeBlend> {
+    (shape == RoofShape::Hip && slope_deg > HIP_BLEND_FROM_DEG).then(|| SlopeBlend {
+        upper_set: "hip-45".to_string(),
+        fraction: (slope_deg - HIP_BLEND_FROM_DEG) / (HIP_BLEND_TO_DEG - HIP_BLEND_FROM_DEG),
+        rule: format!(
+            "ASCE 7-22 hip roofs 27-45 deg: linear in slope between the 20-27 deg curves at 27 deg and the 45 deg curves ({slope_deg:.1} deg) (from memory)"
+        ),
     })
 }
 

@@ -42,6 +42,16 @@ pub struct PressureBasis {
     pub cos_slope: f64,
 }
 
+/// Interpolation by roof slope between the curves of `slope_set` and those of `upper_set`.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct SlopeBlend {
+    pub upper_set: String,
+    /// 0 at the lower figure's slope, 1 at the upper figure's.
+    pub fraction: f64,
+    /// How the standard asks for the interpolation, for the report.
+    pub rule: String,
+}
+
 /// A standard's contribution to one analysis.
 #[derive(Debug, Clone, PartialEq)]
 pub(crate) struct StandardBasis {
@@ -50,6 +60,8 @@ pub(crate) struct StandardBasis {
     pub q_kpa: f64,
     pub strips: Strips,
     pub slope_set: String,
+    /// Set when the standard interpolates between two figures by slope.
+    pub slope_blend: Option<SlopeBlend>,
     /// Code-zone names for interior, edge and corner.
     pub zone_names: [&'static str; 3],
     pub factors: Vec<Factor>,

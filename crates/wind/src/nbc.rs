@@ -122,6 +122,7 @@ pub(crate) fn basis(
             hips: sloped && shape == RoofShape::Hip,
         },
         slope_set: slope_set.to_string(),
+        slope_blend: None,
         zone_names: ["r", "s", "c"],
         factors,
         warnings: vec![
