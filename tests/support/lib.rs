@@ -1,4 +1,9 @@
-//! Shared helpers for the cross-crate tests (see the test files beside this folder).
+//! Shared helpers for the cross-crate tests (see the test files beside this folder) and the golden-file
+//! machinery (also used by `crates/cli/tests/golden_fixtures.rs`).
+
+pub mod golden;
+
+pub use golden::{golden_path, Goldens};
 
 use std::path::PathBuf;
 
@@ -14,11 +19,4 @@ pub fn fixture_text(name: &str) -> String {
     let path = fixture_path(name);
     std::fs::read_to_string(&path)
         .unwrap_or_else(|error| panic!("cannot read {}: {error}", path.display()))
-}
-
-/// Path of a file under `tests/golden/`.
-pub fn golden_path(name: &str) -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-        .join("tests/golden")
-        .join(name)
 }
