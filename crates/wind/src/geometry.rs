@@ -99,6 +99,36 @@ pub fn contains(polygon: &[Point], point: Point) -> bool {
     inside
 }
 
+/// Removes repeated vertices and vertices lying on the straight line through their neighbours
+/// (within `tolerance_m`).
+pub fn drop_collinear(polygon: &[Point], tolerance_m: f64) -> Vec<Point> {
+    let mut points: Vec<Point> = polygon.to_vec();
+    let mut changed = true;
+    while changed && points.len() >= 3 {
+        changed = false;
+        let count = points.len();
+        for index in 0..count {
+            let prev = points[(index + count - 1) % count];
+            let here = points[index];
+            let next = points[(index + 1) % count];
+            let (dx, dy) = (next[0] - prev[0], next[1] - prev[1]);
+            let length = dx.hypot(dy);
+            let off_line = if length == 0.0 {
+                (here[0] - prev[0]).hypot(here[1] - prev[1])
+            } else {
+                ((here[0] - prev[0]) * dy - (here[1] - prev[1]) * dx).abs() / length
+            };
+            let repeated = (here[0] - prev[0]).hypot(here[1] - prev[1]) < tolerance_m;
+            if repeated || off_line < tolerance_m {
+                points.remove(index);
+                changed = true;
+                break;
+            }
+        }
+    }
+    points
+}
+
 /// Axis-aligned rectangle, counter-clockwise.
 pub fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<Point> {
     vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]

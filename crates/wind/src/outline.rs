@@ -6,7 +6,7 @@
 //! Polygons are worked in plan directly.
 
 use crate::error::{check_range, WindError};
-use crate::geometry::{make_ccw, rectangle, segments_touch, signed_area_m2, Point};
+use crate::geometry::{drop_collinear, make_ccw, rectangle, segments_touch, signed_area_m2, Point};
 use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
 
 /// Largest plan dimension accepted, m (a sanity bound, not a code limit).
@@ -131,23 +131,7 @@ fn validate_polygon(vertices: &[Point]) -> Result<Vec<Point>, WindError> {
         points.pop();
     }
     // Remove vertices that lie on a straight run.
-    let mut changed = true;
-    while changed && points.len() >= 3 {
-        changed = false;
-        let count = points.len();
-        for index in 0..count {
-            let prev = points[(index + count - 1) % count];
-            let here = points[index];
-            let next = points[(index + 1) % count];
-            let cross = (here[0] - prev[0]) * (next[1] - here[1])
-                - (here[1] - prev[1]) * (next[0] - here[0]);
-            if cross.abs() < 1e-12 {
-                points.remove(index);
-                changed = true;
-                break;
-            }
-        }
-    }
+    let points = drop_collinear(&points, 1e-9);
     if points.len() < 4 {
         return Err(WindError::range(
             POLYGON_FIELD,
