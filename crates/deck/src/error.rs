@@ -32,6 +32,12 @@ pub enum SpacingError {
         spacing_mm: f64,
         from_m: f64,
     },
+    /// A stretch of line in the layout has no panel strip on it (a layout fault, never a zero load).
+    #[error("layout: framing line {line}, course {course}, has no panel bearing on it")]
+    NoStrip { line: u32, course: usize },
+    /// A checked pattern gives no spacing for a zone the layout has.
+    #[error("pattern: no spacing given for zone {zone_index} ({role})")]
+    NoPattern { zone_index: usize, role: String },
     /// No zone covers part of a rafter line: the zones do not tile the roof.
     #[error("zones: no zone covers rafter line {line} at plan position [{x_m:.3}, {y_m:.3}] m; the zones must tile every roof plane")]
     NoZone { line: u32, x_m: f64, y_m: f64 },

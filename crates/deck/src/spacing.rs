@@ -12,9 +12,7 @@ use serde::Serialize;
 
 pub use crate::error::SpacingError;
 use crate::error::{check_positive, check_range};
-use crate::layout::{
-    layout_deck, Axis, Course, FramingInput, PanelInput, PlaneGeometry, SupportRole, ZoneRegion,
-};
+use crate::layout::{Axis, DeckLayout, SupportRole};
 
 /// Spacing limits a basis imposes on roof sheathing nails.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -31,9 +29,25 @@ pub struct SpacingRules {
     pub min_effective_area_m2: f64,
 }
 
+/// The increments allowed for one support role, widest first; never empty (by construction).
+#[derive(Debug, Clone, PartialEq)]
+struct Allowed {
+    widest_first_mm: Vec<f64>,
+}
+
+impl Allowed {
+    fn widest_mm(&self) -> f64 {
+        self.widest_first_mm[0]
+    }
+
+    fn closest_mm(&self) -> f64 {
+        self.widest_first_mm[self.widest_first_mm.len() - 1]
+    }
+}
+
 impl SpacingRules {
-    /// The increments allowed for one support role, widest first.
-    fn allowed_for(&self, role: SupportRole) -> Result<Vec<f64>, SpacingError> {
+    /// The increments allowed for one support role; an error when none lies between the limits.
+    fn allowed_for(&self, role: SupportRole) -> Result<Allowed, SpacingError> {
         let max_mm = match role {
             SupportRole::PanelEdge => self.max_panel_edge_mm,
             SupportRole::Intermediate => self.max_intermediate_mm,
@@ -55,7 +69,9 @@ impl SpacingRules {
                 max_mm,
             });
         }
-        Ok(allowed)
+        Ok(Allowed {
+            widest_first_mm: allowed,
+        })
     }
 
     fn validate(&self) -> Result<(), SpacingError> {
@@ -186,7 +202,6 @@ pub struct ZoneRoleResult {
 pub struct DeckPlan {
     pub nail_id: String,
     pub lines: Vec<RafterLine>,
-    pub courses: Vec<Course>,
     pub zone_roles: Vec<ZoneRoleResult>,
     pub total_nail_count: u64,
     pub total_nail_mass_kg: f64,
@@ -279,60 +294,36 @@ fn nails_in_row(length_m: f64, spacing_mm: f64) -> u64 {
     }
 }
 
-/// The spacing a checked pattern gives a zone and support role, mm.
-pub type PatternFn<'a> = dyn Fn(usize, SupportRole) -> f64 + 'a;
+/// The spacing a checked pattern gives a zone and support role, mm; None when the pattern has no
+/// spacing for that zone (an error, never a default).
+pub type PatternFn<'a> = dyn Fn(usize, SupportRole) -> Option<f64> + 'a;
 
-/// Lays out the deck and sizes the nail spacing of every line, zone and support role for one nail.
-#[allow(clippy::too_many_arguments)]
-pub fn plan_deck(
-    planes: &[PlaneGeometry],
-    zones: &[ZoneRegion],
-    zone_rank: &[u32],
-    framing: &FramingInput,
-    panel: &PanelInput,
+/// Sizes the nail spacing of every line, zone and support role of a laid-out deck for one nail.
+/// The layout does not depend on the nail: build it once with [`crate::layout::layout_deck`] and plan every
+/// candidate on it.
+pub fn plan_on_layout(
+    layout: &DeckLayout,
     uplift: &UpliftFn<'_>,
     nail: &NailOption,
     rules: &SpacingRules,
 ) -> Result<DeckPlan, SpacingError> {
-    plan_or_check(
-        planes, zones, zone_rank, framing, panel, uplift, nail, rules, None,
-    )
+    plan_or_check(layout, uplift, nail, rules, None)
 }
 
-/// Lays out the deck and checks a given pattern: every segment at `pattern(zone, role)`, its
-/// utilization reported (over 1.0 fails); `required_spacing_mm` still says what would be needed.
-#[allow(clippy::too_many_arguments)]
-pub fn check_deck(
-    planes: &[PlaneGeometry],
-    zones: &[ZoneRegion],
-    zone_rank: &[u32],
-    framing: &FramingInput,
-    panel: &PanelInput,
+/// Checks a given pattern on a laid-out deck: every segment at `pattern(zone, role)`, its utilization
+/// reported (over 1.0 fails); `required_spacing_mm` still says what would be needed.
+pub fn check_on_layout(
+    layout: &DeckLayout,
     uplift: &UpliftFn<'_>,
     nail: &NailOption,
     rules: &SpacingRules,
     pattern: &PatternFn<'_>,
 ) -> Result<DeckPlan, SpacingError> {
-    plan_or_check(
-        planes,
-        zones,
-        zone_rank,
-        framing,
-        panel,
-        uplift,
-        nail,
-        rules,
-        Some(pattern),
-    )
+    plan_or_check(layout, uplift, nail, rules, Some(pattern))
 }
 
-#[allow(clippy::too_many_arguments)]
 fn plan_or_check(
-    planes: &[PlaneGeometry],
-    zones: &[ZoneRegion],
-    zone_rank: &[u32],
-    framing: &FramingInput,
-    panel: &PanelInput,
+    layout: &DeckLayout,
     uplift: &UpliftFn<'_>,
     nail: &NailOption,
     rules: &SpacingRules,
@@ -341,12 +332,11 @@ fn plan_or_check(
     rules.validate()?;
     check_positive(|| "nail.resistance_n".to_string(), nail.resistance_n)?;
     check_range(|| "nail.mass_g".to_string(), nail.mass_g, 0.0, 1000.0)?;
-    let layout = layout_deck(planes, zones, zone_rank, framing, panel)?;
     let allowed_edge = rules.allowed_for(SupportRole::PanelEdge)?;
     let allowed_intermediate = rules.allowed_for(SupportRole::Intermediate)?;
     let allowed = |role: SupportRole| match role {
-        SupportRole::PanelEdge => allowed_edge.as_slice(),
-        SupportRole::Intermediate => allowed_intermediate.as_slice(),
+        SupportRole::PanelEdge => &allowed_edge,
+        SupportRole::Intermediate => &allowed_intermediate,
     };
 
     // Pass 1: the segments and what each alone needs.
@@ -359,12 +349,11 @@ fn plan_or_check(
                 .strips
                 .iter()
                 .map(|strip| strip.reaction_width_mm)
-                .fold(f64::NEG_INFINITY, f64::max);
-            let reaction_width_mm = if reaction_width_mm.is_finite() {
-                reaction_width_mm
-            } else {
-                0.0
-            };
+                .reduce(f64::max)
+                .ok_or(SpacingError::NoStrip {
+                    line: line.number,
+                    course: bearing.course_index,
+                })?;
             for piece in &line.zones {
                 let from_m = piece.from_m.max(bearing.from_m);
                 let to_m = piece.to_m.min(bearing.to_m);
@@ -374,7 +363,7 @@ fn plan_or_check(
                 let required_spacing_mm = widest_holding(
                     uplift,
                     rules,
-                    allowed(bearing.support_role),
+                    &allowed(bearing.support_role).widest_first_mm,
                     piece.zone_index,
                     reaction_width_mm,
                     nail.resistance_n,
@@ -420,7 +409,10 @@ fn plan_or_check(
     let mut patterns: Vec<((usize, SupportRole), Option<f64>)> = Vec::with_capacity(keys.len());
     for key in &keys {
         if let Some(given) = given {
-            let spacing_mm = given(key.0, key.1);
+            let spacing_mm = given(key.0, key.1).ok_or(SpacingError::NoPattern {
+                zone_index: key.0,
+                role: role_name(key.1).to_string(),
+            })?;
             check_range(
                 || format!("pattern spacing for zone {} ({})", key.0, role_name(key.1)),
                 spacing_mm,
@@ -430,7 +422,7 @@ fn plan_or_check(
             patterns.push((*key, Some(spacing_mm)));
             continue;
         }
-        let mut pattern = allowed(key.1).first().copied();
+        let mut pattern = Some(allowed(key.1).widest_mm());
         for segment in lines.iter().flat_map(|l| &l.segments) {
             if (segment.zone_index, segment.support_role) != *key {
                 continue;
@@ -455,11 +447,8 @@ fn plan_or_check(
         for segment in &mut line.segments {
             let key = (segment.zone_index, segment.support_role);
             let pattern = pattern_for(key);
-            let closest = allowed(segment.support_role)
-                .last()
-                .copied()
-                .unwrap_or(rules.min_mm);
-            let checked_at_mm = pattern.unwrap_or(closest);
+            // No working spacing: report the load at the closest allowed increment.
+            let checked_at_mm = pattern.unwrap_or(allowed(segment.support_role).closest_mm());
             let load = nail_load(
                 uplift,
                 rules,
@@ -493,7 +482,7 @@ fn plan_or_check(
         }) else {
             continue;
         };
-        let widest = allowed(key.1).first().copied();
+        let widest = Some(allowed(key.1).widest_mm());
         let limited_by = match pattern {
             _ if given.is_some() => SpacingLimit::Given,
             None => SpacingLimit::NoPracticalSpacing,
@@ -517,7 +506,6 @@ fn plan_or_check(
     Ok(DeckPlan {
         nail_id: nail.id.clone(),
         lines,
-        courses: layout.courses,
         zone_roles,
         total_nail_count,
         total_nail_mass_kg: total_nail_count as f64 * nail.mass_g / 1000.0,
@@ -527,7 +515,9 @@ fn plan_or_check(
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::layout::Stagger;
+    use crate::layout::{
+        layout_deck, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion,
+    };
     use approx::assert_relative_eq;
     use proptest::prelude::*;
 
@@ -583,21 +573,16 @@ mod tests {
         }
     }
 
-    fn plan(pressure_kpa: f64, resistance_n: f64) -> DeckPlan {
+    /// The flat deck laid out once.
+    fn flat_layout() -> DeckLayout {
         let (planes, zones, framing, panel) = flat_deck();
+        layout_deck(&planes, &zones, &[0], &framing, &panel).expect("valid deck")
+    }
+
+    fn plan(pressure_kpa: f64, resistance_n: f64) -> DeckPlan {
         let uplift = move |_: usize, _: f64| -> Result<f64, String> { Ok(pressure_kpa) };
         let nail = test_nail(resistance_n);
-        plan_deck(
-            &planes,
-            &zones,
-            &[0],
-            &framing,
-            &panel,
-            &uplift,
-            &nail,
-            &si_rules(),
-        )
-        .expect("valid deck")
+        plan_on_layout(&flat_layout(), &uplift, &nail, &si_rules()).expect("valid deck")
     }
 
     #[test]
@@ -665,24 +650,13 @@ mod tests {
 
     #[test]
     fn no_increment_between_minimum_and_maximum_is_an_error() {
-        let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(1.0) };
         let nail = test_nail(500.0);
         let rules = SpacingRules {
             min_mm: 200.0,
             ..si_rules()
         };
-        let error = plan_deck(
-            &planes,
-            &zones,
-            &[0],
-            &framing,
-            &panel,
-            &uplift,
-            &nail,
-            &rules,
-        )
-        .expect_err("none");
+        let error = plan_on_layout(&flat_layout(), &uplift, &nail, &rules).expect_err("none");
         assert!(
             error.to_string().starts_with("rules.increments_mm"),
             "{error}"
@@ -691,20 +665,10 @@ mod tests {
 
     #[test]
     fn an_uplift_error_names_the_zone() {
-        let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Err("no curve".to_string()) };
         let nail = test_nail(500.0);
-        let error = plan_deck(
-            &planes,
-            &zones,
-            &[0],
-            &framing,
-            &panel,
-            &uplift,
-            &nail,
-            &si_rules(),
-        )
-        .expect_err("uplift");
+        let error =
+            plan_on_layout(&flat_layout(), &uplift, &nail, &si_rules()).expect_err("uplift");
         assert!(
             error.to_string().starts_with("uplift for zone 0"),
             "{error}"
@@ -713,25 +677,16 @@ mod tests {
 
     #[test]
     fn a_checked_pattern_reports_its_utilization() {
-        let (planes, zones, framing, panel) = flat_deck();
         let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(3.0) };
         let nail = test_nail(400.0);
-        let pattern = |_: usize, role: SupportRole| match role {
-            SupportRole::PanelEdge => 150.0,
-            SupportRole::Intermediate => 300.0,
+        let pattern = |_: usize, role: SupportRole| {
+            Some(match role {
+                SupportRole::PanelEdge => 150.0,
+                SupportRole::Intermediate => 300.0,
+            })
         };
-        let checked = check_deck(
-            &planes,
-            &zones,
-            &[0],
-            &framing,
-            &panel,
-            &uplift,
-            &nail,
-            &si_rules(),
-            &pattern,
-        )
-        .expect("valid");
+        let checked =
+            check_on_layout(&flat_layout(), &uplift, &nail, &si_rules(), &pattern).expect("valid");
         let intermediate = checked
             .zone_role(0, SupportRole::Intermediate)
             .expect("intermediate");
@@ -758,9 +713,12 @@ mod tests {
             let high = plan(p + extra, r);
             for role in &low.zone_roles {
                 let other = high.zone_role(role.zone_index, role.support_role).expect("same roles");
-                let low_s = role.spacing_mm.unwrap_or(0.0);
-                let high_s = other.spacing_mm.unwrap_or(0.0);
-                prop_assert!(high_s <= low_s);
+                // None (no spacing works) is the closest of all.
+                match (role.spacing_mm, other.spacing_mm) {
+                    (Some(low_s), Some(high_s)) => prop_assert!(high_s <= low_s),
+                    (None, high_s) => prop_assert!(high_s.is_none()),
+                    (Some(_), None) => {}
+                }
             }
         }
     }

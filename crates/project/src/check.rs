@@ -3,11 +3,11 @@
 //! nails to add between the existing ones where it is not.
 
 use crate::error::JobError;
-use crate::job::{net_uplift_kpa, penetration_for, resistance_input, DeckGeometry};
+use crate::job::{deck_layout, net_uplift_kpa, penetration_for, resistance_input};
 use crate::project::{ExistingPattern, Project};
 use crate::rules::spacing_rules;
 use deckhold_deck::layout::SupportRole;
-use deckhold_deck::spacing::{check_deck, role_name, DeckPlan, NailOption};
+use deckhold_deck::spacing::{check_on_layout, role_name, DeckPlan, NailOption};
 use deckhold_fasten::{Nail, Resistance};
 use deckhold_wind::WindAnalysis;
 
@@ -55,46 +55,41 @@ pub fn check_pattern(
     pattern: &ExistingPattern,
 ) -> Result<PatternCheck, JobError> {
     let nail = deckhold_fasten::nail(&pattern.nail_id)?;
-    let geometry = DeckGeometry::new(project, wind)?;
+    let layout = deck_layout(project, wind)?;
     let penetration_mm = penetration_for(project, nail);
     let resistance =
         deckhold_fasten::nail_resistance(&resistance_input(project, nail, penetration_mm)?)?;
     let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
     let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
-    let given = |zone_index: usize, role: SupportRole| -> f64 {
-        let label = wind
-            .zones
-            .get(zone_index)
-            .map_or("interior", |zone| zone.label.as_str());
-        let spacing = pattern.for_zone(label);
-        match role {
+    // One spacing per zone of the analysis, looked up once: a zone the layout names is always one
+    // of these (the layout is built from the same zones), so no zone falls back to another's pattern.
+    let by_zone: Vec<_> = wind
+        .zones
+        .iter()
+        .map(|zone| pattern.for_zone(zone.label.as_str()))
+        .collect();
+    let given = |zone_index: usize, role: SupportRole| -> Option<f64> {
+        let spacing = by_zone.get(zone_index)?;
+        Some(match role {
             SupportRole::PanelEdge => spacing.edge_spacing_mm,
             SupportRole::Intermediate => spacing.intermediate_spacing_mm,
-        }
+        })
     };
     let option = NailOption {
         id: nail.id.clone(),
         resistance_n: resistance.governing_n,
         mass_g: nail.mass_g,
     };
-    let plan = check_deck(
-        &geometry.planes,
-        &geometry.zones,
-        &geometry.zone_rank,
-        &geometry.framing,
-        &geometry.panel,
-        &uplift,
-        &option,
-        &rules,
-        &given,
-    )?;
+    let plan = check_on_layout(&layout, &uplift, &option, &rules, &given)?;
 
     let mut rows = Vec::with_capacity(plan.zone_roles.len());
     for role in &plan.zone_roles {
         let Some(zone) = wind.zones.get(role.zone_index) else {
             continue;
         };
-        let given_spacing_mm = given(role.zone_index, role.support_role);
+        let Some(given_spacing_mm) = given(role.zone_index, role.support_role) else {
+            continue;
+        };
         let required_spacing_mm = plan
             .lines
             .iter()

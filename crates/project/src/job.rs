@@ -6,8 +6,10 @@
 use crate::error::JobError;
 use crate::project::{LinesAlong, MemberRole, Project, StaggerChoice};
 use crate::rules::spacing_rules;
-use deckhold_deck::layout::{Axis, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion};
-use deckhold_deck::spacing::{plan_deck, DeckPlan, NailOption, SpacingRules};
+use deckhold_deck::layout::{
+    layout_deck, Axis, DeckLayout, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion,
+};
+use deckhold_deck::spacing::{plan_on_layout, DeckPlan, NailOption, SpacingRules};
 use deckhold_fasten::{
     DeckLayer, Grain, LoadDuration, MemberKind, Nail, Resistance, ResistanceInput, Service,
 };
@@ -68,6 +70,8 @@ impl NailOutcome {
 #[derive(Debug, Clone)]
 pub struct Job {
     pub wind: WindAnalysis,
+    /// The framing and panel layout, built once and shared by every candidate nail.
+    pub layout: DeckLayout,
     /// One entry per candidate, in the project's order of preference.
     pub candidates: Vec<NailOutcome>,
     /// Index of the nail the schedule uses: the first feasible one, else the first candidate.
@@ -92,12 +96,12 @@ pub fn run_job(project: &Project) -> Result<Job, JobError> {
 /// Runs the job for the given candidate nails (ids checked against the catalog).
 pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job, JobError> {
     let wind = deckhold_wind::analyze(&project.wind)?;
-    let deck_geometry = DeckGeometry::new(project, &wind)?;
+    let layout = deck_layout(project, &wind)?;
     let mut candidates = Vec::with_capacity(nail_ids.len());
     for id in nail_ids {
         let nail = deckhold_fasten::nail(id)?;
         let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
-        candidates.push(work_nail(project, &wind, &deck_geometry, nail, &rules)?);
+        candidates.push(work_nail(project, &wind, &layout, nail, &rules)?);
     }
     if candidates.is_empty() {
         return Err(crate::ProjectError::Missing {
@@ -111,14 +115,27 @@ pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job,
         .unwrap_or(0);
     Ok(Job {
         wind,
+        layout,
         candidates,
         chosen,
     })
 }
 
-/// The plan geometry and zone data in the form the spacing module takes, computed once per job.
+/// Lays out the project's framing and deck once (the layout does not depend on the nail).
+pub fn deck_layout(project: &Project, wind: &WindAnalysis) -> Result<DeckLayout, JobError> {
+    let geometry = DeckGeometry::new(project, wind)?;
+    Ok(layout_deck(
+        &geometry.planes,
+        &geometry.zones,
+        &geometry.zone_rank,
+        &geometry.framing,
+        &geometry.panel,
+    )?)
+}
+
+/// The plan geometry and zone data in the form the layout takes.
 #[derive(Debug, Clone)]
-pub struct DeckGeometry {
+struct DeckGeometry {
     pub planes: Vec<PlaneGeometry>,
     pub zones: Vec<ZoneRegion>,
     pub zone_rank: Vec<u32>,
@@ -243,7 +260,7 @@ pub fn penetration_for(project: &Project, nail: &Nail) -> f64 {
 fn work_nail(
     project: &Project,
     wind: &WindAnalysis,
-    geometry: &DeckGeometry,
+    layout: &DeckLayout,
     nail: &'static Nail,
     rules: &SpacingRules,
 ) -> Result<NailOutcome, JobError> {
@@ -274,7 +291,7 @@ fn work_nail(
             })
         }
     };
-    let plan = plan_with_resistance(wind, geometry, nail, resistance.governing_n, rules)?;
+    let plan = plan_with_resistance(wind, layout, nail, resistance.governing_n, rules)?;
     let feasible = plan.zone_roles.iter().all(|role| role.spacing_mm.is_some());
     Ok(NailOutcome {
         nail,
@@ -296,10 +313,10 @@ pub(crate) fn net_uplift_kpa(
         .map_err(|error| error.to_string())
 }
 
-/// Plans the deck for one nail of known factored resistance.
+/// Plans the deck for one nail of known factored resistance on the project's layout.
 pub fn plan_with_resistance(
     wind: &WindAnalysis,
-    geometry: &DeckGeometry,
+    layout: &DeckLayout,
     nail: &Nail,
     resistance_n: f64,
     rules: &SpacingRules,
@@ -310,14 +327,5 @@ pub fn plan_with_resistance(
         resistance_n,
         mass_g: nail.mass_g,
     };
-    Ok(plan_deck(
-        &geometry.planes,
-        &geometry.zones,
-        &geometry.zone_rank,
-        &geometry.framing,
-        &geometry.panel,
-        &uplift,
-        &option,
-        rules,
-    )?)
+    Ok(plan_on_layout(layout, &uplift, &option, rules)?)
 }

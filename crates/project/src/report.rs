@@ -5,7 +5,7 @@
 use crate::job::{Job, NailOutcome};
 use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
-use deckhold_deck::layout::SupportRole;
+use deckhold_deck::layout::{Course, SupportRole};
 use deckhold_deck::spacing::{role_name, DeckPlan, RafterLine};
 use deckhold_schedule::{
     standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
@@ -96,7 +96,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     Schedule {
         project: project.info.clone(),
         basis: project.basis.info(),
-        plan: plan_view(wind, plan),
+        plan: plan_view(wind, &job.layout.courses, plan),
         building_length_m,
         building_width_m,
         framing_spacing_mm: project.framing.spacing_mm,
@@ -284,7 +284,7 @@ fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
         .collect()
 }
 
-fn plan_view(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> PlanView {
+fn plan_view(wind: &WindAnalysis, courses: &[Course], plan: Option<&DeckPlan>) -> PlanView {
     let mut view = PlanView {
         building_outline_m: wind.building_outline_m.clone(),
         roof_outline_m: wind.roof_outline_m.clone(),
@@ -320,7 +320,7 @@ fn plan_view(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> PlanView {
         }
     }
     // Course lines (long panel edges) across each plane, drawn between the plane's outer lines.
-    for course in &plan.courses {
+    for course in courses {
         if course.index == 0 {
             continue;
         }

@@ -4,6 +4,7 @@ use serde::Serialize;
 
 use crate::basis::{Factor, PressureBasis, StandardBasis};
 use crate::coefficients::{blend, check_points, table, ZoneCurve};
+use crate::edges::{polygon_edges, wall_lines, EdgeKind, PlaneEdge, RectangleEdges};
 use crate::error::{check_range, WindError};
 use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
@@ -15,10 +16,13 @@ use crate::{asce, nbc};
 /// One roof plane in plan.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct RoofPlane {
+    /// Outline of the plane, overhangs included, counter-clockwise, m.
     pub polygon_m: Vec<[f64; 2]>,
     pub slope_deg: f64,
     /// Unit plan vector pointing down the slope; [0, 0] for a level roof.
     pub downslope_m: [f64; 2],
+    /// The sides of `polygon_m` in its order, each with what it is on the roof.
+    pub edges: Vec<PlaneEdge>,
 }
 
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -88,6 +92,9 @@ pub struct WindAnalysis {
     pub q_kpa: f64,
     pub mean_roof_height_m: f64,
     pub building_outline_m: Vec<[f64; 2]>,
+    /// The outer wall lines under the roof (one segment per side of `building_outline_m`), m. The
+    /// deck's supports are set out from these.
+    pub wall_lines_m: Vec<[[f64; 2]; 2]>,
     pub roof_outline_m: Vec<[f64; 2]>,
     pub ridge_lines_m: Vec<[[f64; 2]; 2]>,
     pub planes: Vec<RoofPlane>,
@@ -227,21 +234,27 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
     if zones.iter().any(|zone| zone.label.is_overhang()) {
         warnings.push("overhang coefficients are the adjacent roof zone plus the wall positive coefficient on the soffit, with no internal pressure (from memory)".to_string());
     }
-    let to_plan_vector = |v: Point| plan.to_plan(v);
     let planes = local
         .planes
         .iter()
-        .map(|(polygon, down)| RoofPlane {
-            polygon_m: plan.polygon_to_plan(polygon),
-            slope_deg: roof.slope_deg,
-            downslope_m: to_plan_vector(*down),
+        .map(|(polygon, down)| {
+            let polygon_m = plan.polygon_to_plan(polygon);
+            let edges = plane_edges(&plan, roof, &polygon_m);
+            RoofPlane {
+                polygon_m,
+                slope_deg: roof.slope_deg,
+                downslope_m: plan.to_plan(*down),
+                edges,
+            }
         })
         .collect();
+    let building_outline_m = plan.polygon_to_plan(&local.building_m);
     Ok(WindAnalysis {
+        wall_lines_m: wall_lines(&building_outline_m),
         edge_width_m: basis.strips.edge_width_m,
         q_kpa: basis.q_kpa,
         mean_roof_height_m,
-        building_outline_m: plan.polygon_to_plan(&local.building_m),
+        building_outline_m,
         roof_outline_m: plan.polygon_to_plan(&local.outline_m),
         ridge_lines_m: local
             .ridge_lines_m
@@ -255,6 +268,24 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
         curves,
         pressure: basis.pressure.clone(),
     })
+}
+
+/// The edges of one plane (plan polygon): rectangles are classified in their local frame (the swap
+/// to plan is its own inverse); a polygon footprint carries a flat roof whose every edge is an eave.
+fn plane_edges(plan: &Plan, roof: &crate::types::Roof, polygon_m: &[Point]) -> Vec<PlaneEdge> {
+    match plan {
+        Plan::Rectangle { across_ridge_m, .. } => {
+            let classify = RectangleEdges {
+                hip: roof.shape == RoofShape::Hip,
+                ridge_v_m: matches!(roof.shape, RoofShape::Gable | RoofShape::Hip)
+                    .then_some(across_ridge_m / 2.0),
+            };
+            polygon_edges(polygon_m, |a, b| {
+                classify.kind(plan.to_plan(a), plan.to_plan(b))
+            })
+        }
+        Plan::Polygon { .. } => polygon_edges(polygon_m, |_, _| EdgeKind::Eave),
+    }
 }
 
 fn build_zones(
@@ -444,6 +475,76 @@ mod tests {
             let planes: f64 = analysis.planes.iter().map(|p| area_m2(&p.polygon_m)).sum();
             assert_relative_eq!(planes, outline, max_relative = 1e-6);
         }
+    }
+
+    #[test]
+    fn every_plane_edge_is_a_side_of_its_polygon_with_its_kind() {
+        use crate::edges::EdgeKind;
+        for case in all_inputs() {
+            let analysis = analyze(&case).expect("analysis");
+            assert_eq!(analysis.wall_lines_m.len(), 4);
+            for plane in &analysis.planes {
+                let count = plane.polygon_m.len();
+                assert_eq!(plane.edges.len(), count, "{:?}", case.roof.shape);
+                for (index, edge) in plane.edges.iter().enumerate() {
+                    assert_eq!(edge.from_m, plane.polygon_m[index]);
+                    assert_eq!(edge.to_m, plane.polygon_m[(index + 1) % count]);
+                }
+                let count_of =
+                    |kind: EdgeKind| plane.edges.iter().filter(|e| e.kind == kind).count();
+                match (case.roof.shape, count) {
+                    (RoofShape::Gable, _) => {
+                        assert_eq!(count_of(EdgeKind::Eave), 1);
+                        assert_eq!(count_of(EdgeKind::Rake), 2);
+                        assert_eq!(count_of(EdgeKind::Ridge), 1);
+                    }
+                    (RoofShape::Hip, 3) => {
+                        assert_eq!(count_of(EdgeKind::Eave), 1);
+                        assert_eq!(count_of(EdgeKind::Hip), 2);
+                    }
+                    (RoofShape::Hip, _) => {
+                        assert_eq!(count_of(EdgeKind::Eave), 1);
+                        assert_eq!(count_of(EdgeKind::Hip), 2);
+                        assert_eq!(count_of(EdgeKind::Ridge), 1);
+                    }
+                    (RoofShape::Monoslope | RoofShape::Flat, _) => {
+                        assert_eq!(count_of(EdgeKind::Eave), 2);
+                        assert_eq!(count_of(EdgeKind::Rake), 2);
+                    }
+                }
+                // Eaves are level lines along the ridge direction: for a ridge along the length
+                // (plan x) an eave of a rectangle roof is parallel to x unless it is a hip end.
+                if case.roof.ridge_along == RidgeAlong::Length && count == 4 {
+                    for edge in plane.edges.iter().filter(|e| e.kind == EdgeKind::Rake) {
+                        assert_eq!(edge.from_m[0], edge.to_m[0], "rakes run across the ridge");
+                    }
+                }
+            }
+        }
+    }
+
+    #[test]
+    fn a_polygon_flat_roof_is_all_eaves_over_its_walls() {
+        let mut case = input(RoofShape::Flat, 0.0, RidgeAlong::Length, nbc_site(0.5));
+        case.building.footprint = Footprint::Polygon {
+            vertices_m: vec![
+                [0.0, 0.0],
+                [10.0, 0.0],
+                [10.0, 4.0],
+                [4.0, 4.0],
+                [4.0, 10.0],
+                [0.0, 10.0],
+            ],
+        };
+        let analysis = analyze(&case).expect("L");
+        assert_eq!(analysis.wall_lines_m.len(), 6);
+        assert!(analysis.wall_lines_m.contains(&[[10.0, 4.0], [4.0, 4.0]]));
+        let plane = &analysis.planes[0];
+        assert_eq!(plane.edges.len(), 6);
+        assert!(plane
+            .edges
+            .iter()
+            .all(|e| e.kind == crate::edges::EdgeKind::Eave));
     }
 
     #[test]

@@ -8,6 +8,7 @@ mod analysis;
 mod asce;
 mod basis;
 mod coefficients;
+mod edges;
 mod error;
 mod geometry;
 mod nbc;
@@ -22,6 +23,7 @@ mod zones;
 pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone, ZoneLabel};
 pub use basis::{Factor, PressureBasis};
 pub use coefficients::ZoneCurve;
+pub use edges::{EdgeKind, PlaneEdge};
 pub use error::WindError;
 pub use types::{
     AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,

@@ -220,10 +220,18 @@ pub(crate) fn bearing_at(
                 overhang_end_m = side.to_m - last;
             }
         }
+        let no_support = || {
+            SpacingError::Invalid {
+            field: "planes.polygon_m".to_string(),
+            reason: format!(
+                "the panel over the framing line at {position:.4} m at {along_m:.4} m does not bear on it"
+            ),
+        }
+        };
         let support_index = supports
             .iter()
             .position(|s| near(*s, position))
-            .unwrap_or_default();
+            .ok_or_else(no_support)?;
         let spans_m: Vec<f64> = supports
             .windows(2)
             .map(|w| (w[1] - w[0]) * frame.cross_factor)
@@ -231,7 +239,11 @@ pub(crate) fn bearing_at(
         overhang_start_m *= frame.cross_factor;
         overhang_end_m *= frame.cross_factor;
         let reactions = cache.reactions(&spans_m, overhang_start_m, overhang_end_m)?;
-        let reaction_width_mm = reactions.get(support_index).copied().unwrap_or(0.0) * 1000.0;
+        let reaction_width_mm = reactions
+            .get(support_index)
+            .copied()
+            .ok_or_else(no_support)?
+            * 1000.0;
         strips.push(PanelStrip {
             spans_m,
             overhang_start_m,
