@@ -6,16 +6,17 @@
 //! Corner zone `c`, intermediate support:
 //! - C_e = (h/10)^0.2 with h = 6 m (the 6 m floor for low buildings): 0.6^0.2 = 0.9029 (NBC 2020 4.1.7.3,
 //!   from memory). q C_e = 0.45 x 0.9029 = 0.4063 kPa.
-//! - External C_p C_g = -3.8 for the corner of a 7..27 deg gable at small areas; internal C_pi C_gi =
-//!   0.3 x 2.0 = 0.6 for category 2 (NBC 2020 Figure 4.1.7.6.-C and 4.1.7.7, from memory).
-//! - Wind: 1.4 x 0.4063 x (3.8 + 0.6) = 2.503 kPa; dead: 0.9 x 0.3 x cos 22.62 deg = 0.249 kPa
-//!   (NBC 2020 Table 4.1.3.2.-A, 0.9D + 1.4W, from memory). Net uplift 2.254 kPa.
+//! - External C_p C_g = -5.0 for the corner of a 7..27 deg gable at small areas (NBC 2020 Figure
+//!   4.1.7.6.-E, severe-of-two: a public reading of the figure against -3.8 from memory, neither
+//!   confirmed); internal C_pi C_gi = 0.3 x 2.0 = 0.6 for category 2 (NBC 2020 4.1.7.7, from memory).
+//! - Wind: 1.4 x 0.4063 x (5.0 + 0.6) = 3.185 kPa; dead: 0.9 x 0.3 x cos 22.62 deg = 0.249 kPa
+//!   (NBC 2020 Table 4.1.3.2.-A, 0.9D + 1.4W, from memory). Net uplift 2.936 kPa.
 //! - Reaction width at the first interior support of a 4-span strip: 32/28 x 610 = 697.1 mm (Hicks,
 //!   Civil Engineering Formulas, Table 2.1, checked).
 //! - Resistance: y_w = 16.4 x 3.25^0.82 x 0.42^2.2 = 6.394 N/mm; L_p = 63 - 11.1 = 51.9 mm;
 //!   P_rw = 0.6 x 6.394 x 51.9 = 199.1 N (CSA O86:19 12.9.5.2, from memory).
-//! - Spacing: at 150 mm, 2.254 x 697.1 x 0.150 = 235.7 N > 199.1 N; at 125 mm, 196.4 N <= 199.1 N:
-//!   125 mm o.c. (utilization 0.99). The splitting minimum 20 x 3.25 = 65 mm does not bind.
+//! - Spacing: at 100 mm, 2.936 x 697.1 x 0.100 = 204.7 N > 199.1 N; at 75 mm, 153.5 N <= 199.1 N:
+//!   75 mm o.c. (utilization 0.77). The splitting minimum 20 x 3.25 = 65 mm does not bind.
 
 use approx::assert_relative_eq;
 use deckhold_project::{parse_project, run_job, schedule_for, DEMO_PROJECT_JSON};
@@ -31,7 +32,7 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     );
 
     let q_ce_kpa: f64 = 0.45 * 0.6f64.powf(0.2);
-    let wind_kpa = 1.4 * q_ce_kpa * (3.8 + 0.6);
+    let wind_kpa = 1.4 * q_ce_kpa * (5.0 + 0.6);
     let dead_kpa = 0.9 * 0.3 * (5.0f64 / 12.0).atan().cos();
     let net_kpa = wind_kpa - dead_kpa;
     let resistance_n = 0.6 * 16.4 * 3.25f64.powf(0.82) * 0.42f64.powf(2.2) * (63.0 - 11.1);
@@ -53,8 +54,8 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
         .iter()
         .find(|row| row.label == "corner" && row.support_role == "intermediate")
         .expect("corner, intermediate");
-    assert_eq!(row.spacing_mm, Some(125.0));
-    let demand_n = net_kpa * 610.0 * 32.0 / 28.0 * 125.0 / 1000.0;
+    assert_eq!(row.spacing_mm, Some(75.0));
+    let demand_n = net_kpa * 610.0 * 32.0 / 28.0 * 75.0 / 1000.0;
     // The governing stretch may carry slightly more than the equal-span strip (the closing bay at the
     // gable end is shorter), never less.
     assert!(
@@ -62,5 +63,5 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
         "{}",
         row.demand_n
     );
-    assert!(row.utilization > 0.95 && row.utilization <= 1.0);
+    assert!(row.utilization > 0.75 && row.utilization <= 1.0);
 }

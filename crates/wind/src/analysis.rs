@@ -700,6 +700,19 @@ mod tests {
     }
 
     #[test]
+    fn nbc_sloped_roofs_use_the_more_severe_reading() {
+        // Severe-of-two, NBC 2020 Figure 4.1.7.6.-E: a public reading of the sloped-roof panel gives about
+        // -5.0 / -3.6 / -2.5 (corner / edge / interior, small area) against -3.8 / -2.5 / -1.3 from memory;
+        // neither confirmed (docs/sources.md). Both slope bands, held at all areas.
+        for slope in [20.0, 35.0] {
+            let case = input(RoofShape::Gable, slope, RidgeAlong::Length, nbc_site(0.5));
+            assert_relative_eq!(corner_cp_at_small_area(&case, "c"), -5.0);
+            assert_relative_eq!(corner_cp_at_small_area(&case, "s"), -3.6);
+            assert_relative_eq!(corner_cp_at_small_area(&case, "r"), -2.5);
+        }
+    }
+
+    #[test]
     fn refusals_name_the_field() {
         let mut steep = input(RoofShape::Gable, 50.0, RidgeAlong::Length, nbc_site(0.5));
         assert!(analyze(&steep)

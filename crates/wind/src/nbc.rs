@@ -103,6 +103,12 @@ pub(crate) fn basis(
         Factor::new("wind_load_factor", wind_factor, wind_source),
         Factor::new("dead_load_factor", dead_factor, dead_source),
     ];
+    let mut warnings = vec![
+        "NBC 2020 C_pC_g curves are from memory; check them against the printed Figures 4.1.7.6.-C and -E or override them".to_string(),
+    ];
+    if sloped {
+        warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
+    }
     Ok(StandardBasis {
         edition: Edition::Nbc2020,
         pressure: PressureBasis {
@@ -125,9 +131,7 @@ pub(crate) fn basis(
         slope_blend: None,
         zone_names: ["r", "s", "c"],
         factors,
-        warnings: vec![
-            "NBC 2020 C_pC_g curves are from memory; check them against the printed Figures 4.1.7.6.-C and -E or override them".to_string(),
-        ],
+        warnings,
     })
 }
 
@@ -182,6 +186,19 @@ mod tests {
         // q C_e with h_ref = 6 m (open terrain): 0.5 × 0.6^0.2.
         assert_relative_eq!(result.q_kpa, 0.5 * 0.6f64.powf(0.2), max_relative = 1e-12);
         assert_eq!(result.slope_set, "gable-hip-7-27");
+        assert!(result.warnings.iter().any(|w| w.contains("more severe")));
+    }
+
+    #[test]
+    fn importance_factor_cites_table_4_1_7_3() {
+        // NBC 2020 Table 4.1.7.3 (I_w for wind, ULS; from memory): normal 1.0, high 1.15.
+        let result = basis(&site(), 5.0, 10.0, RoofShape::Gable, 20.0, 0.5).expect("basis");
+        let i_w = result
+            .factors
+            .iter()
+            .find(|f| f.name == "I_w")
+            .expect("I_w");
+        assert!(i_w.source.contains("Table 4.1.7.3"), "{}", i_w.source);
     }
 
     #[test]

@@ -221,12 +221,12 @@ pub const NDS_CM_DRY: Coefficient = from_memory(
     "",
     "NDS 2018 Table 11.3.3, nails in withdrawal, dry in service",
 );
-pub const NDS_CM_WET: Coefficient = checked(
+pub const NDS_CM_WET: Coefficient = from_memory(
     "C_M",
     0.25,
     "",
-    "NDS 2018 Table 11.3.3, nails in withdrawal, fabricated dry and wet in service (checked for the 2001 \
-     edition, Table 10.3.3: AWC staff note, SEAINT list archive 2005b msg00555)",
+    "NDS 2018 Table 11.3.3, nails in withdrawal, fabricated dry and wet in service (unverified: a mailing-list \
+     note points to it, no published copy was checked)",
 );
 /// Toe-nails in withdrawal: the wet service factor does not apply.
 pub const NDS_CM_TOE_NAILED: Coefficient = checked(
