@@ -45,14 +45,14 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     let corner = schedule
         .zone_pressures
         .iter()
-        .find(|row| row.label == "corner")
+        .find(|row| row.label.as_str() == "corner")
         .expect("a corner zone");
     assert_relative_eq!(corner.net_uplift_kpa, net_kpa, max_relative = 1e-3);
 
     let row = schedule
         .zones
         .iter()
-        .find(|row| row.label == "corner" && row.support_role == "intermediate")
+        .find(|row| row.label.as_str() == "corner" && row.support_role.as_str() == "intermediate")
         .expect("corner, intermediate");
     assert_eq!(row.spacing_mm, Some(75.0));
     let demand_n = net_kpa * 610.0 * 32.0 / 28.0 * 75.0 / 1000.0;

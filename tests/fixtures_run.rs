@@ -114,7 +114,7 @@ fn worse_zones_never_get_wider_spacing_than_milder_ones() {
                 schedule
                     .zones
                     .iter()
-                    .find(|zone| zone.label == label && zone.support_role == role)
+                    .find(|zone| zone.label.as_str() == label && zone.support_role.as_str() == role)
                     .map(|zone| zone.spacing_mm.unwrap_or(0.0))
             };
             let (Some(corner), Some(edge), Some(interior)) =
@@ -142,7 +142,7 @@ fn a_per_zone_pattern_overrides_the_all_zones_spacing() {
     let wind = deckhold_wind::analyze(&project.wind).expect("wind");
     let checked = check_pattern(&project, &wind, &pattern).expect("checks");
     for row in &checked.rows {
-        let expected = match (row.label.as_str(), row.support_role) {
+        let expected = match (row.label.as_str(), row.support_role.as_str()) {
             ("corner", _) => 100.0,
             (_, "panel-edge") => 150.0,
             _ => 300.0,

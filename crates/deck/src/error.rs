@@ -59,6 +59,15 @@ pub enum SpacingError {
     },
 }
 
+impl From<deckhold_core::OutOfRange> for SpacingError {
+    fn from(error: deckhold_core::OutOfRange) -> Self {
+        SpacingError::Invalid {
+            field: error.key,
+            reason: format!("{} is outside {}", error.value, error.range),
+        }
+    }
+}
+
 /// Checks that `value` is finite and inside `lo..=hi`; `allowed` is the range as printed.
 pub(crate) fn check_range(
     field: impl Fn() -> String,

@@ -12,8 +12,9 @@ mod zones;
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::{check_positive, check_range, SpacingError};
+use crate::error::{check_positive, SpacingError};
 use courses::{bearing_at, course_joints, StripCache};
+use deckhold_core::limits;
 use geometry::{validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
 use zones::{zone_pieces, LineStrip};
@@ -80,15 +81,8 @@ pub enum Stagger {
     OffsetMm(f64),
 }
 
-/// What a framing line is to the panels of one course.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum SupportRole {
-    /// Panel ends meet on the line (two rows of nails), or the deck ends on it (one row).
-    PanelEdge,
-    /// The panel runs across the line.
-    Intermediate,
-}
+/// What a framing line is to the panels of one course (the shared vocabulary).
+pub use deckhold_core::SupportRole;
 
 /// One panel strip bearing on a line: a continuous beam over the lines it crosses.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -347,12 +341,7 @@ fn validate(
     }
     for (i, plane) in planes.iter().enumerate() {
         validate_polygon(&format!("planes[{i}].polygon_m"), &plane.polygon_m, true)?;
-        check_range(
-            || format!("planes[{i}].slope_deg"),
-            plane.slope_deg,
-            0.0,
-            60.0,
-        )?;
+        limits::SLOPE_DEG.check(&format!("planes[{i}].slope_deg"), plane.slope_deg)?;
         let [ux, uy] = plane.downslope_m;
         let field = || format!("planes[{i}].downslope_m");
         if !(ux.is_finite() && uy.is_finite()) {
@@ -396,12 +385,7 @@ fn validate(
             validate_polygon(&format!("zones[{i}].polygons_m[{j}]"), polygon, false)?;
         }
     }
-    check_range(
-        || "framing.spacing_mm".to_string(),
-        framing.spacing_mm,
-        200.0,
-        1220.0,
-    )?;
+    limits::FRAMING_SPACING_MM.check("framing.spacing_mm", framing.spacing_mm)?;
     if !(framing.first_line_offset_mm.is_finite()
         && framing.first_line_offset_mm >= 0.0
         && framing.first_line_offset_mm < framing.spacing_mm)
@@ -412,18 +396,8 @@ fn validate(
             allowed: format!("0..{} (less than framing.spacing_mm)", framing.spacing_mm),
         });
     }
-    check_range(
-        || "panel.length_mm".to_string(),
-        panel.length_mm,
-        600.0,
-        3700.0,
-    )?;
-    check_range(
-        || "panel.width_mm".to_string(),
-        panel.width_mm,
-        300.0,
-        1250.0,
-    )?;
+    limits::PANEL_LENGTH_MM.check("panel.length_mm", panel.length_mm)?;
+    limits::PANEL_WIDTH_MM.check("panel.width_mm", panel.width_mm)?;
     if let Stagger::OffsetMm(offset_mm) = panel.stagger {
         check_positive(|| "panel.stagger.offset_mm".to_string(), offset_mm)?;
         if offset_mm >= panel.length_mm {
@@ -673,7 +647,7 @@ mod tests {
         .expect_err("spacing");
         assert_eq!(
             error.to_string(),
-            "framing.spacing_mm: 150 is outside 200..1220"
+            "framing.spacing_mm: 150 mm is outside 200..1220 mm"
         );
         let mut steep = planes.clone();
         steep[1].slope_deg = 75.0;
@@ -681,7 +655,7 @@ mod tests {
             .expect_err("slope");
         assert_eq!(
             error.to_string(),
-            "planes[1].slope_deg: 75 is outside 0..60"
+            "planes[1].slope_deg: 75 deg is outside 0..45 deg"
         );
         let error = layout_deck(&planes, &zones, &[], &framing(610.0), &panel(Stagger::Half))
             .expect_err("rank");

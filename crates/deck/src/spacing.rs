@@ -64,7 +64,7 @@ impl SpacingRules {
         allowed.dedup();
         if allowed.is_empty() {
             return Err(SpacingError::NoIncrement {
-                role: role_name(role).to_string(),
+                role: role.to_string(),
                 min_mm: self.min_mm,
                 max_mm,
             });
@@ -128,14 +128,6 @@ impl SpacingLimit {
             SpacingLimit::NoPracticalSpacing => "no practical spacing",
             SpacingLimit::Given => "as given",
         }
-    }
-}
-
-/// `panel-edge` or `intermediate`.
-pub fn role_name(role: SupportRole) -> &'static str {
-    match role {
-        SupportRole::PanelEdge => "panel-edge",
-        SupportRole::Intermediate => "intermediate",
     }
 }
 
@@ -411,10 +403,10 @@ fn plan_or_check(
         if let Some(given) = given {
             let spacing_mm = given(key.0, key.1).ok_or(SpacingError::NoPattern {
                 zone_index: key.0,
-                role: role_name(key.1).to_string(),
+                role: key.1.to_string(),
             })?;
             check_range(
-                || format!("pattern spacing for zone {} ({})", key.0, role_name(key.1)),
+                || format!("pattern spacing for zone {} ({})", key.0, key.1),
                 spacing_mm,
                 10.0,
                 2000.0,

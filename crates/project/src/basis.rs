@@ -4,45 +4,22 @@ use deckhold_fasten::Method;
 use deckhold_schedule::{BasisInfo, Units};
 use deckhold_wind::StrengthMethod;
 
-/// The three bases deckhold implements.
-#[derive(Debug, Clone, Copy, PartialEq, Eq)]
-pub enum Basis {
-    /// NBC 2020 Part 4 wind (limit states: 1.4W, 0.9D) with CSA O86 nail withdrawal.
-    Nbc2020O86,
-    /// ASCE 7-22 Chapter 30 wind with NDS 2018 withdrawal, allowable stress design (0.6W, 0.6D).
-    Asce722Nds2018Asd,
-    /// ASCE 7-22 Chapter 30 wind with NDS 2018 withdrawal, load and resistance factor design (1.0W, 0.9D).
-    Asce722Nds2018Lrfd,
+pub use deckhold_core::Basis;
+
+/// What each basis means to the method crates and the report (the basis itself is shared vocabulary).
+pub trait BasisStandards {
+    /// The fastener method of this basis.
+    fn fastener_method(self) -> Method;
+    /// The US strength method (None for the Canadian basis).
+    fn strength_method(self) -> Option<StrengthMethod>;
+    /// Which units the report leads with.
+    fn units(self) -> Units;
+    /// The basis as the report prints it.
+    fn info(self) -> BasisInfo;
 }
 
-impl Basis {
-    /// The ids a project file or the command line may use.
-    pub const CHOICES: [(&'static str, Basis); 3] = [
-        ("nbc2020-o86", Basis::Nbc2020O86),
-        ("asce7-22-nds2018-asd", Basis::Asce722Nds2018Asd),
-        ("asce7-22-nds2018-lrfd", Basis::Asce722Nds2018Lrfd),
-    ];
-
-    pub fn id(self) -> &'static str {
-        match self {
-            Basis::Nbc2020O86 => "nbc2020-o86",
-            Basis::Asce722Nds2018Asd => "asce7-22-nds2018-asd",
-            Basis::Asce722Nds2018Lrfd => "asce7-22-nds2018-lrfd",
-        }
-    }
-
-    pub fn parse(id: &str) -> Option<Basis> {
-        Self::CHOICES
-            .iter()
-            .find(|(name, _)| *name == id)
-            .map(|(_, basis)| *basis)
-    }
-
-    pub fn is_us(self) -> bool {
-        !matches!(self, Basis::Nbc2020O86)
-    }
-
-    pub fn fastener_method(self) -> Method {
+impl BasisStandards for Basis {
+    fn fastener_method(self) -> Method {
         match self {
             Basis::Nbc2020O86 => Method::O86LimitStates,
             Basis::Asce722Nds2018Asd => Method::NdsAsd,
@@ -50,8 +27,7 @@ impl Basis {
         }
     }
 
-    /// The US strength method (None for the Canadian basis).
-    pub fn strength_method(self) -> Option<StrengthMethod> {
+    fn strength_method(self) -> Option<StrengthMethod> {
         match self {
             Basis::Nbc2020O86 => None,
             Basis::Asce722Nds2018Asd => Some(StrengthMethod::Asd),
@@ -59,7 +35,7 @@ impl Basis {
         }
     }
 
-    pub fn units(self) -> Units {
+    fn units(self) -> Units {
         if self.is_us() {
             Units::Imperial
         } else {
@@ -67,7 +43,7 @@ impl Basis {
         }
     }
 
-    pub fn info(self) -> BasisInfo {
+    fn info(self) -> BasisInfo {
         let (title, wind, fastener) = match self {
             Basis::Nbc2020O86 => (
                 "NBC 2020 Part 4 wind (limit states) with CSA O86 nail withdrawal",
@@ -86,7 +62,7 @@ impl Basis {
             ),
         };
         BasisInfo {
-            id: self.id().to_string(),
+            id: self.as_str().to_string(),
             title: title.to_string(),
             wind_standard: wind.to_string(),
             fastener_standard: fastener.to_string(),

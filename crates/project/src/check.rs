@@ -6,18 +6,18 @@ use crate::error::JobError;
 use crate::job::{deck_layout, net_uplift_kpa, penetration_for, resistance_input};
 use crate::project::{ExistingPattern, Project};
 use crate::rules::spacing_rules;
+use deckhold_core::ZoneKind;
 use deckhold_deck::layout::SupportRole;
-use deckhold_deck::spacing::{check_on_layout, role_name, DeckPlan, NailOption};
+use deckhold_deck::spacing::{check_on_layout, DeckPlan, NailOption};
 use deckhold_fasten::{Nail, Resistance};
 use deckhold_wind::WindAnalysis;
 
 /// One zone and support role of a checked pattern.
 #[derive(Debug, Clone, PartialEq)]
 pub struct CheckRow {
-    pub label: String,
+    pub label: ZoneKind,
     pub code_zone: String,
-    /// `panel-edge` or `intermediate`.
-    pub support_role: &'static str,
+    pub support_role: SupportRole,
     pub given_spacing_mm: f64,
     /// The widest practical spacing the zone needs with this nail (None: none works).
     pub required_spacing_mm: Option<f64>,
@@ -66,7 +66,7 @@ pub fn check_pattern(
     let by_zone: Vec<_> = wind
         .zones
         .iter()
-        .map(|zone| pattern.for_zone(zone.label.as_str()))
+        .map(|zone| pattern.for_zone(zone.label))
         .collect();
     let given = |zone_index: usize, role: SupportRole| -> Option<f64> {
         let spacing = by_zone.get(zone_index)?;
@@ -115,7 +115,7 @@ pub fn check_pattern(
         if given_spacing_mm > maximum_mm + 1e-6 {
             notes.push(format!(
                 "wider than the prescriptive maximum of {maximum_mm:.0} mm for {} supports",
-                role_name(role.support_role)
+                role.support_role
             ));
         }
         if given_spacing_mm < rules.min_mm - 1e-6 {
@@ -134,9 +134,9 @@ pub fn check_pattern(
             notes.push("no practical spacing works with this nail: use another nail".to_string());
         }
         rows.push(CheckRow {
-            label: zone.label.as_str().to_string(),
+            label: zone.label,
             code_zone: zone.code_zone.clone(),
-            support_role: role_name(role.support_role),
+            support_role: role.support_role,
             given_spacing_mm,
             required_spacing_mm,
             demand_n: role.demand_n,
@@ -150,8 +150,8 @@ pub fn check_pattern(
     // Worst zones first, panel edges before intermediate supports, as on the schedule.
     rows.sort_by_key(|row| {
         (
-            crate::report::zone_order(&row.label),
-            row.support_role != "panel-edge",
+            row.label.sheet_rank(),
+            row.support_role != SupportRole::PanelEdge,
         )
     });
     Ok(PatternCheck {

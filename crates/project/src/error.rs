@@ -25,6 +25,16 @@ pub enum ProjectError {
     Invalid { path: String, message: String },
 }
 
+impl From<deckhold_core::OutOfRange> for ProjectError {
+    fn from(error: deckhold_core::OutOfRange) -> Self {
+        ProjectError::OutOfRange {
+            path: error.key,
+            value: error.value,
+            range: error.range,
+        }
+    }
+}
+
 /// Anything that stops the whole job: a bad file, or a method that refuses the input.
 #[derive(Debug, Error)]
 pub enum JobError {

@@ -3,6 +3,7 @@
 //! Pure computation: a validated [`Project`] in, a [`Job`] out. The schedule for reports is built from the
 //! job by [`crate::report::schedule_for`].
 
+use crate::basis::BasisStandards;
 use crate::error::JobError;
 use crate::project::{LinesAlong, MemberRole, Project, StaggerChoice};
 use crate::rules::spacing_rules;
@@ -51,7 +52,7 @@ impl NailOutcome {
                             .map_or("?", |zone| zone.label.as_str());
                         format!(
                             "{label} {} (utilization {:.2} at the closest spacing)",
-                            deckhold_deck::spacing::role_name(role.support_role),
+                            role.support_role.as_str(),
                             role.utilization
                         )
                     })

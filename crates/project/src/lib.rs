@@ -12,7 +12,7 @@ pub mod project;
 pub mod reader;
 pub mod units;
 
-pub use basis::Basis;
+pub use basis::{Basis, BasisStandards};
 pub use demo::DEMO_PROJECT_JSON;
 pub use error::{JobError, ProjectError};
 pub use parse::{parse_project, project_from_value};

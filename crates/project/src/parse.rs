@@ -1,13 +1,15 @@
 //! Project file (JSON) to a validated [`Project`]. Every message names the key path and the allowed range;
 //! unknown keys are refused so that a misspelt key never falls back to a default silently.
 
-use crate::basis::Basis;
+use crate::basis::{Basis, BasisStandards};
 use crate::error::ProjectError;
 use crate::project::{
     Deck, ExistingPattern, Framing, LinesAlong, MemberRole, PatternSpacing, Project, StaggerChoice,
 };
-use crate::reader::{as_finite_number, check_range, ObjectReader};
+use crate::reader::{as_finite_number, ObjectReader};
 use crate::units::Quantity;
+use deckhold_core::limits::{self, Limit};
+use deckhold_core::ZoneKind;
 use deckhold_schedule::ProjectInfo;
 use deckhold_wind::{
     AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
@@ -15,8 +17,6 @@ use deckhold_wind::{
 };
 use serde_json::Value;
 
-/// Plan dimensions the tool accepts at all (the wind method narrows this further), m.
-const PLAN_SIZE_RANGE_M: (f64, f64) = (1.0, 300.0);
 /// The date printed when the project gives none: fixed, so output stays reproducible.
 pub const DEFAULT_DATE: &str = "2026-01-01";
 
@@ -36,10 +36,7 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
     })?;
     let basis = Basis::parse(basis_id).ok_or_else(|| ProjectError::Invalid {
         path: "basis".to_string(),
-        message: format!(
-            "'{basis_id}' is not one of {}",
-            Basis::CHOICES.map(|(id, _)| id).join(", ")
-        ),
+        message: format!("'{basis_id}' is not one of {}", Basis::words().join(", ")),
     })?;
     let building = read_building(&root.require_object("building")?)?;
     let roof = read_roof(&root.require_object("roof")?)?;
@@ -110,9 +107,10 @@ fn is_iso_date(text: &str) -> bool {
 fn read_building(block: &ObjectReader) -> Result<Building, ProjectError> {
     let footprint_block = block.require_object("footprint")?;
     let footprint = if let Some(rectangle) = footprint_block.object("rectangle")? {
-        let (min, max) = PLAN_SIZE_RANGE_M;
-        let length_m = rectangle.require_quantity("length", Quantity::LengthM, min, max)?;
-        let width_m = rectangle.require_quantity("width", Quantity::LengthM, min, max)?;
+        let length_m =
+            rectangle.require_quantity("length", Quantity::LengthM, &limits::PLAN_SIZE_M)?;
+        let width_m =
+            rectangle.require_quantity("width", Quantity::LengthM, &limits::PLAN_SIZE_M)?;
         rectangle.finish()?;
         Footprint::Rectangle { length_m, width_m }
     } else if footprint_block.has("polygon_m") || footprint_block.has("polygon_ft") {
@@ -125,7 +123,8 @@ fn read_building(block: &ObjectReader) -> Result<Building, ProjectError> {
         });
     };
     footprint_block.finish()?;
-    let eave_height_m = block.require_quantity("eave_height", Quantity::LengthM, 1.0, 100.0)?;
+    let eave_height_m =
+        block.require_quantity("eave_height", Quantity::LengthM, &limits::EAVE_HEIGHT_M)?;
     Ok(Building {
         footprint,
         eave_height_m,
@@ -150,13 +149,7 @@ fn read_polygon(block: &ObjectReader) -> Result<Vec<[f64; 2]>, ProjectError> {
             expected: "a list of [x, y] points".to_string(),
         });
     };
-    if points.len() < 4 || points.len() > 200 {
-        return Err(ProjectError::OutOfRange {
-            path,
-            value: format!("{} points", points.len()),
-            range: "4..200 points".to_string(),
-        });
-    }
+    limits::OUTLINE_CORNERS.check_count(&path, points.len())?;
     points
         .iter()
         .enumerate()
@@ -167,8 +160,8 @@ fn read_polygon(block: &ObjectReader) -> Result<Vec<[f64; 2]>, ProjectError> {
             match coordinates.as_deref() {
                 Some([x, y]) if point.as_array().map(Vec::len) == Some(2) => {
                     let point_path = format!("{path}[{index}]");
-                    check_range(&point_path, *x * scale, -1000.0, 1000.0, "m")?;
-                    check_range(&point_path, *y * scale, -1000.0, 1000.0, "m")?;
+                    limits::OUTLINE_COORDINATE_M.check(&point_path, *x * scale)?;
+                    limits::OUTLINE_COORDINATE_M.check(&point_path, *y * scale)?;
                     Ok([*x * scale, *y * scale])
                 }
                 _ => Err(ProjectError::WrongType {
@@ -182,15 +175,7 @@ fn read_polygon(block: &ObjectReader) -> Result<Vec<[f64; 2]>, ProjectError> {
 
 fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
     let shape = block
-        .choice(
-            "shape",
-            &[
-                ("gable", RoofShape::Gable),
-                ("hip", RoofShape::Hip),
-                ("monoslope", RoofShape::Monoslope),
-                ("flat", RoofShape::Flat),
-            ],
-        )?
+        .kind("shape", RoofShape::ALL, RoofShape::as_str)?
         .ok_or_else(|| ProjectError::Missing {
             path: "roof.shape".to_string(),
         })?;
@@ -202,7 +187,9 @@ fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
             })
         }
         (true, false) => parse_rise_run(block.string("slope")?.unwrap_or_default())?,
-        (false, true) => block.number("slope_deg", 0.0, 60.0)?.unwrap_or_default(),
+        (false, true) => block
+            .number("slope_deg", &limits::SLOPE_DEG)?
+            .unwrap_or_default(),
         (false, false) if shape == RoofShape::Flat => 0.0,
         (false, false) => {
             return Err(ProjectError::Missing {
@@ -217,16 +204,16 @@ fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
         )?
         .unwrap_or(RidgeAlong::Length);
     let overhang_mm = block
-        .quantity("overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .quantity("overhang", Quantity::LengthMm, &limits::OVERHANG_MM)?
         .unwrap_or(0.0);
     let eave_overhang_mm = block
-        .quantity("eave_overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .quantity("eave_overhang", Quantity::LengthMm, &limits::OVERHANG_MM)?
         .unwrap_or(overhang_mm);
     let rake_overhang_mm = block
-        .quantity("rake_overhang", Quantity::LengthMm, 0.0, 1500.0)?
+        .quantity("rake_overhang", Quantity::LengthMm, &limits::OVERHANG_MM)?
         .unwrap_or(overhang_mm);
     let dead_load_kpa = block
-        .quantity("dead_load", Quantity::PressureKpa, 0.0, 5.0)?
+        .quantity("dead_load", Quantity::PressureKpa, &limits::DEAD_LOAD_KPA)?
         .unwrap_or(0.0);
     block.finish()?;
     Ok(Roof {
@@ -252,19 +239,18 @@ fn parse_rise_run(text: &str) -> Result<f64, ProjectError> {
         return Err(invalid());
     }
     let slope_deg = (rise / run).atan().to_degrees();
-    check_range("roof.slope", slope_deg, 0.0, 60.0, "deg")?;
+    limits::SLOPE_DEG.check("roof.slope", slope_deg)?;
     Ok(slope_deg)
 }
 
 fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectError> {
     let site = match basis.strength_method() {
         None => {
-            let q50_kpa =
-                block
-                    .number("q50_kpa", 0.1, 3.0)?
-                    .ok_or_else(|| ProjectError::Missing {
-                        path: "wind.q50_kpa".to_string(),
-                    })?;
+            let q50_kpa = block.number("q50_kpa", &limits::Q50_KPA)?.ok_or_else(|| {
+                ProjectError::Missing {
+                    path: "wind.q50_kpa".to_string(),
+                }
+            })?;
             let terrain = block
                 .choice(
                     "terrain",
@@ -273,7 +259,9 @@ fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectErro
                 .ok_or_else(|| ProjectError::Missing {
                     path: "wind.terrain".to_string(),
                 })?;
-            let topographic_factor = block.number("topographic_factor", 1.0, 4.0)?.unwrap_or(1.0);
+            let topographic_factor = block
+                .number("topographic_factor", &limits::TOPOGRAPHIC_FACTOR)?
+                .unwrap_or(1.0);
             let importance = block
                 .choice(
                     "importance",
@@ -285,12 +273,11 @@ fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectErro
                     ],
                 )?
                 .unwrap_or(Importance::Normal);
-            let internal_category =
-                block
-                    .number("internal_category", 1.0, 3.0)?
-                    .ok_or_else(|| ProjectError::Missing {
-                        path: "wind.internal_category".to_string(),
-                    })?;
+            let internal_category = block
+                .number("internal_category", &limits::INTERNAL_CATEGORY)?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: "wind.internal_category".to_string(),
+                })?;
             if internal_category.fract() != 0.0 {
                 return Err(ProjectError::Invalid {
                     path: "wind.internal_category".to_string(),
@@ -306,12 +293,11 @@ fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectErro
             })
         }
         Some(method) => {
-            let speed_mph =
-                block
-                    .number("speed_mph", 60.0, 300.0)?
-                    .ok_or_else(|| ProjectError::Missing {
-                        path: "wind.speed_mph".to_string(),
-                    })?;
+            let speed_mph = block
+                .number("speed_mph", &limits::SPEED_MPH)?
+                .ok_or_else(|| ProjectError::Missing {
+                    path: "wind.speed_mph".to_string(),
+                })?;
             let exposure = block
                 .choice(
                     "exposure",
@@ -320,9 +306,13 @@ fn read_wind(block: &ObjectReader, basis: Basis) -> Result<SiteWind, ProjectErro
                 .ok_or_else(|| ProjectError::Missing {
                     path: "wind.exposure".to_string(),
                 })?;
-            let kzt = block.number("kzt", 1.0, 4.0)?.unwrap_or(1.0);
+            let kzt = block.number("kzt", &limits::KZT)?.unwrap_or(1.0);
             let ground_elevation_ft = block
-                .quantity("ground_elevation", Quantity::LengthM, -100.0, 3500.0)?
+                .quantity(
+                    "ground_elevation",
+                    Quantity::LengthM,
+                    &limits::GROUND_ELEVATION_M,
+                )?
                 .map(|elevation_m| Quantity::LengthM.from_si(elevation_m))
                 .unwrap_or(0.0);
             let enclosure = block
@@ -395,13 +385,15 @@ fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectErro
                 .enumerate()
                 .map(|(point_index, raw)| {
                     let point = ObjectReader::new(&format!("{path}.points[{point_index}]"), raw)?;
-                    let area_m2 =
-                        point.require_quantity("area", Quantity::AreaM2, 0.01, 10_000.0)?;
-                    let coefficient =
-                        point.number("coefficient", -20.0, 20.0)?.ok_or_else(|| {
-                            ProjectError::Missing {
-                                path: point.key_path("coefficient"),
-                            }
+                    let area_m2 = point.require_quantity(
+                        "area",
+                        Quantity::AreaM2,
+                        &limits::OVERRIDE_AREA_M2,
+                    )?;
+                    let coefficient = point
+                        .number("coefficient", &limits::OVERRIDE_COEFFICIENT)?
+                        .ok_or_else(|| ProjectError::Missing {
+                            path: point.key_path("coefficient"),
                         })?;
                     point.finish()?;
                     Ok(CurvePoint {
@@ -421,7 +413,8 @@ fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectErro
 }
 
 fn read_framing(block: &ObjectReader, basis: Basis) -> Result<Framing, ProjectError> {
-    let spacing_mm = block.require_quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)?;
+    let spacing_mm =
+        block.require_quantity("spacing", Quantity::LengthMm, &limits::FRAMING_SPACING_MM)?;
     let species_id = block
         .string("species")?
         .ok_or_else(|| ProjectError::Missing {
@@ -450,10 +443,10 @@ fn read_framing(block: &ObjectReader, basis: Basis) -> Result<Framing, ProjectEr
         (38.0, 89.0)
     };
     let member_width_mm = block
-        .quantity("member_width", Quantity::LengthMm, 19.0, 400.0)?
+        .quantity("member_width", Quantity::LengthMm, &limits::MEMBER_WIDTH_MM)?
         .unwrap_or(default_width_mm);
     let member_depth_mm = block
-        .quantity("member_depth", Quantity::LengthMm, 19.0, 1200.0)?
+        .quantity("member_depth", Quantity::LengthMm, &limits::MEMBER_DEPTH_MM)?
         .unwrap_or(default_depth_mm);
     let lines_along = block.choice(
         "runs_along",
@@ -483,7 +476,8 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         path: "deck.panel".to_string(),
         message: error.to_string(),
     })?;
-    let thickness_mm = block.require_quantity("thickness", Quantity::LengthMm, 6.0, 40.0)?;
+    let thickness_mm =
+        block.require_quantity("thickness", Quantity::LengthMm, &limits::DECK_THICKNESS_MM)?;
     // 1220 x 2440 mm in Canada, 48 x 96 in in the US.
     let (default_length_mm, default_width_mm) = if basis.is_us() {
         (2438.4, 1219.2)
@@ -491,10 +485,10 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         (2440.0, 1220.0)
     };
     let panel_length_mm = block
-        .quantity("panel_length", Quantity::LengthMm, 600.0, 3700.0)?
+        .quantity("panel_length", Quantity::LengthMm, &limits::PANEL_LENGTH_MM)?
         .unwrap_or(default_length_mm);
     let panel_width_mm = block
-        .quantity("panel_width", Quantity::LengthMm, 300.0, 1250.0)?
+        .quantity("panel_width", Quantity::LengthMm, &limits::PANEL_WIDTH_MM)?
         .unwrap_or(default_width_mm);
     let stagger = match block.get("stagger") {
         None => StaggerChoice::Half,
@@ -502,8 +496,11 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         Some(Value::String(word)) if word == "none" => StaggerChoice::None,
         Some(Value::Object(_)) => {
             let offset = block.require_object("stagger")?;
-            let offset_mm =
-                offset.require_quantity("offset", Quantity::LengthMm, 0.0, panel_length_mm)?;
+            let offset_mm = offset.require_quantity(
+                "offset",
+                Quantity::LengthMm,
+                &stagger_limit(panel_length_mm),
+            )?;
             offset.finish()?;
             StaggerChoice::OffsetMm(offset_mm)
         }
@@ -519,7 +516,7 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         .unwrap_or(false);
     let treated = block.bool("treated")?.unwrap_or(false);
     let between_mm = block
-        .quantity("between", Quantity::LengthMm, 0.0, 100.0)?
+        .quantity("between", Quantity::LengthMm, &limits::BETWEEN_MM)?
         .unwrap_or(0.0);
     block.finish()?;
     Ok(Deck {
@@ -581,16 +578,9 @@ fn read_existing(block: &ObjectReader) -> Result<ExistingPattern, ProjectError> 
     let all_zones = read_pattern_spacing(block)?;
     let mut by_zone = Vec::new();
     if let Some(zones) = block.object("zones")? {
-        for label in [
-            "interior",
-            "edge",
-            "corner",
-            "overhang-interior",
-            "overhang-edge",
-            "overhang-corner",
-        ] {
-            if let Some(zone) = zones.object(label)? {
-                by_zone.push((label.to_string(), read_pattern_spacing(&zone)?));
+        for kind in ZoneKind::ALL {
+            if let Some(zone) = zones.object(kind.as_str())? {
+                by_zone.push((*kind, read_pattern_spacing(&zone)?));
                 zone.finish()?;
             }
         }
@@ -609,14 +599,23 @@ fn read_pattern_spacing(block: &ObjectReader) -> Result<PatternSpacing, ProjectE
         edge_spacing_mm: block.require_quantity(
             "edge_spacing",
             Quantity::LengthMm,
-            10.0,
-            1000.0,
+            &limits::PATTERN_SPACING_MM,
         )?,
         intermediate_spacing_mm: block.require_quantity(
             "intermediate_spacing",
             Quantity::LengthMm,
-            10.0,
-            1000.0,
+            &limits::PATTERN_SPACING_MM,
         )?,
     })
+}
+
+/// The stagger offset's range depends on the panel: less than one panel length.
+fn stagger_limit(panel_length_mm: f64) -> Limit {
+    Limit {
+        key: "deck.stagger.offset_mm",
+        min: 0.0,
+        max: panel_length_mm,
+        unit: "mm",
+        reason: "an offset of a whole panel length is no offset",
+    }
 }

@@ -1,6 +1,7 @@
 //! The validated project: everything the job needs, typed and in SI units.
 
 use crate::basis::Basis;
+use deckhold_core::ZoneKind;
 use deckhold_schedule::ProjectInfo;
 use deckhold_wind::WindInput;
 
@@ -81,16 +82,16 @@ pub struct PatternSpacing {
 pub struct ExistingPattern {
     pub nail_id: String,
     pub all_zones: PatternSpacing,
-    /// Per-zone overrides by zone label (`corner`, `edge`, ...).
-    pub by_zone: Vec<(String, PatternSpacing)>,
+    /// Per-zone overrides by zone kind.
+    pub by_zone: Vec<(ZoneKind, PatternSpacing)>,
 }
 
 impl ExistingPattern {
     /// The spacings that apply in a zone.
-    pub fn for_zone(&self, label: &str) -> PatternSpacing {
+    pub fn for_zone(&self, kind: ZoneKind) -> PatternSpacing {
         self.by_zone
             .iter()
-            .find(|(zone, _)| zone == label)
+            .find(|(zone, _)| *zone == kind)
             .map(|(_, spacing)| *spacing)
             .unwrap_or(self.all_zones)
     }

@@ -3,6 +3,7 @@
 
 use crate::error::ProjectError;
 use crate::units::Quantity;
+use deckhold_core::limits::Limit;
 use serde_json::{Map, Value};
 use std::cell::RefCell;
 use std::collections::BTreeSet;
@@ -87,13 +88,13 @@ impl<'a> ObjectReader<'a> {
         }
     }
 
-    /// A plain number (no unit variants), checked to lie in `min..=max`.
-    pub fn number(&self, key: &str, min: f64, max: f64) -> Result<Option<f64>, ProjectError> {
+    /// A plain number (no unit variants), checked against its limit.
+    pub fn number(&self, key: &str, limit: &Limit) -> Result<Option<f64>, ProjectError> {
         let Some(value) = self.get(key) else {
             return Ok(None);
         };
         let number = as_finite_number(value).ok_or_else(|| self.wrong_type(key, "a number"))?;
-        check_range(&self.key_path(key), number, min, max, "")?;
+        limit.check(&self.key_path(key), number)?;
         Ok(Some(number))
     }
 
@@ -123,14 +124,24 @@ impl<'a> ObjectReader<'a> {
             })
     }
 
+    /// One of the kinds of the shared vocabulary, written as its word.
+    pub fn kind<T: Copy>(
+        &self,
+        key: &str,
+        all: &[T],
+        word: fn(T) -> &'static str,
+    ) -> Result<Option<T>, ProjectError> {
+        let choices: Vec<(&str, T)> = all.iter().map(|kind| (word(*kind), *kind)).collect();
+        self.choice(key, &choices)
+    }
+
     /// A quantity that may be given in SI or US units (`eave_height_m` or `eave_height_ft`), never both.
-    /// Returns the value converted to the SI unit, checked against the SI range.
+    /// Returns the value converted to the SI unit, checked against its limit (in the unit the user wrote).
     pub fn quantity(
         &self,
         stem: &str,
         quantity: Quantity,
-        min_si: f64,
-        max_si: f64,
+        limit: &Limit,
     ) -> Result<Option<f64>, ProjectError> {
         let si_key = format!("{stem}_{}", quantity.si_suffix());
         let us_key = format!("{stem}_{}", quantity.us_suffix());
@@ -142,32 +153,18 @@ impl<'a> ObjectReader<'a> {
             (false, false) => Ok(None),
             (true, false) => {
                 let value = self.raw_number(&si_key)?;
-                check_range(
-                    &self.key_path(&si_key),
-                    value,
-                    min_si,
-                    max_si,
-                    quantity.si_unit(),
-                )?;
+                limit.check_scaled(&self.key_path(&si_key), value, 1.0, quantity.si_unit())?;
                 Ok(Some(value))
             }
             (false, true) => {
                 let value = self.raw_number(&us_key)?;
-                let value_si = quantity.to_si(value);
-                let (min_us, max_us) = (quantity.from_si(min_si), quantity.from_si(max_si));
-                if !(min_si..=max_si).contains(&value_si) {
-                    return Err(ProjectError::OutOfRange {
-                        path: self.key_path(&us_key),
-                        value: format!("{value} {}", quantity.us_unit()),
-                        range: format!(
-                            "{}..{} {}",
-                            round_for_message(min_us),
-                            round_for_message(max_us),
-                            quantity.us_unit()
-                        ),
-                    });
-                }
-                Ok(Some(value_si))
+                limit.check_scaled(
+                    &self.key_path(&us_key),
+                    value,
+                    quantity.to_si(1.0),
+                    quantity.us_unit(),
+                )?;
+                Ok(Some(quantity.to_si(value)))
             }
         }
     }
@@ -176,10 +173,9 @@ impl<'a> ObjectReader<'a> {
         &self,
         stem: &str,
         quantity: Quantity,
-        min_si: f64,
-        max_si: f64,
+        limit: &Limit,
     ) -> Result<f64, ProjectError> {
-        self.quantity(stem, quantity, min_si, max_si)?
+        self.quantity(stem, quantity, limit)?
             .ok_or_else(|| ProjectError::Missing {
                 path: self.key_path(&format!("{stem}_{}", quantity.si_suffix())),
             })
@@ -227,54 +223,19 @@ pub fn as_finite_number(value: &Value) -> Option<f64> {
     value.as_f64().filter(|number| number.is_finite())
 }
 
-/// Refuses a value outside `min..=max`, naming the key and the range in its unit.
-pub fn check_range(
-    path: &str,
-    value: f64,
-    min: f64,
-    max: f64,
-    unit: &str,
-) -> Result<(), ProjectError> {
-    if (min..=max).contains(&value) {
-        return Ok(());
-    }
-    let unit_text = if unit.is_empty() {
-        String::new()
-    } else {
-        format!(" {unit}")
-    };
-    Err(ProjectError::OutOfRange {
-        path: path.to_string(),
-        value: format!("{}{unit_text}", round_for_message(value)),
-        range: format!(
-            "{}..{}{unit_text}",
-            round_for_message(min),
-            round_for_message(max)
-        ),
-    })
-}
-
-/// Up to three decimals, no trailing zeros: messages read "outside 0..45", not "0.000000..45.000000".
-pub fn round_for_message(value: f64) -> String {
-    let text = format!("{value:.3}");
-    let text = text.trim_end_matches('0').trim_end_matches('.');
-    if text == "-0" {
-        "0".to_string()
-    } else {
-        text.to_string()
-    }
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
+    use deckhold_core::limits;
     use serde_json::json;
 
     #[test]
     fn unknown_key_is_named_with_its_path() {
         let value = json!({"slope_deg": 20.0, "slop": 3});
         let reader = ObjectReader::new("roof", &value).expect("object");
-        reader.number("slope_deg", 0.0, 60.0).expect("in range");
+        reader
+            .number("slope_deg", &limits::SLOPE_DEG)
+            .expect("in range");
         let error = reader.finish().expect_err("unknown key");
         assert!(
             error.to_string().starts_with("roof.slop: unknown key"),
@@ -287,7 +248,7 @@ mod tests {
         let value = json!({"eave_height_m": 5.0, "eave_height_ft": 16.0});
         let reader = ObjectReader::new("building", &value).expect("object");
         let error = reader
-            .quantity("eave_height", Quantity::LengthM, 0.1, 100.0)
+            .quantity("eave_height", Quantity::LengthM, &limits::EAVE_HEIGHT_M)
             .expect_err("both");
         assert_eq!(
             error.to_string(),
@@ -300,14 +261,14 @@ mod tests {
         let value = json!({"spacing_in": 24.0});
         let reader = ObjectReader::new("framing", &value).expect("object");
         let spacing_mm = reader
-            .quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)
+            .quantity("spacing", Quantity::LengthMm, &limits::FRAMING_SPACING_MM)
             .expect("ok")
             .expect("present");
         approx::assert_relative_eq!(spacing_mm, 609.6, epsilon = 1e-9);
         let value = json!({"spacing_in": 60.0});
         let reader = ObjectReader::new("framing", &value).expect("object");
         let error = reader
-            .quantity("spacing", Quantity::LengthMm, 200.0, 1220.0)
+            .quantity("spacing", Quantity::LengthMm, &limits::FRAMING_SPACING_MM)
             .expect_err("too wide");
         assert_eq!(
             error.to_string(),
@@ -319,7 +280,12 @@ mod tests {
     fn out_of_range_message_names_key_and_range() {
         let value = json!({"slope_deg": 75});
         let reader = ObjectReader::new("roof", &value).expect("object");
-        let error = reader.number("slope_deg", 0.0, 45.0).expect_err("range");
-        assert_eq!(error.to_string(), "roof.slope_deg: 75 is outside 0..45");
+        let error = reader
+            .number("slope_deg", &limits::SLOPE_DEG)
+            .expect_err("range");
+        assert_eq!(
+            error.to_string(),
+            "roof.slope_deg: 75 deg is outside 0..45 deg"
+        );
     }
 }

@@ -2,11 +2,12 @@
 //!
 //! Only gathering and naming here: every number is one the wind, resistance or spacing step computed.
 
+use crate::basis::BasisStandards;
 use crate::job::{Job, NailOutcome};
 use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, SupportRole};
-use deckhold_deck::spacing::{role_name, DeckPlan, RafterLine};
+use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_schedule::{
     standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
     ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
@@ -191,7 +192,7 @@ fn zone_pressures(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> Vec<ZonePress
                 .unwrap_or(0.1);
             let uplift = wind.uplift(zone_index, effective_area_m2).ok()?;
             Some(ZonePressureRow {
-                label: zone.label.as_str().to_string(),
+                label: zone.label,
                 code_zone: zone.code_zone.clone(),
                 area_m2: zone.area_m2,
                 effective_area_m2,
@@ -218,14 +219,14 @@ fn zone_rows(wind: &WindAnalysis, plan: &DeckPlan, outcome: &NailOutcome) -> Vec
         .iter()
         .filter_map(|role| {
             let zone = wind.zones.get(role.zone_index)?;
-            let order = zone_order(zone.label.as_str()) * 2
+            let order = zone.label.sheet_rank() * 2
                 + u32::from(role.support_role == SupportRole::Intermediate);
             Some((
                 order,
                 ZoneRow {
-                    label: zone.label.as_str().to_string(),
+                    label: zone.label,
                     code_zone: zone.code_zone.clone(),
-                    support_role: role_name(role.support_role).to_string(),
+                    support_role: role.support_role,
                     nail_id: outcome.nail.id.clone(),
                     nail_description: outcome.nail.description.clone(),
                     spacing_mm: role.spacing_mm,
@@ -245,18 +246,6 @@ fn zone_rows(wind: &WindAnalysis, plan: &DeckPlan, outcome: &NailOutcome) -> Vec
     rows.into_iter().map(|(_, row)| row).collect()
 }
 
-/// Worst zones first on the crew's sheet.
-pub(crate) fn zone_order(label: &str) -> u32 {
-    match label {
-        "corner" => 0,
-        "edge" => 1,
-        "interior" => 2,
-        "overhang-corner" => 3,
-        "overhang-edge" => 4,
-        _ => 5,
-    }
-}
-
 fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
     plan.lines
         .iter()
@@ -267,17 +256,16 @@ fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
             segments: line
                 .segments
                 .iter()
-                .map(|segment| SegmentRow {
-                    from_m: segment.from_m,
-                    to_m: segment.to_m,
-                    zone_label: wind
-                        .zones
-                        .get(segment.zone_index)
-                        .map(|zone| zone.label.as_str().to_string())
-                        .unwrap_or_default(),
-                    support_role: role_name(segment.support_role).to_string(),
-                    spacing_mm: segment.spacing_mm,
-                    utilization: segment.utilization,
+                // The deck plan's zone indices come from these zones (the deck crate checks them).
+                .filter_map(|segment| {
+                    Some(SegmentRow {
+                        from_m: segment.from_m,
+                        to_m: segment.to_m,
+                        zone_label: wind.zones.get(segment.zone_index)?.label,
+                        support_role: segment.support_role,
+                        spacing_mm: segment.spacing_mm,
+                        utilization: segment.utilization,
+                    })
                 })
                 .collect(),
         })
@@ -293,7 +281,7 @@ fn plan_view(wind: &WindAnalysis, courses: &[Course], plan: Option<&DeckPlan>) -
             .zones
             .iter()
             .map(|zone| PlanZone {
-                label: zone.label.as_str().to_string(),
+                label: zone.label,
                 code_zone: zone.code_zone.clone(),
                 polygons_m: zone.polygons_m.clone(),
             })
@@ -362,7 +350,7 @@ fn input_rows(project: &Project) -> Vec<InputRow> {
         value,
     };
     let wind = &project.wind;
-    let mut rows = vec![row("basis", project.basis.id().to_string())];
+    let mut rows = vec![row("basis", project.basis.to_string())];
     match &wind.building.footprint {
         Footprint::Rectangle { length_m, width_m } => {
             rows.push(row(

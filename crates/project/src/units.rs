@@ -1,13 +1,6 @@
 //! Unit variants of project-file quantities. SI inside; US keys are converted here, at the edge.
 
-/// Millimetres per inch (exact by definition).
-pub const MM_PER_IN: f64 = 25.4;
-/// Metres per foot (exact by definition).
-pub const M_PER_FT: f64 = 0.3048;
-/// Kilopascals per pound-force per square foot.
-pub const KPA_PER_PSF: f64 = 0.047_880_259;
-/// Newtons per pound-force.
-pub const N_PER_LBF: f64 = 4.448_221_615;
+pub use deckhold_core::units::{KPA_PER_PSF, MM_PER_IN, M_PER_FT, N_PER_LBF};
 
 /// A kind of quantity with its SI and US key suffixes.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

@@ -53,7 +53,7 @@ pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
             .write_record([
                 row.label.as_str(),
                 &row.code_zone,
-                &row.support_role,
+                row.support_role.as_str(),
                 &row.nail_id,
                 &row.nail_description,
                 &spacing_mm,

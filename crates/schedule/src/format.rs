@@ -5,14 +5,12 @@
 
 use crate::ScheduleError;
 
-/// Millimetres per inch: exact by definition (international yard and pound agreement, 1959).
-pub const MM_PER_IN: f64 = 25.4;
-/// Millimetres per foot: 12 in, exact.
-pub const MM_PER_FT: f64 = 304.8;
-/// Kilopascals per pound-force per square foot (1 psf = 47.88026 Pa; from 4.448222 N / 0.09290304 m²).
-pub const KPA_PER_PSF: f64 = 0.047_880_26;
-/// Newtons per pound-force (standard gravity 9.80665 m/s² times 0.45359237 kg, rounded to 7 digits).
-pub const N_PER_LBF: f64 = 4.448_222;
+/// The conversions under the names the writers use (`deckhold_core::units` holds the one definition).
+pub use deckhold_core::units::{
+    ft_from_m as m_to_ft, in_from_mm as mm_to_in, lbf_from_n as n_to_lbf,
+    psf_from_kpa as kpa_to_psf,
+};
+pub use deckhold_core::units::{KPA_PER_PSF, MM_PER_FT, MM_PER_IN, N_PER_LBF};
 
 /// Decimal places of each printed quantity; the CSV files and docs/report-format.md use the same.
 pub mod places {
@@ -66,22 +64,6 @@ pub fn finite(field: &str, value: f64) -> Result<f64, ScheduleError> {
             value,
         })
     }
-}
-
-pub fn mm_to_in(mm: f64) -> f64 {
-    mm / MM_PER_IN
-}
-
-pub fn kpa_to_psf(kpa: f64) -> f64 {
-    kpa / KPA_PER_PSF
-}
-
-pub fn n_to_lbf(n: f64) -> f64 {
-    n / N_PER_LBF
-}
-
-pub fn m_to_ft(m: f64) -> f64 {
-    m * 1000.0 / MM_PER_FT
 }
 
 /// A plan length the way a tape reads in the US: feet, inches and the nearest quarter inch (`39'-4 1/2"`).
@@ -207,10 +189,10 @@ mod tests {
     fn conversions_match_the_exact_definitions() {
         // 1 in = 25.4 mm exactly (international inch, 1959).
         assert_relative_eq!(mm_to_in(152.4), 6.0, max_relative = 1e-12);
-        // 1 lbf = 4.448222 N (standard gravity times the avoirdupois pound).
-        assert_relative_eq!(n_to_lbf(4.448222), 1.0, max_relative = 1e-12);
+        // 1 lbf = 4.4482216152605 N exactly (0.45359237 kg x 9.80665 m/s²).
+        assert_relative_eq!(n_to_lbf(4.448_221_615_260_5), 1.0, max_relative = 1e-15);
         // 1 psf = 47.88026 Pa.
-        assert_relative_eq!(kpa_to_psf(0.04788026), 1.0, max_relative = 1e-12);
+        assert_relative_eq!(kpa_to_psf(0.047_880_26), 1.0, max_relative = 1e-7);
         assert_relative_eq!(m_to_ft(0.3048), 1.0, max_relative = 1e-12);
     }
 

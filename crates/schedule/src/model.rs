@@ -5,6 +5,7 @@
 //! so a report can never disagree with the numbers that were checked. All quantities are SI; the writers
 //! add the US twins where [`Units::Imperial`] asks for them.
 
+pub use deckhold_core::{SupportRole, ZoneKind};
 use serde::Serialize;
 
 /// Which units the printed report leads with. CSV files always carry both.
@@ -62,8 +63,7 @@ pub struct InputRow {
 /// A roof zone drawn on the plan.
 #[derive(Debug, Clone, Serialize)]
 pub struct PlanZone {
-    /// `interior`, `edge`, `corner`, `overhang-interior`, `overhang-edge` or `overhang-corner`.
-    pub label: String,
+    pub label: ZoneKind,
     /// The standard's own name for the zone (e.g. `s` or `2e`).
     pub code_zone: String,
     /// Polygons in plan coordinates, m.
@@ -127,7 +127,7 @@ pub struct ResistanceInfo {
 /// Pressures on one zone at the effective area of the governing nail.
 #[derive(Debug, Clone, Serialize)]
 pub struct ZonePressureRow {
-    pub label: String,
+    pub label: ZoneKind,
     pub code_zone: String,
     /// Plan area of the zone, m².
     pub area_m2: f64,
@@ -144,10 +144,9 @@ pub struct ZonePressureRow {
 /// One line of the crew's schedule: a zone and a support role.
 #[derive(Debug, Clone, Serialize)]
 pub struct ZoneRow {
-    pub label: String,
+    pub label: ZoneKind,
     pub code_zone: String,
-    /// `panel-edge` or `intermediate`.
-    pub support_role: String,
+    pub support_role: SupportRole,
     pub nail_id: String,
     pub nail_description: String,
     /// None: no practical spacing works with this nail.
@@ -171,8 +170,8 @@ pub struct SegmentRow {
     /// Along the slope from the line's low end, m.
     pub from_m: f64,
     pub to_m: f64,
-    pub zone_label: String,
-    pub support_role: String,
+    pub zone_label: ZoneKind,
+    pub support_role: SupportRole,
     pub spacing_mm: Option<f64>,
     pub utilization: f64,
 }

@@ -17,7 +17,7 @@ const SAMPLE_SLOPE_COS: f64 = 0.948_683;
 /// One zone of the sample: label, code zone, invented net uplift (kPa) and spacings (mm) for panel edges
 /// and intermediate supports.
 struct SampleZone {
-    label: &'static str,
+    label: ZoneKind,
     code_zone: &'static str,
     net_uplift_kpa: f64,
     edge_spacing_mm: f64,
@@ -26,35 +26,35 @@ struct SampleZone {
 
 const SAMPLE_ZONES: [SampleZone; 5] = [
     SampleZone {
-        label: "interior",
+        label: ZoneKind::Interior,
         code_zone: "r",
         net_uplift_kpa: 1.10,
         edge_spacing_mm: 150.0,
         intermediate_spacing_mm: 300.0,
     },
     SampleZone {
-        label: "edge",
+        label: ZoneKind::Edge,
         code_zone: "s",
         net_uplift_kpa: 1.85,
         edge_spacing_mm: 100.0,
         intermediate_spacing_mm: 150.0,
     },
     SampleZone {
-        label: "corner",
+        label: ZoneKind::Corner,
         code_zone: "c",
         net_uplift_kpa: 2.70,
         edge_spacing_mm: 75.0,
         intermediate_spacing_mm: 100.0,
     },
     SampleZone {
-        label: "overhang-edge",
+        label: ZoneKind::OverhangEdge,
         code_zone: "oh-s",
         net_uplift_kpa: 2.60,
         edge_spacing_mm: 75.0,
         intermediate_spacing_mm: 100.0,
     },
     SampleZone {
-        label: "overhang-corner",
+        label: ZoneKind::OverhangCorner,
         code_zone: "oh-c",
         net_uplift_kpa: 3.60,
         edge_spacing_mm: 50.0,
@@ -73,7 +73,7 @@ pub fn sample_schedule() -> Schedule {
 pub fn sample_infeasible_schedule() -> Schedule {
     let mut schedule = sample_schedule();
     for row in schedule.zones.iter_mut() {
-        if row.label == "overhang-corner" && row.support_role == "panel-edge" {
+        if row.label == ZoneKind::OverhangCorner && row.support_role == SupportRole::PanelEdge {
             row.spacing_mm = None;
             row.utilization = 1.24;
             row.governing_check = "strength at the splitting minimum".to_string();
@@ -81,7 +81,9 @@ pub fn sample_infeasible_schedule() -> Schedule {
     }
     for line in schedule.lines.iter_mut() {
         for segment in line.segments.iter_mut() {
-            if segment.zone_label == "overhang-corner" && segment.support_role == "panel-edge" {
+            if segment.zone_label == ZoneKind::OverhangCorner
+                && segment.support_role == SupportRole::PanelEdge
+            {
                 segment.spacing_mm = None;
                 segment.utilization = 1.24;
             }
@@ -108,7 +110,7 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
     let imperial = units == Units::Imperial;
     let zone_spacing = |mm: f64| {
         if imperial {
-            (mm / 25.4).round() * 25.4
+            (mm / crate::format::MM_PER_IN).round() * crate::format::MM_PER_IN
         } else {
             mm
         }
@@ -118,17 +120,21 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         .iter()
         .flat_map(|zone| {
             [
-                ("panel-edge", zone.edge_spacing_mm),
-                ("intermediate", zone.intermediate_spacing_mm),
+                (SupportRole::PanelEdge, zone.edge_spacing_mm),
+                (SupportRole::Intermediate, zone.intermediate_spacing_mm),
             ]
             .map(|(role, spacing_mm)| {
                 let spacing_mm = zone_spacing(spacing_mm);
-                let reaction_width_m = if role == "panel-edge" { 0.305 } else { 0.695 };
+                let reaction_width_m = if role == SupportRole::PanelEdge {
+                    0.305
+                } else {
+                    0.695
+                };
                 let demand_n = zone.net_uplift_kpa * reaction_width_m * spacing_mm;
                 ZoneRow {
-                    label: zone.label.to_string(),
+                    label: zone.label,
                     code_zone: zone.code_zone.to_string(),
-                    support_role: role.to_string(),
+                    support_role: role,
                     nail_id: "sample-nail-a".to_string(),
                     nail_description: "Sample ring-shank nail 3.3 x 63 mm".to_string(),
                     spacing_mm: Some(spacing_mm),
@@ -145,7 +151,7 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         })
         .collect::<Vec<_>>();
 
-    let spacing_of = |label: &str, role: &str| {
+    let spacing_of = |label: ZoneKind, role: SupportRole| {
         zones
             .iter()
             .find(|row| row.label == label && row.support_role == role)
@@ -159,38 +165,54 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         let x_m = f64::from(number - 1) * framing_m;
         let near_end = x_m < edge_m - 1e-9 || x_m > length_m - edge_m + 1e-9;
         let role = if number % 4 == 1 {
-            "panel-edge"
+            SupportRole::PanelEdge
         } else {
-            "intermediate"
+            SupportRole::Intermediate
         };
         let bands = [
             (
                 -overhang_m,
                 0.0,
                 if near_end {
-                    "overhang-corner"
+                    ZoneKind::OverhangCorner
                 } else {
-                    "overhang-edge"
+                    ZoneKind::OverhangEdge
                 },
             ),
-            (0.0, edge_m, if near_end { "corner" } else { "edge" }),
+            (
+                0.0,
+                edge_m,
+                if near_end {
+                    ZoneKind::Corner
+                } else {
+                    ZoneKind::Edge
+                },
+            ),
             (
                 edge_m,
                 width_m - edge_m,
-                if near_end { "edge" } else { "interior" },
+                if near_end {
+                    ZoneKind::Edge
+                } else {
+                    ZoneKind::Interior
+                },
             ),
             (
                 width_m - edge_m,
                 width_m,
-                if near_end { "corner" } else { "edge" },
+                if near_end {
+                    ZoneKind::Corner
+                } else {
+                    ZoneKind::Edge
+                },
             ),
             (
                 width_m,
                 width_m + overhang_m,
                 if near_end {
-                    "overhang-corner"
+                    ZoneKind::OverhangCorner
                 } else {
-                    "overhang-edge"
+                    ZoneKind::OverhangEdge
                 },
             ),
         ];
@@ -201,8 +223,8 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
                 SegmentRow {
                     from_m: (from_y + overhang_m) / SAMPLE_SLOPE_COS,
                     to_m: (to_y + overhang_m) / SAMPLE_SLOPE_COS,
-                    zone_label: zone.to_string(),
-                    support_role: role.to_string(),
+                    zone_label: zone,
+                    support_role: role,
                     spacing_mm,
                     utilization,
                 }
@@ -242,7 +264,7 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
     let zone_pressures = SAMPLE_ZONES
         .iter()
         .map(|zone| ZonePressureRow {
-            label: zone.label.to_string(),
+            label: zone.label,
             code_zone: zone.code_zone.to_string(),
             area_m2: 10.0,
             effective_area_m2: 0.09,
@@ -371,15 +393,15 @@ fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
 /// into corner and edge parts.
 fn plan_zones(length_m: f64, width_m: f64, overhang_m: f64, edge_m: f64) -> Vec<PlanZone> {
     let (l, w, o, a) = (length_m, width_m, overhang_m, edge_m);
-    let zone = |label: &str, code_zone: &str, polygons_m: Vec<Vec<[f64; 2]>>| PlanZone {
-        label: label.to_string(),
+    let zone = |label: ZoneKind, code_zone: &str, polygons_m: Vec<Vec<[f64; 2]>>| PlanZone {
+        label,
         code_zone: code_zone.to_string(),
         polygons_m,
     };
     vec![
-        zone("interior", "r", vec![rectangle(a, a, l - a, w - a)]),
+        zone(ZoneKind::Interior, "r", vec![rectangle(a, a, l - a, w - a)]),
         zone(
-            "edge",
+            ZoneKind::Edge,
             "s",
             vec![
                 rectangle(a, 0.0, l - a, a),
@@ -389,7 +411,7 @@ fn plan_zones(length_m: f64, width_m: f64, overhang_m: f64, edge_m: f64) -> Vec<
             ],
         ),
         zone(
-            "corner",
+            ZoneKind::Corner,
             "c",
             vec![
                 rectangle(0.0, 0.0, a, a),
@@ -399,7 +421,7 @@ fn plan_zones(length_m: f64, width_m: f64, overhang_m: f64, edge_m: f64) -> Vec<
             ],
         ),
         zone(
-            "overhang-edge",
+            ZoneKind::OverhangEdge,
             "oh-s",
             vec![
                 rectangle(a, -o, l - a, 0.0),
@@ -409,7 +431,7 @@ fn plan_zones(length_m: f64, width_m: f64, overhang_m: f64, edge_m: f64) -> Vec<
             ],
         ),
         zone(
-            "overhang-corner",
+            ZoneKind::OverhangCorner,
             "oh-c",
             vec![
                 vec![[-o, -o], [a, -o], [a, 0.0], [0.0, 0.0], [0.0, a], [-o, a]],

@@ -1,17 +1,19 @@
 //! `analyze`: from a validated input to zones in plan, each with its coefficient curve.
 
+use deckhold_core::ZoneKind;
 use serde::Serialize;
 
 use crate::basis::{Factor, PressureBasis, StandardBasis};
 use crate::coefficients::{blend, check_points, table, ZoneCurve};
 use crate::edges::{polygon_edges, wall_lines, EdgeKind, PlaneEdge, RectangleEdges};
-use crate::error::{check_range, WindError};
+use crate::error::WindError;
 use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
 use crate::types::{CurveOverride, RoofShape, SiteWind, WindInput};
 use crate::uplift::{evaluate, Uplift};
 use crate::zones::{layout, Region};
 use crate::{asce, nbc};
+use deckhold_core::limits;
 
 /// One roof plane in plan.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -25,58 +27,22 @@ pub struct RoofPlane {
     pub edges: Vec<PlaneEdge>,
 }
 
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum ZoneLabel {
-    Interior,
-    Edge,
-    Corner,
-    OverhangInterior,
-    OverhangEdge,
-    OverhangCorner,
-}
-
-impl ZoneLabel {
-    pub fn as_str(self) -> &'static str {
-        match self {
-            ZoneLabel::Interior => "interior",
-            ZoneLabel::Edge => "edge",
-            ZoneLabel::Corner => "corner",
-            ZoneLabel::OverhangInterior => "overhang-interior",
-            ZoneLabel::OverhangEdge => "overhang-edge",
-            ZoneLabel::OverhangCorner => "overhang-corner",
-        }
-    }
-
-    fn of(region: Region, overhang: bool) -> Self {
-        match (region, overhang) {
-            (Region::Interior, false) => ZoneLabel::Interior,
-            (Region::Edge, false) => ZoneLabel::Edge,
-            (Region::Corner, false) => ZoneLabel::Corner,
-            (Region::Interior, true) => ZoneLabel::OverhangInterior,
-            (Region::Edge, true) => ZoneLabel::OverhangEdge,
-            (Region::Corner, true) => ZoneLabel::OverhangCorner,
-        }
-    }
-
-    fn is_overhang(self) -> bool {
-        matches!(
-            self,
-            ZoneLabel::OverhangInterior | ZoneLabel::OverhangEdge | ZoneLabel::OverhangCorner
-        )
-    }
-}
-
-impl std::fmt::Display for ZoneLabel {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(self.as_str())
+/// The zone kind of a region, on the roof or on its overhang.
+fn zone_kind(region: Region, overhang: bool) -> ZoneKind {
+    match (region, overhang) {
+        (Region::Interior, false) => ZoneKind::Interior,
+        (Region::Edge, false) => ZoneKind::Edge,
+        (Region::Corner, false) => ZoneKind::Corner,
+        (Region::Interior, true) => ZoneKind::OverhangInterior,
+        (Region::Edge, true) => ZoneKind::OverhangEdge,
+        (Region::Corner, true) => ZoneKind::OverhangCorner,
     }
 }
 
 /// One wind zone: all its pieces in plan.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct Zone {
-    pub label: ZoneLabel,
+    pub label: ZoneKind,
     /// The standard's zone name (NBC `r`/`s`/`c`, ASCE `1`/`2`/`3`; overhangs add `-oh`).
     pub code_zone: String,
     pub polygons_m: Vec<Vec<[f64; 2]>>,
@@ -128,31 +94,13 @@ impl WindAnalysis {
 /// Runs the wind method on one roof.
 pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
     let roof = &input.roof;
-    check_range("roof.slope_deg", roof.slope_deg, 0.0, 45.0, "deg")?;
-    check_range(
-        "roof.eave_overhang_mm",
-        roof.eave_overhang_mm,
-        0.0,
-        3000.0,
-        "mm",
-    )?;
-    check_range(
-        "roof.rake_overhang_mm",
-        roof.rake_overhang_mm,
-        0.0,
-        3000.0,
-        "mm",
-    )?;
-    check_range("roof.dead_load_kpa", roof.dead_load_kpa, 0.0, 10.0, "kPa")?;
-    check_range(
-        "building.eave_height_m",
-        input.building.eave_height_m,
-        0.5,
-        100.0,
-        "m",
-    )?;
+    limits::SLOPE_DEG.check("roof.slope_deg", roof.slope_deg)?;
+    limits::OVERHANG_MM.check("roof.eave_overhang_mm", roof.eave_overhang_mm)?;
+    limits::OVERHANG_MM.check("roof.rake_overhang_mm", roof.rake_overhang_mm)?;
+    limits::DEAD_LOAD_KPA.check("roof.dead_load_kpa", roof.dead_load_kpa)?;
+    limits::EAVE_HEIGHT_M.check("building.eave_height_m", input.building.eave_height_m)?;
     match roof.shape {
-        RoofShape::Flat if roof.slope_deg > 7.0 => {
+        RoofShape::Flat if !limits::FLAT_SLOPE_DEG.contains(roof.slope_deg) => {
             return Err(WindError::range(
                 "roof.slope_deg",
                 format!(
@@ -161,7 +109,7 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
                 ),
             ));
         }
-        RoofShape::Monoslope if roof.slope_deg > 3.0 => {
+        RoofShape::Monoslope if !limits::MONOSLOPE_SLOPE_DEG.contains(roof.slope_deg) => {
             return Err(WindError::unsupported(
                 "roof.shape",
                 format!(
@@ -329,7 +277,7 @@ fn build_zones(
             }
             result.push((
                 Zone {
-                    label: ZoneLabel::of(region, overhang),
+                    label: zone_kind(region, overhang),
                     code_zone,
                     polygons_m,
                     area_m2: area,
@@ -648,7 +596,7 @@ mod tests {
             asce_site(140.0),
         ))
         .expect("analysis");
-        let q_h_psf = analysis.q_kpa / 0.047_880_259;
+        let q_h_psf = deckhold_core::units::psf_from_kpa(analysis.q_kpa);
         assert_relative_eq!(q_h_psf, 42.65, epsilon = 0.3);
         let uplift = analysis.uplift(0, 0.5).expect("uplift");
         let expected = 0.6 * analysis.q_kpa * 0.85 * (1.7 + 0.18) - 0.6 * 0.4;

@@ -3,14 +3,14 @@
 
 use crate::basis::{edge_width_m, Factor, PressureBasis, SlopeBlend, StandardBasis};
 use crate::coefficients::{table, Edition, Table};
-use crate::error::{check_range, WindError};
+use crate::error::WindError;
 use crate::types::{AsceWind, Enclosure, Exposure, RoofShape, StrengthMethod};
 use crate::zones::Strips;
+use deckhold_core::limits;
+use deckhold_core::units::{KPA_PER_PSF, M_PER_FT};
 
-const FOOT_M: f64 = 0.3048;
-const PSF_KPA: f64 = 0.047_880_259;
 /// Chapter 30 Part 1 height limit, 60 ft in metres (ASCE 7-22 30.3, from memory).
-const LOW_RISE_MAX_M: f64 = 60.0 * FOOT_M;
+const LOW_RISE_MAX_M: f64 = 60.0 * M_PER_FT;
 
 fn exposure_key(exposure: Exposure) -> &'static str {
     match exposure {
@@ -54,13 +54,12 @@ pub(crate) fn basis(
     slope_deg: f64,
     dead_load_kpa: f64,
 ) -> Result<StandardBasis, WindError> {
-    check_range("wind.speed_mph", site.speed_mph, 50.0, 300.0, "mph")?;
-    check_range("wind.kzt", site.kzt, 1.0, 4.0, "")?;
-    check_range(
+    limits::SPEED_MPH.check("wind.speed_mph", site.speed_mph)?;
+    limits::KZT.check("wind.kzt", site.kzt)?;
+    limits::GROUND_ELEVATION_M.check_scaled(
         "wind.ground_elevation_ft",
         site.ground_elevation_ft,
-        -300.0,
-        15000.0,
+        M_PER_FT,
         "ft",
     )?;
     if mean_height_m > LOW_RISE_MAX_M + 1e-9 {
@@ -80,11 +79,11 @@ pub(crate) fn basis(
         ));
     }
     let data = table(Edition::Asce722)?;
-    let height_ft = mean_height_m / FOOT_M;
+    let height_ft = mean_height_m / M_PER_FT;
     let (k_z, z_used_ft) = kz(data, site.exposure, height_ft)?;
     let k_e = ke(site.ground_elevation_ft);
     let q_h_psf = qh_psf(k_z, site.kzt, k_e, site.speed_mph);
-    let q_h_kpa = q_h_psf * PSF_KPA;
+    let q_h_kpa = q_h_psf * KPA_PER_PSF;
     let (k_d, k_d_source) = data.constant("K_d")?;
     let enclosure_key = match site.enclosure {
         Enclosure::Enclosed => "GC_pi.enclosed",
@@ -122,7 +121,7 @@ pub(crate) fn basis(
         };
         (
             format!("{prefix}-{band}"),
-            edge_width_m(least_dimension_m, mean_height_m, 3.0 * FOOT_M),
+            edge_width_m(least_dimension_m, mean_height_m, 3.0 * M_PER_FT),
             "ASCE 7-22 Figures 30.3-2B..G notes: a = min(0.1 D, 0.4 h) >= max(0.04 D, 3 ft) (from memory)",
         )
     };

@@ -30,39 +30,11 @@ impl WindError {
     }
 }
 
-/// Refuses a value that is not finite or lies outside `min..=max`.
-pub(crate) fn check_range(
-    field: &str,
-    value: f64,
-    min: f64,
-    max: f64,
-    unit: &str,
-) -> Result<(), WindError> {
-    if value.is_finite() && value >= min && value <= max {
-        Ok(())
-    } else {
-        Err(WindError::range(
-            field,
-            format!("{value} {unit} is outside {min}..{max} {unit}"),
-        ))
-    }
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn message_names_field_and_range() {
-        let error = check_range("roof.slope_deg", 75.0, 0.0, 45.0, "deg").expect_err("75 is out");
-        assert_eq!(
-            error.to_string(),
-            "roof.slope_deg: 75 deg is outside 0..45 deg"
-        );
-    }
-
-    #[test]
-    fn nan_is_refused() {
-        assert!(check_range("x", f64::NAN, 0.0, 1.0, "m").is_err());
+impl From<deckhold_core::OutOfRange> for WindError {
+    fn from(error: deckhold_core::OutOfRange) -> Self {
+        Self::OutOfRange {
+            field: error.key,
+            detail: format!("{} is outside {}", error.value, error.range),
+        }
     }
 }

@@ -20,13 +20,14 @@ mod types;
 mod uplift;
 mod zones;
 
-pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone, ZoneLabel};
+pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone};
 pub use basis::{Factor, PressureBasis};
 pub use coefficients::ZoneCurve;
+pub use deckhold_core::{RoofShape, ZoneKind};
 pub use edges::{EdgeKind, PlaneEdge};
 pub use error::WindError;
 pub use types::{
     AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
-    NbcWind, RidgeAlong, Roof, RoofShape, SiteWind, StrengthMethod, Terrain, WindInput,
+    NbcWind, RidgeAlong, Roof, SiteWind, StrengthMethod, Terrain, WindInput,
 };
 pub use uplift::Uplift;

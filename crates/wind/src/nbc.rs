@@ -2,9 +2,10 @@
 
 use crate::basis::{edge_width_m, Factor, PressureBasis, StandardBasis};
 use crate::coefficients::{table, Edition};
-use crate::error::{check_range, WindError};
+use crate::error::WindError;
 use crate::types::{Importance, NbcWind, RoofShape, Terrain};
 use crate::zones::Strips;
+use deckhold_core::limits;
 
 /// Low-building height limit, m (NBC 2020 4.1.7.6.(1), checked against the clause text on codeindex.ca).
 const LOW_BUILDING_MAX_M: f64 = 20.0;
@@ -26,14 +27,8 @@ pub(crate) fn basis(
     slope_deg: f64,
     dead_load_kpa: f64,
 ) -> Result<StandardBasis, WindError> {
-    check_range("wind.q50_kpa", site.q50_kpa, 0.05, 3.0, "kPa")?;
-    check_range(
-        "wind.topographic_factor",
-        site.topographic_factor,
-        1.0,
-        4.0,
-        "",
-    )?;
+    limits::Q50_KPA.check("wind.q50_kpa", site.q50_kpa)?;
+    limits::TOPOGRAPHIC_FACTOR.check("wind.topographic_factor", site.topographic_factor)?;
     if !(1..=3).contains(&site.internal_category) {
         return Err(WindError::range(
             "wind.internal_category",

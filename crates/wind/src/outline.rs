@@ -5,12 +5,10 @@
 //! [0, lu] × [0, lv]); `swap` maps it back to plan (u, v) → (v, u) when the ridge runs along the width.
 //! Polygons are worked in plan directly.
 
-use crate::error::{check_range, WindError};
+use crate::error::WindError;
 use crate::geometry::{drop_collinear, make_ccw, rectangle, segments_touch, signed_area_m2, Point};
 use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
-
-/// Largest plan dimension accepted, m (a sanity bound, not a code limit).
-const MAX_PLAN_M: f64 = 1000.0;
+use deckhold_core::limits;
 
 /// The validated plan the zone layout works on.
 #[derive(Debug, Clone, PartialEq)]
@@ -82,14 +80,8 @@ pub(crate) fn validate_footprint(
 ) -> Result<Plan, WindError> {
     match footprint {
         Footprint::Rectangle { length_m, width_m } => {
-            check_range(
-                "building.footprint.length_m",
-                *length_m,
-                0.5,
-                MAX_PLAN_M,
-                "m",
-            )?;
-            check_range("building.footprint.width_m", *width_m, 0.5, MAX_PLAN_M, "m")?;
+            limits::PLAN_SIZE_M.check("building.footprint.length_m", *length_m)?;
+            limits::PLAN_SIZE_M.check("building.footprint.width_m", *width_m)?;
             Ok(match ridge_along {
                 RidgeAlong::Length => Plan::Rectangle {
                     along_ridge_m: *length_m,
@@ -113,12 +105,14 @@ const POLYGON_FIELD: &str = "building.footprint.polygon_m";
 
 /// A simple rectilinear polygon, counter-clockwise, collinear vertices removed.
 fn validate_polygon(vertices: &[Point]) -> Result<Vec<Point>, WindError> {
-    if vertices.iter().any(|p| {
-        !p[0].is_finite() || !p[1].is_finite() || p[0].abs() > MAX_PLAN_M || p[1].abs() > MAX_PLAN_M
-    }) {
+    let coordinate = limits::OUTLINE_COORDINATE_M;
+    if vertices
+        .iter()
+        .any(|p| !coordinate.contains(p[0]) || !coordinate.contains(p[1]))
+    {
         return Err(WindError::range(
             POLYGON_FIELD,
-            format!("every coordinate must be finite and within -{MAX_PLAN_M}..{MAX_PLAN_M} m"),
+            format!("every coordinate must be finite and within {coordinate}"),
         ));
     }
     let mut points: Vec<Point> = Vec::with_capacity(vertices.len());

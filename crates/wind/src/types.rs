@@ -1,5 +1,6 @@
 //! The inputs of a wind analysis: building, roof, site wind and coefficient overrides (SI inside).
 
+pub use deckhold_core::RoofShape;
 use serde::{Deserialize, Serialize};
 
 /// Plan shape of the wall line, metres. A rectangle has its length along plan x.
@@ -19,14 +20,6 @@ pub enum Footprint {
 pub struct Building {
     pub footprint: Footprint,
     pub eave_height_m: f64,
-}
-
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
-pub enum RoofShape {
-    Gable,
-    Hip,
-    Monoslope,
-    Flat,
 }
 
 /// Direction of the ridge in plan. `Length` = ridge parallel to plan x (the rectangle's `length_m`).

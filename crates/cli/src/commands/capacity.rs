@@ -11,14 +11,14 @@ use deckhold_fasten::{
     nail_resistance, DeckLayer, Grain, LoadDuration, MemberKind, ResistanceInput, Service,
 };
 use deckhold_project::units::{MM_PER_IN, N_PER_LBF};
-use deckhold_project::Basis;
+use deckhold_project::{Basis, BasisStandards};
 
 pub fn run(args: &CapacityArgs) -> Result<Outcome> {
     let basis = Basis::parse(&args.basis).ok_or_else(|| {
         anyhow!(
             "--basis: '{}' is not one of {}",
             args.basis,
-            Basis::CHOICES.map(|(id, _)| id).join(", ")
+            Basis::words().join(", ")
         )
     })?;
     let nail = deckhold_fasten::nail(&args.nail)?;
@@ -74,7 +74,7 @@ pub fn run(args: &CapacityArgs) -> Result<Outcome> {
             .map(|f| (f.name.clone(), json!(f.value)))
             .collect();
         let mut value = json!({
-            "basis": basis.id(),
+            "basis": basis.as_str(),
             "method": resistance.method.as_str(),
             "nail": nail.id,
             "species": species.id,

@@ -43,7 +43,7 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
             })
             .collect();
         let value = json!({
-            "basis": project.basis.id(),
+            "basis": project.basis.as_str(),
             "nail": checked.nail.id,
             "resistance_n": checked.resistance.governing_n,
             "governing_mode": checked.resistance.governing_mode.as_str(),
@@ -65,7 +65,7 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
         ]);
         for row in &checked.rows {
             table.row(vec![
-                row.label.clone(),
+                row.label.to_string(),
                 row.code_zone.clone(),
                 row.support_role.to_string(),
                 spacing_text(Some(row.given_spacing_mm), us),

@@ -11,7 +11,7 @@ use crate::Outcome;
 use deckhold_deck::layout::SupportRole;
 use deckhold_fasten::CatalogBasis;
 use deckhold_project::rules::prescriptive_minimum_length;
-use deckhold_project::{run_job_with_nails, NailOutcome, Project};
+use deckhold_project::{run_job_with_nails, BasisStandards, NailOutcome, Project};
 
 const LB_PER_KG: f64 = 2.204_622_6;
 
@@ -95,7 +95,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                     .map(|role| {
                         json!({
                             "label": zone_names.get(role.zone_index),
-                            "support_role": deckhold_deck::spacing::role_name(role.support_role),
+                            "support_role": role.support_role.as_str(),
                             "spacing_mm": role.spacing_mm,
                             "utilization": role.utilization,
                             "nail_count": role.nail_count,
@@ -120,7 +120,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
             })
             .collect();
         let value = json!({
-            "basis": project.basis.id(),
+            "basis": project.basis.as_str(),
             "prescriptive_minimum": rule.map(|(length_mm, source)| json!({ "length_mm": length_mm, "source": source })),
             "nails": nails,
             "cautions": deckhold_schedule::standard_cautions(),

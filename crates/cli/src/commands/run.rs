@@ -145,9 +145,9 @@ fn summary_text(schedule: &Schedule) -> String {
     ]);
     for zone in &schedule.zones {
         table.row(vec![
-            zone.label.clone(),
+            zone.label.to_string(),
             zone.code_zone.clone(),
-            zone.support_role.clone(),
+            zone.support_role.to_string(),
             spacing_text(zone.spacing_mm, us),
             format!("{:.2}", zone.net_uplift_kpa),
             format!("{:.0}", zone.demand_n),

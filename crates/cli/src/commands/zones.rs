@@ -8,6 +8,7 @@ use crate::args::ZonesArgs;
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::units::M_PER_FT;
+use deckhold_project::BasisStandards;
 
 /// A nail holds well under a square metre; 0.1 m² is on the figures' small-area plateau.
 const DEFAULT_AREA_M2: f64 = 0.1;
@@ -49,7 +50,7 @@ pub fn run(args: &ZonesArgs) -> Result<Outcome> {
             })
             .collect();
         let value = json!({
-            "basis": project.basis.id(),
+            "basis": project.basis.as_str(),
             "effective_area_m2": area_m2,
             "edge_width_m": wind.edge_width_m,
             "q_kpa": wind.q_kpa,

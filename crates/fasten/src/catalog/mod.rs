@@ -86,7 +86,7 @@ mod tests {
     use crate::nail::{NdsNailType, ShankKind};
     use approx::assert_relative_eq;
 
-    const MM_PER_IN: f64 = 25.4;
+    use deckhold_core::units::MM_PER_IN;
 
     #[test]
     fn the_built_in_files_parse() {

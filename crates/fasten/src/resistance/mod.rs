@@ -8,7 +8,6 @@ pub mod coefficients;
 mod nds;
 mod o86;
 mod pull_through;
-pub mod units;
 
 pub use nds::{reference_withdrawal_lbf_per_in, NdsWithdrawalEquation};
 pub use o86::{basic_withdrawal_n_per_mm, O86Withdrawal};
@@ -203,17 +202,17 @@ pub struct Resistance {
 impl Resistance {
     /// `withdrawal_n` in pound-force, for US reports.
     pub fn withdrawal_lbf(&self) -> f64 {
-        units::lbf_from_n(self.withdrawal_n)
+        deckhold_core::units::lbf_from_n(self.withdrawal_n)
     }
 
     /// `pull_through_n` in pound-force.
     pub fn pull_through_lbf(&self) -> Option<f64> {
-        self.pull_through_n.map(units::lbf_from_n)
+        self.pull_through_n.map(deckhold_core::units::lbf_from_n)
     }
 
     /// `governing_n` in pound-force.
     pub fn governing_lbf(&self) -> f64 {
-        units::lbf_from_n(self.governing_n)
+        deckhold_core::units::lbf_from_n(self.governing_n)
     }
 }
 

@@ -12,12 +12,12 @@ use super::coefficients::{
     NDS_W_RING_SHANK, NDS_W_RING_SHANK_EXPONENT, NDS_W_SMOOTH_CARBON, NDS_W_SMOOTH_CARBON_EXPONENT,
     NDS_W_SMOOTH_STAINLESS, NDS_W_SMOOTH_STAINLESS_EXPONENT,
 };
-use super::units::{in_from_mm, n_per_mm_from_lbf_per_in};
 use super::{Factor, LoadDuration, Method, ModeResult, ResistanceInput, Service};
 use crate::catalog::{species_groups, SourcedValue};
 use crate::error::FastenError;
 use crate::nail::{Material, Nail, NdsNailType};
 use crate::species::{MemberKind, Species};
+use deckhold_core::units::{in_from_mm, n_per_mm_from_lbf_per_in};
 
 /// Which NDS 2018 withdrawal equation applies.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

@@ -8,9 +8,9 @@
 
 use super::coefficients::{NDS_CT, NDS_WH_COEFFICIENT};
 use super::nds::format_factors;
-use super::units::{in_from_mm, n_from_lbf};
 use super::{Factor, LoadDuration, Method, ModeResult, ResistanceInput, Service};
 use crate::panel::DeckLayer;
+use deckhold_core::units::{in_from_mm, n_from_lbf};
 
 /// Reference head pull-through design value W_H, lb (NDS 2018 Eq. 12.2-6, from memory).
 pub fn reference_head_pull_through_lbf(

@@ -1,11 +1,11 @@
 //! Tests of `nail_resistance` through the catalogs: outside checks, refusals and invariants.
 
-use super::units::{lbf_from_n, mm_from_in};
 use super::*;
 use crate::catalog::{nail, panel, species, SourcedValue};
 use crate::nail::Nail;
 use crate::species::MemberKind;
 use approx::assert_relative_eq;
+use deckhold_core::units::{lbf_from_n, mm_from_in};
 use proptest::prelude::*;
 
 fn base(

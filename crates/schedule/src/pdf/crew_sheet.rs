@@ -2,11 +2,11 @@
 //! zone and support, and a bold warning when a zone has no working spacing.
 
 use super::canvas::{Align, Area, Canvas, Stroke};
-use super::drawing::{draw_plan, swatch, zone_style, PlanNotes};
+use super::drawing::{draw_plan, role_words, swatch, zone_style, PlanNotes};
 use super::page::Frame;
 use super::text::{line_height_mm, wrap, Font};
 use crate::format::{fixed, mm_to_in, places, small_length_label, spacing_label, trimmed};
-use crate::{Schedule, Units, ZoneRow};
+use crate::{Schedule, SupportRole, Units, ZoneKind, ZoneRow};
 
 /// Share of the body width given to the drawing.
 const DRAWING_SHARE: f64 = 0.6;
@@ -33,10 +33,9 @@ fn ordinal(n: u32) -> String {
     format!("{n}{suffix}")
 }
 
-/// One zone of the crew's table: its label, style index and rows by support role.
+/// One zone of the crew's table: its kind and rows by support role.
 struct ZoneLine<'a> {
-    label: &'a str,
-    style_index: usize,
+    label: ZoneKind,
     panel_edge: Option<&'a ZoneRow>,
     intermediate: Option<&'a ZoneRow>,
     nail_count: u64,
@@ -48,15 +47,8 @@ fn zone_lines(schedule: &Schedule) -> Vec<ZoneLine<'_>> {
         let position = match lines.iter().position(|line| line.label == row.label) {
             Some(position) => position,
             None => {
-                let style_index = schedule
-                    .plan
-                    .zones
-                    .iter()
-                    .position(|zone| zone.label == row.label)
-                    .unwrap_or(lines.len());
                 lines.push(ZoneLine {
-                    label: &row.label,
-                    style_index,
+                    label: row.label,
                     panel_edge: None,
                     intermediate: None,
                     nail_count: 0,
@@ -66,9 +58,9 @@ fn zone_lines(schedule: &Schedule) -> Vec<ZoneLine<'_>> {
         };
         let line = &mut lines[position];
         line.nail_count += row.nail_count;
-        match row.support_role.as_str() {
-            "panel-edge" => line.panel_edge = line.panel_edge.or(Some(row)),
-            _ => line.intermediate = line.intermediate.or(Some(row)),
+        match row.support_role {
+            SupportRole::PanelEdge => line.panel_edge = line.panel_edge.or(Some(row)),
+            SupportRole::Intermediate => line.intermediate = line.intermediate.or(Some(row)),
         }
     }
     lines
@@ -254,19 +246,12 @@ fn nail_block(
     y - 3.0
 }
 
-fn role_words(role: &str) -> &str {
-    match role {
-        "panel-edge" => "panel edges",
-        other => other,
-    }
-}
-
 fn infeasible_box(canvas: &mut Canvas, schedule: &Schedule, column: Area, y: f64) -> f64 {
     let failing: Vec<String> = schedule
         .zones
         .iter()
         .filter(|row| row.spacing_mm.is_none())
-        .map(|row| format!("{} ({})", row.label, role_words(&row.support_role)))
+        .map(|row| format!("{} ({})", row.label, role_words(row.support_role)))
         .collect();
     let zones = if failing.is_empty() {
         "one or more zones".to_string()
@@ -435,7 +420,7 @@ fn spacing_table(
     let row_h = if imperial { 9.0 } else { 7.0 };
     for line in zone_lines(schedule) {
         let top = y;
-        let style = zone_style(line.label, line.style_index);
+        let style = zone_style(line.label);
         swatch(
             canvas,
             Area {
@@ -446,7 +431,7 @@ fn spacing_table(
             },
             style,
         );
-        let label_lines = wrap(line.label, Font::Bold, 9.0, edge_x - zone_x - 1.5);
+        let label_lines = wrap(line.label.as_str(), Font::Bold, 9.0, edge_x - zone_x - 1.5);
         let mut baseline = top - 4.3;
         for label in label_lines.iter().take(2) {
             canvas.text(zone_x, baseline, label, Font::Bold, 9.0, Align::Left);
@@ -644,7 +629,7 @@ mod tests {
         let schedule = crate::sample::sample_schedule();
         let lines = zone_lines(&schedule);
         assert_eq!(lines.len(), 5);
-        assert_eq!(lines[0].label, "interior");
+        assert_eq!(lines[0].label, ZoneKind::Interior);
         assert_eq!(
             lines[0].panel_edge.and_then(|row| row.spacing_mm),
             Some(150.0)

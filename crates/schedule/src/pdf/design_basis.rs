@@ -241,7 +241,7 @@ pub(crate) fn design_basis(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
             vec![Row {
                 cells: vec![
                     format!("{} ({})", row.label, row.code_zone),
-                    row.support_role.clone(),
+                    row.support_role.to_string(),
                     spacing_label(row.spacing_mm, imperial),
                     pressure_label(row.net_uplift_kpa, imperial),
                     force_label(row.demand_n, imperial),

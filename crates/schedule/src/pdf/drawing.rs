@@ -8,17 +8,15 @@ use super::labels::{place_labels, ZoneLabel};
 use super::page::Paper;
 use super::text::{width_mm, Font};
 use crate::format::{plan_length_label, spacing_label, MM_PER_FT};
-use crate::{Schedule, Units};
+use crate::{Schedule, SupportRole, Units, ZoneKind};
 
 /// How a zone's fill is marked besides its grey tone.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
 pub(crate) enum Hatch {
     Plain,
     Diagonal,
-    BackDiagonal,
     Cross,
     Horizontal,
-    Vertical,
     Dots,
     Grid,
 }
@@ -30,50 +28,33 @@ pub(crate) struct ZoneStyle {
     pub hatch: Hatch,
 }
 
-/// Styles for labels the model does not name, used in turn.
-const SPARE_STYLES: [ZoneStyle; 3] = [
-    ZoneStyle {
-        fill: 0.86,
-        hatch: Hatch::BackDiagonal,
-    },
-    ZoneStyle {
-        fill: 0.70,
-        hatch: Hatch::Vertical,
-    },
-    ZoneStyle {
-        fill: 0.50,
-        hatch: Hatch::Dots,
-    },
-];
-
 /// The style of a zone by its label: lighter and plainer where the uplift is lower.
-pub(crate) fn zone_style(label: &str, index: usize) -> ZoneStyle {
-    match label {
-        "interior" => ZoneStyle {
+pub(crate) fn zone_style(kind: ZoneKind) -> ZoneStyle {
+    match kind {
+        ZoneKind::Interior => ZoneStyle {
             fill: 0.95,
             hatch: Hatch::Plain,
         },
-        "edge" => ZoneStyle {
+        ZoneKind::Edge => ZoneStyle {
             fill: 0.82,
             hatch: Hatch::Diagonal,
         },
-        "corner" => ZoneStyle {
+        ZoneKind::Corner => ZoneStyle {
             fill: 0.64,
             hatch: Hatch::Cross,
         },
-        "overhang-interior" => ZoneStyle {
+        ZoneKind::OverhangInterior => ZoneStyle {
             fill: 0.90,
             hatch: Hatch::Horizontal,
         },
-        "overhang-edge" => ZoneStyle {
+        ZoneKind::OverhangEdge => ZoneStyle {
             fill: 0.76,
             hatch: Hatch::Dots,
         },
-        "overhang-corner" => ZoneStyle {
+        ZoneKind::OverhangCorner => ZoneStyle {
             fill: 0.56,
             hatch: Hatch::Grid,
         },
-        _ => SPARE_STYLES[index % SPARE_STYLES.len()],
     }
 }
 
@@ -158,13 +139,11 @@ pub(crate) fn fill_zone(canvas: &mut Canvas, points: &[[f64; 2]], style: ZoneSty
     match style.hatch {
         Hatch::Plain => {}
         Hatch::Diagonal => hatch_lines(canvas, bbox, [1.0, -1.0], step),
-        Hatch::BackDiagonal => hatch_lines(canvas, bbox, [1.0, 1.0], step),
         Hatch::Cross => {
             hatch_lines(canvas, bbox, [1.0, -1.0], step);
             hatch_lines(canvas, bbox, [1.0, 1.0], step);
         }
         Hatch::Horizontal => hatch_lines(canvas, bbox, [0.0, 1.0], step * 0.8),
-        Hatch::Vertical => hatch_lines(canvas, bbox, [1.0, 0.0], step * 0.8),
         Hatch::Dots => dots(canvas, bbox, step * 0.75),
         Hatch::Grid => {
             hatch_lines(canvas, bbox, [0.0, 1.0], step * 0.8);
@@ -313,8 +292,8 @@ pub(crate) fn draw_plan(
         ],
     };
 
-    for (index, zone) in plan.zones.iter().enumerate() {
-        let style = zone_style(&zone.label, index);
+    for zone in &plan.zones {
+        let style = zone_style(zone.label);
         for polygon in &zone.polygons_m {
             fill_zone(canvas, &transform.polygon(polygon), style);
         }
@@ -704,10 +683,11 @@ fn draw_dimensions(
     text_y - 0.6
 }
 
-fn role_words(role: &str) -> &str {
+/// A support role in the crew's words.
+pub(crate) fn role_words(role: SupportRole) -> &'static str {
     match role {
-        "panel-edge" => "panel edges",
-        other => other,
+        SupportRole::PanelEdge => "panel edges",
+        SupportRole::Intermediate => "intermediate",
     }
 }
 
@@ -745,7 +725,7 @@ fn draw_zone_labels(
                 .collect();
             polygons.sort_by(|a, b| area(b).total_cmp(&area(a)));
             let largest = polygons.first().map(|p| area(p)).unwrap_or(0.0);
-            let mut lines = vec![zone.label.to_uppercase()];
+            let mut lines = vec![zone.label.as_str().to_uppercase()];
             let emphasis = schedule
                 .zones
                 .iter()
@@ -753,7 +733,7 @@ fn draw_zone_labels(
             for row in schedule.zones.iter().filter(|row| row.label == zone.label) {
                 lines.push(format!(
                     "{} {}",
-                    role_words(&row.support_role),
+                    role_words(row.support_role),
                     spacing_label(row.spacing_mm, imperial)
                 ));
             }
@@ -887,19 +867,7 @@ mod tests {
 
     #[test]
     fn every_named_zone_has_its_own_grey_and_hatch() {
-        let labels = [
-            "interior",
-            "edge",
-            "corner",
-            "overhang-interior",
-            "overhang-edge",
-            "overhang-corner",
-        ];
-        let styles: Vec<ZoneStyle> = labels
-            .iter()
-            .enumerate()
-            .map(|(i, l)| zone_style(l, i))
-            .collect();
+        let styles: Vec<ZoneStyle> = ZoneKind::ALL.iter().map(|kind| zone_style(*kind)).collect();
         for (i, a) in styles.iter().enumerate() {
             for b in &styles[i + 1..] {
                 assert!((a.fill - b.fill).abs() >= 0.04, "{a:?} vs {b:?}");

@@ -4,6 +4,7 @@
 use std::path::PathBuf;
 use std::process::Command;
 
+use super::drawing::role_words;
 use super::*;
 use crate::format::spacing_label;
 use crate::sample::{sample_infeasible_schedule, sample_schedule, sample_schedule_with_lines};
@@ -63,14 +64,6 @@ fn render(schedule: &Schedule) -> Vec<u8> {
     schedule_pdf(schedule, &PdfOptions::default()).expect("the sample renders")
 }
 
-fn role_words(role: &str) -> &str {
-    if role == "panel-edge" {
-        "panel edges"
-    } else {
-        role
-    }
-}
-
 #[test]
 fn page_one_shows_every_zone_spacing() {
     for units in [Units::Si, Units::Imperial] {
@@ -80,7 +73,7 @@ fn page_one_shows_every_zone_spacing() {
         for row in &schedule.zones {
             let label = format!(
                 "{} {}",
-                role_words(&row.support_role),
+                role_words(row.support_role),
                 spacing_label(row.spacing_mm, units == Units::Imperial)
             );
             assert!(
@@ -88,7 +81,7 @@ fn page_one_shows_every_zone_spacing() {
                 "page 1 lacks '{label}' ({units:?}):\n{text}"
             );
             assert!(
-                text.contains(&row.label.to_uppercase()),
+                text.contains(&row.label.as_str().to_uppercase()),
                 "page 1 lacks the label of {}",
                 row.label
             );

@@ -7,7 +7,7 @@
 use printpdf::BuiltinFont;
 
 /// Points per millimetre.
-pub(crate) const PT_PER_MM: f64 = 72.0 / 25.4;
+pub(crate) const PT_PER_MM: f64 = 72.0 / deckhold_core::units::MM_PER_IN;
 
 /// The two faces the report uses.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
