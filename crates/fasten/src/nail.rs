@@ -100,7 +100,7 @@ pub struct Nail {
 impl Nail {
     /// The catalog's provenance line: `source (confidence)`.
     pub fn provenance(&self) -> String {
-        format!("{} ({})", self.source, self.confidence.as_str())
+        self.confidence.provenance(&self.source)
     }
 }
 

@@ -71,46 +71,69 @@ pub fn spacing_rule_sources(basis: Basis) -> Vec<String> {
     }
 }
 
+/// One row of a prescriptive roof-sheathing nail table: panels up to `max_thickness_mm` (and over the
+/// previous row's) need a nail at least `min_length_mm` long.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct MinimumNailRow {
+    pub max_thickness_mm: f64,
+    pub min_length_mm: f64,
+    pub source: &'static str,
+}
+
+/// NBC 2020 Part 9 Table 9.23.3.5.-A, roof sheathing nails (from memory, NBC 2015/2020).
+pub const NBC_MINIMUM_NAIL: [MinimumNailRow; 3] = [
+    MinimumNailRow {
+        max_thickness_mm: 10.0,
+        min_length_mm: 45.0,
+        source: "NBC 2020 Table 9.23.3.5.-A, 45 mm for panels up to 10 mm (from memory)",
+    },
+    MinimumNailRow {
+        max_thickness_mm: 20.0,
+        min_length_mm: 51.0,
+        source: "NBC 2020 Table 9.23.3.5.-A, 51 mm for panels 10 to 20 mm (from memory)",
+    },
+    MinimumNailRow {
+        max_thickness_mm: 25.0,
+        min_length_mm: 57.0,
+        source: "NBC 2020 Table 9.23.3.5.-A, 57 mm for panels 20 to 25 mm (from memory)",
+    },
+];
+
+/// IRC 2021 Table R602.3(1), wood structural panel roof sheathing to framing (from memory, IRC
+/// 2018/2021): 3/8 to 1/2 in asks an 8d common (2-1/2 in) on roofs (the 6d of that row is for subfloors
+/// and walls); 19/32 to 1 in an 8d common; 1-1/8 to 1-1/4 in a 10d common (3 in) or an 8d deformed nail:
+/// the rule does not know the shank, so the longer (10d) is asked. Each row's upper bound carries 0.5 mm
+/// of rolling tolerance.
+pub const US_MINIMUM_NAIL: [MinimumNailRow; 3] = [
+    MinimumNailRow {
+        max_thickness_mm: 0.5 * MM_PER_IN + 0.5,
+        min_length_mm: 2.5 * MM_PER_IN,
+        source: "IRC 2021 Table R602.3(1), 8d common (2-1/2 in) for 3/8 to 1/2 in roof sheathing (6d is for subfloor and wall sheathing) (from memory)",
+    },
+    MinimumNailRow {
+        max_thickness_mm: 1.0 * MM_PER_IN + 0.5,
+        min_length_mm: 2.5 * MM_PER_IN,
+        source: "IRC 2021 Table R602.3(1), 8d common (2-1/2 in) for 19/32 to 1 in (from memory)",
+    },
+    MinimumNailRow {
+        max_thickness_mm: 1.25 * MM_PER_IN + 0.5,
+        min_length_mm: 3.0 * MM_PER_IN,
+        source: "IRC 2021 Table R602.3(1), 10d common (3 in) for 1-1/8 to 1-1/4 in; an 8d deformed nail is also allowed but the rule does not know the shank (from memory)",
+    },
+];
+
 /// The shortest nail the prescriptive rules allow for roof sheathing of `thickness_mm`, with its source.
-///
-/// Canada: NBC 2020 Table 9.23.3.5.-A, roof sheathing nails: 45 mm for panels up to 10 mm, 51 mm up to
-/// 20 mm, 57 mm up to 25 mm (from memory, NBC 2015/2020). US: IRC 2021 Table R602.3(1): 6d (2 in) for
-/// 3/8 to 1/2 in panels, 8d (2-1/2 in) for 19/32 to 1-1/4 in (from memory, IRC 2018/2021). Thicker decks
-/// have no prescriptive nail: None.
+/// Thicker decks than the table covers have no prescriptive nail: None.
 pub fn prescriptive_minimum_length(basis: Basis, thickness_mm: f64) -> Option<(f64, &'static str)> {
-    if basis.is_us() {
-        let half_inch_mm = 0.5 * MM_PER_IN + 0.5;
-        if thickness_mm <= half_inch_mm {
-            Some((
-                2.0 * MM_PER_IN,
-                "IRC 2021 Table R602.3(1), 6d for 3/8 to 1/2 in (from memory)",
-            ))
-        } else if thickness_mm <= 1.25 * MM_PER_IN + 0.5 {
-            Some((
-                2.5 * MM_PER_IN,
-                "IRC 2021 Table R602.3(1), 8d for 19/32 to 1-1/4 in (from memory)",
-            ))
-        } else {
-            None
-        }
-    } else if thickness_mm <= 10.0 {
-        Some((
-            45.0,
-            "NBC 2020 Table 9.23.3.5.-A, 45 mm for panels up to 10 mm (from memory)",
-        ))
-    } else if thickness_mm <= 20.0 {
-        Some((
-            51.0,
-            "NBC 2020 Table 9.23.3.5.-A, 51 mm for panels 10 to 20 mm (from memory)",
-        ))
-    } else if thickness_mm <= 25.0 {
-        Some((
-            57.0,
-            "NBC 2020 Table 9.23.3.5.-A, 57 mm for panels 20 to 25 mm (from memory)",
-        ))
+    let table: &[MinimumNailRow] = if basis.is_us() {
+        &US_MINIMUM_NAIL
     } else {
-        None
-    }
+        &NBC_MINIMUM_NAIL
+    };
+    table
+        .iter()
+        .find(|row| thickness_mm <= row.max_thickness_mm)
+        .map(|row| (row.min_length_mm, row.source))
 }
 
 #[cfg(test)]
@@ -129,14 +152,25 @@ mod tests {
             Some(51.0)
         );
         assert_eq!(prescriptive_minimum_length(Basis::Nbc2020O86, 30.0), None);
-        // IRC 2021 Table R602.3(1) (from memory): 15/32 in -> 6d, 19/32 in -> 8d.
+        // IRC 2021 Table R602.3(1), roof sheathing (from memory): 3/8 and 15/32 in -> 8d (2-1/2 in, not the
+        // 6d of walls and subfloors), 19/32 and 3/4 in -> 8d, 1-1/8 in -> 10d (3 in), 1-1/2 in -> none.
+        for (thickness_mm, length_mm) in [
+            (9.5, 63.5),
+            (11.9, 63.5),
+            (15.1, 63.5),
+            (19.1, 63.5),
+            (28.6, 76.2),
+        ] {
+            let found = prescriptive_minimum_length(Basis::Asce722Nds2018Asd, thickness_mm)
+                .map_or(f64::NAN, |r| r.0);
+            assert!(
+                (found - length_mm).abs() < 1e-9,
+                "{thickness_mm} mm: {found}"
+            );
+        }
         assert_eq!(
-            prescriptive_minimum_length(Basis::Asce722Nds2018Asd, 11.9).map(|r| r.0),
-            Some(50.8)
-        );
-        assert_eq!(
-            prescriptive_minimum_length(Basis::Asce722Nds2018Asd, 15.1).map(|r| r.0),
-            Some(63.5)
+            prescriptive_minimum_length(Basis::Asce722Nds2018Asd, 38.1),
+            None
         );
     }
 

@@ -20,6 +20,16 @@ impl Confidence {
             Confidence::FromMemory => "from memory",
         }
     }
+
+    /// `source (confidence)`, the form the report prints; a source that already says its confidence
+    /// (a catalog row noting "from memory, B111-1974") is not told twice.
+    pub fn provenance(self, source: &str) -> String {
+        if source.contains(self.as_str()) {
+            source.to_string()
+        } else {
+            format!("{source} ({})", self.as_str())
+        }
+    }
 }
 
 /// A number with its source, as stored in the catalog files.
@@ -34,7 +44,7 @@ pub struct SourcedValue {
 impl SourcedValue {
     /// `source (confidence)`, the form the report prints.
     pub fn provenance(&self) -> String {
-        format!("{} ({})", self.source, self.confidence.as_str())
+        self.confidence.provenance(&self.source)
     }
 }
 
@@ -70,6 +80,16 @@ mod tests {
         .expect("parses");
         assert_eq!(value.confidence, Confidence::FromMemory);
         assert_eq!(value.provenance(), "NDS 2018 Table 12.3.3A (from memory)");
+    }
+
+    #[test]
+    fn confidence_is_said_once() {
+        let said = "wire nails (from memory, B111-1974); head from F1667 (from memory)";
+        assert_eq!(Confidence::FromMemory.provenance(said), said);
+        assert_eq!(
+            Confidence::Checked.provenance("NDS 2018 Table L4"),
+            "NDS 2018 Table L4 (checked)"
+        );
     }
 
     #[test]

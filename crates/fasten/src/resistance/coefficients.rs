@@ -20,7 +20,7 @@ pub struct Coefficient {
 impl Coefficient {
     /// `source (confidence)`, as the report prints it.
     pub fn provenance(&self) -> String {
-        format!("{} ({})", self.source, self.confidence.as_str())
+        self.confidence.provenance(self.source)
     }
 }
 
