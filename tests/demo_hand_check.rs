@@ -65,3 +65,28 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
     );
     assert!(row.utilization > 0.75 && row.utilization <= 1.0);
 }
+
+/// The L-shaped flat roof's corner, by hand: a change to the low-slope corner coefficient (for example -5.4
+/// to -4.4, 19 % less uplift) turns this red.
+///
+/// Fixture `ca-l-shaped-flat.json`: NBC 2020, q50 = 0.42 kPa, rough terrain, eave 4.0 m, slope 1.2 deg,
+/// dead 0.25 kPa, category 2.
+/// - C_e = 0.7 (h/12)^0.3, not less than 0.7, rough terrain (NBC 2020 4.1.7.3, from memory): h = 4 m gives
+///   0.7 x 0.72 = 0.50, so 0.7. q C_e = 0.42 x 0.7 = 0.294 kPa.
+/// - Corner `c` of a roof sloped 7 deg or less, small areas: C_p C_g = -5.4 (NBC 2020 Figure 4.1.7.6.-C,
+///   from memory; same reading as the data file). Internal 0.3 x 2.0 = 0.6.
+/// - 1.4 x 0.294 x (5.4 + 0.6) = 2.470 kPa; dead 0.9 x 0.25 x cos 1.2 deg = 0.225 kPa; net 2.245 kPa.
+#[test]
+fn the_l_shaped_flat_roof_corner_matches_the_hand_calculation() {
+    let project = parse_project(&deckhold_tests::fixture_text("ca-l-shaped-flat.json")).expect("parses");
+    let job = run_job(&project).expect("runs");
+    let schedule = schedule_for(&project, &job);
+    let corner = schedule
+        .zone_pressures
+        .iter()
+        .find(|row| row.label == "corner")
+        .expect("a corner zone");
+    let net_kpa = 1.4 * 0.42 * 0.7 * (5.4 + 0.6) - 0.9 * 0.25 * 1.2f64.to_radians().cos();
+    assert_relative_eq!(corner.net_uplift_kpa, net_kpa, max_relative = 1e-3);
+    assert_relative_eq!(net_kpa, 2.245, max_relative = 1e-3);
+}

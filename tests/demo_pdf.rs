@@ -25,6 +25,22 @@ fn tool(name: &str) -> Command {
     Command::new(name)
 }
 
+/// Column of `word` in `line` where it stands alone (not part of `OVERHANG-CORNER` when looking for `CORNER`).
+fn whole_word(line: &str, word: &str) -> Option<usize> {
+    line.match_indices(word).map(|(at, _)| at).find(|&at| {
+        let before = line[..at].chars().next_back();
+        let after = line[at + word.len()..].chars().next();
+        before.is_none_or(char::is_whitespace) && after.is_none_or(char::is_whitespace)
+    })
+}
+
+/// True when `text` starts in `line` within a few columns of `column` (the zone's label is centred over
+/// its spacings, so they start a little left of it).
+fn near_column(line: &str, text: &str, column: usize) -> bool {
+    line.match_indices(text)
+        .any(|(at, _)| at.abs_diff(column) <= 12)
+}
+
 #[test]
 fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
     let schedule = demo_schedule();
@@ -47,17 +63,36 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
     assert!(output.status.success());
     let text = String::from_utf8_lossy(&output.stdout);
     let words: String = text.split_whitespace().collect::<Vec<_>>().join(" ");
-    for zone in &schedule.zones {
-        let spacing = zone
-            .spacing_mm
-            .map(|s| format!("{s:.0} mm"))
-            .expect("the demo works in every zone");
-        assert!(
-            words.contains(&spacing),
-            "{} {}: {spacing}",
-            zone.label,
-            zone.support_role
-        );
+    // On the crew sheet's plan each zone's name is followed, within the six lines under it and in the same
+    // column, by its two spacings. The corner's intermediate 125 mm is the hand calculation of
+    // tests/demo_hand_check.rs; the others are the schedule's own (regression values, in the goldens).
+    let page_one = text.split('\u{c}').next().unwrap_or_default();
+    let lines: Vec<&str> = page_one.lines().collect();
+    let spacing_of = |label: &str, role: &str| {
+        schedule
+            .zones
+            .iter()
+            .find(|zone| zone.label == label && zone.support_role == role)
+            .and_then(|zone| zone.spacing_mm)
+            .unwrap_or_else(|| panic!("{label} {role}: the demo works in every zone"))
+    };
+    assert_eq!(spacing_of("corner", "intermediate"), 125.0);
+    for label in ["corner", "edge", "interior", "overhang-corner", "overhang-edge"] {
+        let name = label.to_uppercase();
+        let (row, column) = lines
+            .iter()
+            .enumerate()
+            .find_map(|(row, line)| whole_word(line, &name).map(|column| (row, column)))
+            .unwrap_or_else(|| panic!("{name} is not on the plan:\n{page_one}"));
+        for (role, words) in [("panel-edge", "panel edges"), ("intermediate", "intermediate")] {
+            let wanted = format!("{words} {:.0} mm", spacing_of(label, role));
+            assert!(
+                lines[row + 1..(row + 7).min(lines.len())]
+                    .iter()
+                    .any(|line| near_column(line, &wanted, column)),
+                "{name}: '{wanted}' is not under the zone's name"
+            );
+        }
     }
     for caution in &schedule.cautions {
         let start: String = caution

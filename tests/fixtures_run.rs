@@ -51,23 +51,99 @@ fn the_infeasible_fixture_names_what_would_work() {
     assert!(schedule.zones.iter().any(|zone| zone.spacing_mm.is_none()));
 }
 
+/// The existing-pattern fixture checked with `zones` (per-zone spacings) set in its `existing` block.
+fn check_existing(zones: serde_json::Value) -> deckhold_project::PatternCheck {
+    let mut value: serde_json::Value =
+        serde_json::from_str(&fixture_text("ca-existing-pattern.json")).expect("JSON");
+    if !zones.is_null() {
+        value["existing"]["zones"] = zones;
+    }
+    let project = deckhold_project::project_from_value(&value).expect("valid");
+    let pattern = project.existing.clone().expect("existing");
+    let wind = deckhold_wind::analyze(&project.wind).expect("wind");
+    check_pattern(&project, &wind, &pattern).expect("checks")
+}
+
+fn row<'a>(
+    checked: &'a deckhold_project::PatternCheck,
+    label: &str,
+    role: &str,
+) -> &'a deckhold_project::CheckRow {
+    checked
+        .rows
+        .iter()
+        .find(|row| row.label == label && row.support_role == role)
+        .unwrap_or_else(|| panic!("no row {label} {role}"))
+}
+
 #[test]
 fn the_existing_pattern_is_checked_zone_by_zone() {
-    let project = parse_project(&fixture_text("ca-existing-pattern.json")).expect("parses");
-    let pattern = project
-        .existing
-        .clone()
-        .expect("the fixture has an existing block");
-    let wind = deckhold_wind::analyze(&project.wind).expect("wind");
-    let checked = check_pattern(&project, &wind, &pattern).expect("checks");
-    assert!(!checked.rows.is_empty());
-    for row in &checked.rows {
-        // A row passes exactly when it is strong enough and inside the prescriptive limits.
-        assert_eq!(row.passes, row.notes.is_empty());
-        if row.utilization > 1.0 {
-            assert!(!row.passes);
-        }
-    }
+    // Worked by hand, as in tests/demo_hand_check.rs (same roof and wind): corner net uplift 2.254 kPa;
+    // reaction width at the first interior support 32/28 x 610 = 697.1 mm; the existing 51 x 2.84 mm nail:
+    // 0.6 x 16.4 x 2.84^0.82 x 0.42^2.2 x (51 - 11.1) = 0.6 x 5.725 x 39.9 = 137.0 N (CSA O86:19 12.9.5.2,
+    // from memory).
+    let checked = check_existing(serde_json::Value::Null);
+    assert_eq!(checked.rows.len(), 10, "five zones x two support roles");
+    assert!((checked.resistance.governing_n - 137.0).abs() < 0.5);
+    // Corner, intermediate, 300 mm: 2.254 x 0.6971 x 300 = 471.4 N; 471.4 / 137.0 = 3.44 (the closing bay
+    // at the gable end carries a little more, never less). Overloaded, and nothing else is wrong.
+    let corner = row(&checked, "corner", "intermediate");
+    assert!(
+        corner.utilization >= 3.44 * 0.999 && corner.utilization <= 3.44 * 1.02,
+        "{}",
+        corner.utilization
+    );
+    assert!(!corner.passes);
+    assert_eq!(corner.notes.len(), 1, "{:?}", corner.notes);
+    assert!(corner.notes[0].starts_with("overloaded: utilization 3.4"));
+    // 300 / 75 mm needed: three nails added between each existing pair (300 / 4 = 75 mm).
+    assert_eq!(corner.required_spacing_mm, Some(75.0));
+    assert_eq!(corner.added_nails_per_gap, Some(3));
+    // Interior, panel edge, 150 mm: end reaction 11/28 x 610 = 239.6 mm, interior uplift 0.83 kPa:
+    // 0.83 x 0.2396 x 150 = 29.8 N per nail; 29.8 / 137.0 = 0.22: passes with no note.
+    let interior = row(&checked, "interior", "panel-edge");
+    assert!(
+        (interior.utilization - 0.22).abs() < 0.01,
+        "{}",
+        interior.utilization
+    );
+    assert!(interior.passes && interior.notes.is_empty());
+    assert!(!checked.passes(), "one failing zone fails the pattern");
+}
+
+#[test]
+fn each_reason_to_fail_a_zone_is_found_on_its_own() {
+    // Corner, intermediate at 75 mm: 2.254 x 0.6971 x 75 = 117.8 N < 137.0 N (utilization 0.86): strong
+    // enough and inside the limits, so it passes.
+    let checked = check_existing(serde_json::json!({
+        "corner": { "edge_spacing_mm": 150, "intermediate_spacing_mm": 75 }
+    }));
+    let corner = row(&checked, "corner", "intermediate");
+    assert!(corner.passes, "{:?}", corner.notes);
+    assert!((corner.utilization - 0.86).abs() < 0.02, "{}", corner.utilization);
+    // At 50 mm it is stronger still, but closer than the splitting minimum 20 d = 20 x 2.84 = 56.8 mm
+    // (CSA O86:19 12.9.2, from memory): it fails for that reason alone.
+    let checked = check_existing(serde_json::json!({
+        "corner": { "edge_spacing_mm": 150, "intermediate_spacing_mm": 50 }
+    }));
+    let corner = row(&checked, "corner", "intermediate");
+    assert!(!corner.passes);
+    assert_eq!(
+        corner.notes,
+        ["closer than the splitting minimum of 57 mm: the member may split"]
+    );
+    // Interior panel edges at 200 mm: strong enough (0.22 x 200/150 = 0.30) but wider than the 150 mm
+    // prescriptive maximum at panel edges (NBC 2020 Table 9.23.3.5.-A, from memory): fails for that alone.
+    let checked = check_existing(serde_json::json!({
+        "interior": { "edge_spacing_mm": 200, "intermediate_spacing_mm": 300 }
+    }));
+    let interior = row(&checked, "interior", "panel-edge");
+    assert!(interior.utilization < 1.0);
+    assert!(!interior.passes);
+    assert_eq!(
+        interior.notes,
+        ["wider than the prescriptive maximum of 150 mm for panel-edge supports"]
+    );
 }
 
 #[test]

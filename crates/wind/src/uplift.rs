@@ -103,9 +103,20 @@ mod tests {
 
     #[test]
     fn minimum_pressure_applies_before_factor() {
-        // ASCE 7-22 30.2.2, from memory: 16 psf (0.766 kPa) minimum.
-        let result = evaluate(&basis(Some(5.0)), &curve(), false, 0.5).expect("uplift");
-        assert_relative_eq!(result.wind_factored_kpa, 7.0, max_relative = 1e-12);
+        // ASCE 7-22 30.2.2, from memory: 16 psf minimum = 16 x 0.047880 = 0.7661 kPa. With a reference
+        // pressure of 0.2 kPa the suction is 0.2 x (2.0 + 0.6) = 0.52 kPa < 0.7661, so the minimum binds:
+        // factored 1.4 x 0.7661 = 1.0725 kPa.
+        let minimum_kpa = 16.0 * 0.047_880_259;
+        let low = PressureBasis {
+            external_reference_kpa: 0.2,
+            internal_reference_kpa: 0.2,
+            ..basis(Some(minimum_kpa))
+        };
+        let result = evaluate(&low, &curve(), false, 0.5).expect("uplift");
+        assert_relative_eq!(result.wind_factored_kpa, 1.0725, max_relative = 1e-4);
+        // Above the minimum it does not bind: 1.4 x 0.5 x 2.6 = 1.82 kPa, as without one.
+        let result = evaluate(&basis(Some(minimum_kpa)), &curve(), false, 0.5).expect("uplift");
+        assert_relative_eq!(result.wind_factored_kpa, 1.82, max_relative = 1e-12);
     }
 
     #[test]

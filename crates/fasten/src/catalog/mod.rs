@@ -196,7 +196,8 @@ mod tests {
 
     #[test]
     fn canadian_ids_carry_their_dimensions() {
-        // The id states length x shank diameter in mm (CSA B111, from memory).
+        // Catalog consistency, not an outside check: each Canadian id states length x shank diameter in mm,
+        // so a number typed wrong in either the id or the entry shows here.
         for nail in nails().iter().filter(|nail| nail.basis == CatalogBasis::Ca) {
             let dims = nail
                 .id

@@ -414,14 +414,21 @@ mod tests {
         assert!(flow.finish().len() >= 5);
     }
 
+    /// True when the page draws `text` (the operations' debug text holds each shown string quoted).
+    fn page_shows(page: Canvas, text: &str) -> bool {
+        format!("{:?}", page.into_ops()).contains(&format!("{text:?}"))
+    }
+
     #[test]
     fn a_heading_never_ends_a_page() {
         let frame = frame();
         let mut flow = Flow::new(&frame);
-        // Fill the page to just above its bottom, then head a table.
-        while flow.room() > 12.0 {
-            flow.paragraph("filler", 9.0);
-        }
+        flow.paragraph("filler", 9.0);
+        // Leave room for the heading alone (its height as flush_heading reckons it, plus 1 mm) but not for
+        // the heading and the table's header and first row: kept with what follows, it moves to page 2.
+        let heading_mm = 2.5 + line_height_mm(10.5) + 2.0;
+        let room_mm = flow.room();
+        flow.gap(room_mm - (heading_mm + 1.0));
         flow.heading("A heading");
         let columns = [Column::new("a", 1.0, Align::Left)];
         flow.table(
@@ -433,8 +440,12 @@ mod tests {
                 header: true,
             },
         );
-        let pages = flow.finish();
+        let mut pages = flow.finish();
         assert_eq!(pages.len(), 2);
+        let second = pages.pop().expect("page 2");
+        let first = pages.pop().expect("page 1");
+        assert!(page_shows(second, "A heading"), "the heading is on page 2");
+        assert!(!page_shows(first, "A heading"), "page 1 does not end with it");
     }
 
     #[test]

@@ -302,7 +302,8 @@ fn bad_options_are_refused_by_name() {
         creation_date: "2024-02-29".to_string(),
         ..PdfOptions::default()
     };
-    assert!(schedule_pdf(&schedule, &leap).is_ok());
+    let bytes = schedule_pdf(&schedule, &leap).expect("29 February 2024 is a date");
+    assert!(String::from_utf8_lossy(&bytes).contains("D:20240229000000"));
     for id in ["", "has space", &"x".repeat(65)] {
         let options = PdfOptions {
             document_id: id.to_string(),
