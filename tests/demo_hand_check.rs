@@ -78,7 +78,8 @@ fn the_demo_corner_zone_matches_the_hand_calculation() {
 /// - 1.4 x 0.294 x (5.4 + 0.6) = 2.470 kPa; dead 0.9 x 0.25 x cos 1.2 deg = 0.225 kPa; net 2.245 kPa.
 #[test]
 fn the_l_shaped_flat_roof_corner_matches_the_hand_calculation() {
-    let project = parse_project(&deckhold_tests::fixture_text("ca-l-shaped-flat.json")).expect("parses");
+    let project =
+        parse_project(&deckhold_tests::fixture_text("ca-l-shaped-flat.json")).expect("parses");
     let job = run_job(&project).expect("runs");
     let schedule = schedule_for(&project, &job);
     let corner = schedule

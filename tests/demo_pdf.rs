@@ -77,14 +77,23 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
             .unwrap_or_else(|| panic!("{label} {role}: the demo works in every zone"))
     };
     assert_eq!(spacing_of("corner", "intermediate"), 125.0);
-    for label in ["corner", "edge", "interior", "overhang-corner", "overhang-edge"] {
+    for label in [
+        "corner",
+        "edge",
+        "interior",
+        "overhang-corner",
+        "overhang-edge",
+    ] {
         let name = label.to_uppercase();
         let (row, column) = lines
             .iter()
             .enumerate()
             .find_map(|(row, line)| whole_word(line, &name).map(|column| (row, column)))
             .unwrap_or_else(|| panic!("{name} is not on the plan:\n{page_one}"));
-        for (role, words) in [("panel-edge", "panel edges"), ("intermediate", "intermediate")] {
+        for (role, words) in [
+            ("panel-edge", "panel edges"),
+            ("intermediate", "intermediate"),
+        ] {
             let wanted = format!("{words} {:.0} mm", spacing_of(label, role));
             assert!(
                 lines[row + 1..(row + 7).min(lines.len())]

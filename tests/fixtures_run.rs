@@ -120,7 +120,11 @@ fn each_reason_to_fail_a_zone_is_found_on_its_own() {
     }));
     let corner = row(&checked, "corner", "intermediate");
     assert!(corner.passes, "{:?}", corner.notes);
-    assert!((corner.utilization - 0.86).abs() < 0.02, "{}", corner.utilization);
+    assert!(
+        (corner.utilization - 0.86).abs() < 0.02,
+        "{}",
+        corner.utilization
+    );
     // At 50 mm it is stronger still, but closer than the splitting minimum 20 d = 20 x 2.84 = 56.8 mm
     // (CSA O86:19 12.9.2, from memory): it fails for that reason alone.
     let checked = check_existing(serde_json::json!({

@@ -365,7 +365,11 @@ fn penetration_below_the_minimum_is_refused() {
     // with y_w from o86_common_63_in_spf_by_hand).
     let accepted = nail_resistance(&base(Method::O86LimitStates, "common-63x3.25", "spf", 16.3))
         .expect("16.3 mm is above 5 d_F");
-    assert_relative_eq!(accepted.withdrawal_n, 0.6 * 6.395 * 16.3, max_relative = 1e-3);
+    assert_relative_eq!(
+        accepted.withdrawal_n,
+        0.6 * 6.395 * 16.3,
+        max_relative = 1e-3
+    );
 }
 
 #[test]

@@ -445,7 +445,10 @@ mod tests {
         let second = pages.pop().expect("page 2");
         let first = pages.pop().expect("page 1");
         assert!(page_shows(second, "A heading"), "the heading is on page 2");
-        assert!(!page_shows(first, "A heading"), "page 1 does not end with it");
+        assert!(
+            !page_shows(first, "A heading"),
+            "page 1 does not end with it"
+        );
     }
 
     #[test]
