@@ -64,7 +64,7 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
     let text = String::from_utf8_lossy(&output.stdout);
     let words: String = text.split_whitespace().collect::<Vec<_>>().join(" ");
     // On the crew sheet's plan each zone's name is followed, within the six lines under it and in the same
-    // column, by its two spacings. The corner's intermediate 125 mm is the hand calculation of
+    // column, by its two spacings. The corner's intermediate 75 mm is the hand calculation of
     // tests/demo_hand_check.rs; the others are the schedule's own (regression values, in the goldens).
     let page_one = text.split('\u{c}').next().unwrap_or_default();
     let lines: Vec<&str> = page_one.lines().collect();
@@ -76,7 +76,7 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
             .and_then(|zone| zone.spacing_mm)
             .unwrap_or_else(|| panic!("{label} {role}: the demo works in every zone"))
     };
-    assert_eq!(spacing_of("corner", "intermediate"), 125.0);
+    assert_eq!(spacing_of("corner", "intermediate"), 75.0);
     for label in [
         "corner",
         "edge",
