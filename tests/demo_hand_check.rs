@@ -85,7 +85,7 @@ fn the_l_shaped_flat_roof_corner_matches_the_hand_calculation() {
     let corner = schedule
         .zone_pressures
         .iter()
-        .find(|row| row.label == "corner")
+        .find(|row| row.label.as_str() == "corner")
         .expect("a corner zone");
     let net_kpa = 1.4 * 0.42 * 0.7 * (5.4 + 0.6) - 0.9 * 0.25 * 1.2f64.to_radians().cos();
     assert_relative_eq!(corner.net_uplift_kpa, net_kpa, max_relative = 1e-3);

@@ -72,7 +72,7 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
         schedule
             .zones
             .iter()
-            .find(|zone| zone.label == label && zone.support_role == role)
+            .find(|zone| zone.label.as_str() == label && zone.support_role.as_str() == role)
             .and_then(|zone| zone.spacing_mm)
             .unwrap_or_else(|| panic!("{label} {role}: the demo works in every zone"))
     };

@@ -72,7 +72,7 @@ fn row<'a>(
     checked
         .rows
         .iter()
-        .find(|row| row.label == label && row.support_role == role)
+        .find(|row| row.label.as_str() == label && row.support_role.as_str() == role)
         .unwrap_or_else(|| panic!("no row {label} {role}"))
 }
 
