@@ -21,6 +21,26 @@ use std::path::PathBuf;
 pub struct Cli {
     #[command(subcommand)]
     pub command: Command,
+    /// Units of everything printed and written: si (mm, m, kPa, N) or us (inches o.c., feet-inches,
+    /// psf, lb). Default: the basis's customary units (us for ASCE 7 with NDS, si for NBC with O86).
+    #[arg(long, global = true, value_enum)]
+    pub units: Option<UnitsArg>,
+}
+
+/// The `--units` choice.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum UnitsArg {
+    Si,
+    Us,
+}
+
+impl UnitsArg {
+    pub fn units(self) -> deckhold_schedule::Units {
+        match self {
+            UnitsArg::Si => deckhold_schedule::Units::Si,
+            UnitsArg::Us => deckhold_schedule::Units::Imperial,
+        }
+    }
 }
 
 #[derive(Debug, Subcommand)]

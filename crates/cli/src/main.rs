@@ -22,12 +22,13 @@ pub enum Outcome {
 
 fn main() -> ExitCode {
     let cli = Cli::parse();
+    let units = cli.units.map(args::UnitsArg::units);
     let result = match cli.command {
-        Command::Run(args) => commands::run::run(&args),
-        Command::Zones(args) => commands::zones::run(&args),
-        Command::Check(args) => commands::check::run(&args),
-        Command::Compare(args) => commands::compare::run(&args),
-        Command::Capacity(args) => commands::capacity::run(&args),
+        Command::Run(args) => commands::run::run(&args, units),
+        Command::Zones(args) => commands::zones::run(&args, units),
+        Command::Check(args) => commands::check::run(&args, units),
+        Command::Compare(args) => commands::compare::run(&args, units),
+        Command::Capacity(args) => commands::capacity::run(&args, units),
         Command::Catalog(args) => commands::catalog::run(&args),
         Command::Init(args) => commands::init::run(&args),
     };

@@ -11,6 +11,8 @@ pub const MM_PER_FT: f64 = M_PER_FT * 1000.0;
 pub const N_PER_LBF: f64 = 4.448_221_615_260_5;
 /// Kilopascals per pound-force per square foot, derived: 1 psf = N_PER_LBF / M_PER_FT² Pa = 47.880259 Pa.
 pub const KPA_PER_PSF: f64 = N_PER_LBF / (M_PER_FT * M_PER_FT) / 1000.0;
+/// Kilograms per avoirdupois pound: exact, by the 1959 agreement (1 lb = 0.45359237 kg).
+pub const KG_PER_LB: f64 = 0.453_592_37;
 /// Newtons per millimetre per pound-force per inch (an NDS withdrawal value per inch of penetration).
 pub const N_PER_MM_PER_LBF_PER_IN: f64 = N_PER_LBF / MM_PER_IN;
 

@@ -63,6 +63,8 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
         deck,
         nails,
         existing,
+        units: basis.units(),
+        as_written: value.clone(),
     })
 }
 

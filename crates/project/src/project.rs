@@ -2,7 +2,7 @@
 
 use crate::basis::Basis;
 use deckhold_core::ZoneKind;
-use deckhold_schedule::ProjectInfo;
+use deckhold_schedule::{ProjectInfo, Units};
 use deckhold_wind::WindInput;
 
 /// Which way the framing lines run in plan, when the user overrides the roof's natural direction.
@@ -108,4 +108,8 @@ pub struct Project {
     /// Candidate nail ids, in order of preference.
     pub nails: Vec<String>,
     pub existing: Option<ExistingPattern>,
+    /// Units of every output: the basis's customary units unless the user chose others (`--units`).
+    pub units: Units,
+    /// The project file as the user wrote it (keys, units and values), for "Inputs as given".
+    pub as_written: serde_json::Value,
 }

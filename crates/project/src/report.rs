@@ -8,9 +8,11 @@ use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
+use deckhold_schedule::format::{feet_inches, m_to_ft, thickness_label, trimmed};
+use deckhold_schedule::Units;
 use deckhold_schedule::{
-    standard_cautions, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
-    ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
+    standard_cautions, BasisInfo, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView,
+    PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
 };
 use deckhold_wind::{Footprint, SiteWind, WindAnalysis};
 
@@ -96,13 +98,16 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
 
     Schedule {
         project: project.info.clone(),
-        basis: project.basis.info(),
+        basis: BasisInfo {
+            units: project.units,
+            ..project.basis.info()
+        },
         plan: plan_view(wind, &job.layout.courses, plan),
         building_length_m,
         building_width_m,
         framing_spacing_mm: project.framing.spacing_mm,
         framing_member: project.framing.member.as_str().to_string(),
-        deck_description: deck_text(project),
+        deck_description: deck_text(project, project.units),
         nail: NailInfo {
             id: nail.id.clone(),
             description: nail.description.clone(),
@@ -154,20 +159,41 @@ fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
     }
 }
 
-/// The deck in one line, e.g. "Oriented strand board 11.1 mm, 1220 x 2440 mm panels, half stagger".
-pub fn deck_text(project: &Project) -> String {
+/// The deck in one line, in the chosen units: "Plywood 19/32 in, 4 x 8 ft panels, half stagger" or
+/// "Oriented strand board 11.1 mm, 1220 x 2440 mm panels, half stagger".
+pub fn deck_text(project: &Project, units: Units) -> String {
     let deck = &project.deck;
+    let us = units.is_us();
     let panel = deckhold_fasten::panel(&deck.panel_id)
         .map(|panel| panel.name.clone())
         .unwrap_or_else(|_| deck.panel_id.clone());
     let stagger = match deck.stagger {
         StaggerChoice::Half => "half stagger".to_string(),
         StaggerChoice::None => "no stagger".to_string(),
-        StaggerChoice::OffsetMm(offset_mm) => format!("end joints offset {offset_mm:.0} mm"),
+        StaggerChoice::OffsetMm(offset_mm) => format!(
+            "end joints offset {}",
+            if us {
+                feet_inches(offset_mm / 1000.0)
+            } else {
+                format!("{offset_mm:.0} mm")
+            }
+        ),
+    };
+    let size = if us {
+        format!(
+            "{} x {} ft panels",
+            trimmed(m_to_ft(deck.panel_width_mm / 1000.0), 2),
+            trimmed(m_to_ft(deck.panel_length_mm / 1000.0), 2)
+        )
+    } else {
+        format!(
+            "{:.0} x {:.0} mm panels",
+            deck.panel_width_mm, deck.panel_length_mm
+        )
     };
     format!(
-        "{panel} {:.1} mm, {:.0} x {:.0} mm panels, {stagger}",
-        deck.thickness_mm, deck.panel_width_mm, deck.panel_length_mm
+        "{panel} {}, {size}, {stagger}",
+        thickness_label(deck.thickness_mm, us)
     )
 }
 

@@ -1,12 +1,13 @@
 //! `rafter-lines.csv`: one row per segment of every rafter line, lines in the order of
-//! [`Schedule::lines`], segments from the low end up. A pure table, like `schedule.csv`.
+//! [`Schedule::lines`], segments from the low end up. A pure table, like `schedule.csv`, in the
+//! schedule's units: metres in SI, feet-inches to the nearest 1/8 in on the US basis.
 
-use crate::csv_schedule::NO_SPACING;
-use crate::format::{fixed, mm_to_in, places};
+use crate::csv_schedule::spacing_cell;
+use crate::format::{feet_inches, fixed, places};
 use crate::{finite, Schedule, ScheduleError};
 
-/// Column names of `rafter-lines.csv`, units in the names.
-pub const LINES_HEADER: [&str; 9] = [
+/// Column names of `rafter-lines.csv` in SI, units in the names.
+pub const LINES_HEADER: [&str; 8] = [
     "line",
     "position_m",
     "from_m",
@@ -14,6 +15,17 @@ pub const LINES_HEADER: [&str; 9] = [
     "zone",
     "support_role",
     "spacing_mm",
+    "utilization",
+];
+
+/// Column names of `rafter-lines.csv` in US customary units.
+pub const LINES_HEADER_US: [&str; 8] = [
+    "line",
+    "position_ft_in",
+    "from_ft_in",
+    "to_ft_in",
+    "zone",
+    "support_role",
     "spacing_in",
     "utilization",
 ];
@@ -30,33 +42,38 @@ pub(crate) fn writer() -> csv::Writer<Vec<u8>> {
 pub fn rafter_lines_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
     const FILE: &str = "rafter-lines.csv";
     finite::check_lines(schedule)?;
+    let units = schedule.basis.units;
     let fail = |error: csv::Error| ScheduleError::Csv {
         file: FILE,
         message: error.to_string(),
     };
+    let length = |m: f64| {
+        if units.is_us() {
+            feet_inches(m)
+        } else {
+            fixed(m, places::LENGTH_M)
+        }
+    };
     let mut writer = writer();
-    writer.write_record(LINES_HEADER).map_err(fail)?;
+    let header = if units.is_us() {
+        LINES_HEADER_US
+    } else {
+        LINES_HEADER
+    };
+    writer.write_record(header).map_err(fail)?;
     for line in &schedule.lines {
         let number = line.number.to_string();
-        let position_m = fixed(line.position_m, places::LENGTH_M);
+        let position = length(line.position_m);
         for segment in &line.segments {
-            let (spacing_mm, spacing_in) = match segment.spacing_mm {
-                Some(mm) => (
-                    fixed(mm, places::SPACING_MM),
-                    fixed(mm_to_in(mm), places::SPACING_IN),
-                ),
-                None => (NO_SPACING.to_string(), NO_SPACING.to_string()),
-            };
             writer
                 .write_record([
                     number.as_str(),
-                    &position_m,
-                    &fixed(segment.from_m, places::LENGTH_M),
-                    &fixed(segment.to_m, places::LENGTH_M),
+                    &position,
+                    &length(segment.from_m),
+                    &length(segment.to_m),
                     segment.zone_label.as_str(),
                     segment.support_role.as_str(),
-                    &spacing_mm,
-                    &spacing_in,
+                    &spacing_cell(segment.spacing_mm, units),
                     &fixed(segment.utilization, places::UTILIZATION),
                 ])
                 .map_err(fail)?;
@@ -82,8 +99,26 @@ mod tests {
         let csv = text(&rafter_lines_csv(&sample_schedule()).expect("writes"));
         assert_eq!(
             csv.lines().next(),
-            Some("line,position_m,from_m,to_m,zone,support_role,spacing_mm,spacing_in,utilization")
+            Some("line,position_m,from_m,to_m,zone,support_role,spacing_mm,utilization")
         );
+    }
+
+    #[test]
+    fn us_lengths_read_in_feet_and_inches() {
+        let schedule = crate::sample::sample_schedule_with_lines(6, crate::Units::Imperial);
+        let csv = text(&rafter_lines_csv(&schedule).expect("writes"));
+        assert_eq!(
+            csv.lines().next(),
+            Some(
+                "line,position_ft_in,from_ft_in,to_ft_in,zone,support_role,spacing_in,utilization"
+            )
+        );
+        // Line 2 of the sample sits 0.610 m from line 1: 24.02 in, read as 2'-0".
+        let row = csv
+            .lines()
+            .find(|row| row.starts_with("2,"))
+            .expect("line 2");
+        assert!(row.starts_with("2,\"2'-0\"\"\",\"0'-0\"\"\","), "{row}");
     }
 
     #[test]
@@ -97,7 +132,7 @@ mod tests {
         // overhang-corner panel edge at 50 mm: 3.60 x 0.305 x 50 / 400 = 0.137.
         assert_eq!(
             lines[1],
-            "1,0.000,0.000,0.632,overhang-corner,panel-edge,50,1.97,0.137"
+            "1,0.000,0.000,0.632,overhang-corner,panel-edge,50,0.137"
         );
         assert!(lines[6].starts_with("2,0.610,0.000,0.632,overhang-corner,intermediate,"));
         assert!(lines.last().expect("rows").starts_with("20,11.590,"));
@@ -118,7 +153,7 @@ mod tests {
             .lines()
             .nth(1)
             .expect("first row")
-            .contains(",overhang-corner,panel-edge,none,none,1.240"));
+            .contains(",overhang-corner,panel-edge,none,1.240"));
     }
 
     #[test]

@@ -1,26 +1,40 @@
 //! `schedule.csv`: one row per zone and support role, in the order of [`Schedule::zones`].
 //!
 //! A pure table: the header, then the rows, nothing else (the cautions travel in the PDF and on the
-//! terminal; see docs/report-format.md). Both unit systems are always present, each in its own column.
+//! terminal; see docs/report-format.md). The quantities are in the schedule's units, named in the headers.
 
-use crate::format::{fixed, kpa_to_psf, mm_to_in, n_to_lbf, places};
-use crate::{finite, Schedule, ScheduleError};
+use crate::format::{fixed, kpa_to_psf, mm_to_in, n_to_lbf, places, trimmed};
+use crate::{finite, Schedule, ScheduleError, Units};
 
-/// Column names of `schedule.csv`, units in the names.
-pub const SCHEDULE_HEADER: [&str; 18] = [
+/// Column names of `schedule.csv` in SI, units in the names.
+pub const SCHEDULE_HEADER: [&str; 14] = [
     "zone",
     "code_zone",
     "support_role",
     "nail_id",
     "nail_description",
     "spacing_mm",
-    "spacing_in",
     "net_uplift_kpa",
-    "net_uplift_psf",
     "demand_n",
-    "demand_lbf",
     "resistance_n",
-    "resistance_lbf",
+    "governing_mode",
+    "utilization",
+    "nail_count",
+    "governing_check",
+    "governing_line",
+];
+
+/// Column names of `schedule.csv` in US customary units.
+pub const SCHEDULE_HEADER_US: [&str; 14] = [
+    "zone",
+    "code_zone",
+    "support_role",
+    "nail_id",
+    "nail_description",
+    "spacing_in",
+    "net_uplift_psf",
+    "demand_lb",
+    "resistance_lb",
     "governing_mode",
     "utilization",
     "nail_count",
@@ -31,24 +45,40 @@ pub const SCHEDULE_HEADER: [&str; 18] = [
 /// What a spacing cell holds when no practical spacing works with the nail.
 pub const NO_SPACING: &str = "none";
 
+/// A spacing cell in the file's units: `150` (mm) or `6` (in, to 0.001); `none` when none works.
+pub(crate) fn spacing_cell(spacing_mm: Option<f64>, units: Units) -> String {
+    match spacing_mm {
+        Some(mm) if units.is_us() => trimmed(mm_to_in(mm), places::SPACING_IN_CSV),
+        Some(mm) => fixed(mm, places::SPACING_MM),
+        None => NO_SPACING.to_string(),
+    }
+}
+
 /// The bytes of `schedule.csv`.
 pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
     const FILE: &str = "schedule.csv";
     finite::check_zone_rows(schedule)?;
+    let units = schedule.basis.units;
     let mut writer = crate::csv_lines::writer();
     let fail = |error: csv::Error| ScheduleError::Csv {
         file: FILE,
         message: error.to_string(),
     };
-    writer.write_record(SCHEDULE_HEADER).map_err(fail)?;
+    let header = if units.is_us() {
+        SCHEDULE_HEADER_US
+    } else {
+        SCHEDULE_HEADER
+    };
+    writer.write_record(header).map_err(fail)?;
+    let pressure = |kpa: f64| match units {
+        Units::Imperial => fixed(kpa_to_psf(kpa), places::PRESSURE_PSF),
+        Units::Si => fixed(kpa, places::PRESSURE_KPA),
+    };
+    let force = |n: f64| match units {
+        Units::Imperial => fixed(n_to_lbf(n), places::FORCE_LBF),
+        Units::Si => fixed(n, places::FORCE_N),
+    };
     for row in &schedule.zones {
-        let (spacing_mm, spacing_in) = match row.spacing_mm {
-            Some(mm) => (
-                fixed(mm, places::SPACING_MM),
-                fixed(mm_to_in(mm), places::SPACING_IN),
-            ),
-            None => (NO_SPACING.to_string(), NO_SPACING.to_string()),
-        };
         writer
             .write_record([
                 row.label.as_str(),
@@ -56,14 +86,10 @@ pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
                 row.support_role.as_str(),
                 &row.nail_id,
                 &row.nail_description,
-                &spacing_mm,
-                &spacing_in,
-                &fixed(row.net_uplift_kpa, places::PRESSURE_KPA),
-                &fixed(kpa_to_psf(row.net_uplift_kpa), places::PRESSURE_PSF),
-                &fixed(row.demand_n, places::FORCE_N),
-                &fixed(n_to_lbf(row.demand_n), places::FORCE_LBF),
-                &fixed(row.resistance_n, places::FORCE_N),
-                &fixed(n_to_lbf(row.resistance_n), places::FORCE_LBF),
+                &spacing_cell(row.spacing_mm, units),
+                &pressure(row.net_uplift_kpa),
+                &force(row.demand_n),
+                &force(row.resistance_n),
                 &row.governing_mode,
                 &fixed(row.utilization, places::UTILIZATION),
                 &row.nail_count.to_string(),
@@ -93,10 +119,24 @@ mod tests {
         let header = text(&bytes).lines().next().expect("a header line");
         assert_eq!(
             header,
-            "zone,code_zone,support_role,nail_id,nail_description,spacing_mm,spacing_in,net_uplift_kpa,\
-             net_uplift_psf,demand_n,demand_lbf,resistance_n,resistance_lbf,governing_mode,utilization,\
-             nail_count,governing_check,governing_line"
+            "zone,code_zone,support_role,nail_id,nail_description,spacing_mm,net_uplift_kpa,demand_n,\
+             resistance_n,governing_mode,utilization,nail_count,governing_check,governing_line"
         );
+    }
+
+    #[test]
+    fn us_files_carry_us_units_only() {
+        let schedule = crate::sample::sample_schedule_with_lines(8, Units::Imperial);
+        let bytes = schedule_csv(&schedule).expect("sample writes");
+        let header = text(&bytes).lines().next().expect("a header line");
+        assert_eq!(
+            header,
+            "zone,code_zone,support_role,nail_id,nail_description,spacing_in,net_uplift_psf,demand_lb,\
+             resistance_lb,governing_mode,utilization,nail_count,governing_check,governing_line"
+        );
+        // The sample's 150 mm interior edge spacing is rounded to 6 in (152.4 mm) on the US basis.
+        let first = text(&bytes).lines().nth(1).expect("a row").to_string();
+        assert_eq!(first.split(',').nth(5), Some("6"), "{first}");
     }
 
     #[test]
@@ -108,8 +148,8 @@ mod tests {
         // utilization 50.325 / 400 = 0.126, nails (150 mod 7 + 3) x 40 = 240.
         assert_eq!(
             lines[1],
-            "interior,r,panel-edge,sample-nail-a,Sample ring-shank nail 3.3 x 63 mm,150,5.91,1.100,22.97,\
-             50,11.3,400,89.9,withdrawal,0.126,240,strength,1"
+            "interior,r,panel-edge,sample-nail-a,Sample ring-shank nail 3.3 x 63 mm,150,1.100,50,400,\
+             withdrawal,0.126,240,strength,1"
         );
         assert!(lines[2].starts_with("interior,r,intermediate,"));
         assert!(lines[10].starts_with("overhang-corner,oh-c,intermediate,sample-nail-a,"));
@@ -132,7 +172,7 @@ mod tests {
     }
 
     #[test]
-    fn infeasible_spacing_prints_none_in_both_units() {
+    fn infeasible_spacing_prints_none() {
         let bytes = schedule_csv(&sample_infeasible_schedule()).expect("sample writes");
         let row = text(&bytes)
             .lines()
@@ -140,8 +180,7 @@ mod tests {
             .expect("the infeasible row");
         let cells: Vec<&str> = row.split(',').collect();
         assert_eq!(cells[5], "none");
-        assert_eq!(cells[6], "none");
-        assert_eq!(cells[14], "1.240");
+        assert_eq!(cells[10], "1.240");
     }
 
     #[test]

@@ -1,7 +1,8 @@
-//! Fixed-decimal number formatting and the unit twins printed beside SI values.
+//! Number formatting and the units people read: SI (mm, m, kPa, N) or US customary (in, feet-inches,
+//! psf, lb), one system per document.
 //!
 //! The writers only format: every engineering value arrives in SI from [`crate::Schedule`]; the imperial
-//! twins are exact re-expressions with the conversion constants below.
+//! US values are exact re-expressions with the conversion constants below.
 
 use crate::ScheduleError;
 
@@ -10,12 +11,14 @@ pub use deckhold_core::units::{
     ft_from_m as m_to_ft, in_from_mm as mm_to_in, lbf_from_n as n_to_lbf,
     psf_from_kpa as kpa_to_psf,
 };
-pub use deckhold_core::units::{KPA_PER_PSF, MM_PER_FT, MM_PER_IN, N_PER_LBF};
+pub use deckhold_core::units::{KG_PER_LB, KPA_PER_PSF, MM_PER_FT, MM_PER_IN, N_PER_LBF};
 
 /// Decimal places of each printed quantity; the CSV files and docs/report-format.md use the same.
 pub mod places {
     pub const SPACING_MM: usize = 0;
     pub const SPACING_IN: usize = 2;
+    /// Inch spacings in the CSV files: to 0.001 in, trailing zeros dropped (`6`, `2.5`).
+    pub const SPACING_IN_CSV: usize = 3;
     pub const PRESSURE_KPA: usize = 3;
     pub const PRESSURE_PSF: usize = 2;
     pub const FORCE_N: usize = 0;
@@ -66,82 +69,175 @@ pub fn finite(field: &str, value: f64) -> Result<f64, ScheduleError> {
     }
 }
 
-/// A plan length the way a tape reads in the US: feet, inches and the nearest quarter inch (`39'-4 1/2"`).
+/// A plan length the way a tape reads in the US: feet, inches and the nearest eighth (`39'-4 1/2"`).
 pub fn feet_inches(m: f64) -> String {
     if !m.is_finite() {
         return "n/a".to_string();
     }
-    let quarters_total = (m.abs() * 1000.0 / MM_PER_IN * 4.0).round() as u64;
-    let feet = quarters_total / (12 * 4);
-    let inches = (quarters_total % (12 * 4)) / 4;
-    let fraction = match quarters_total % 4 {
-        1 => " 1/4",
-        2 => " 1/2",
-        3 => " 3/4",
-        _ => "",
-    };
-    let sign = if m < 0.0 && quarters_total > 0 {
+    let eighths_total = (m.abs() * 1000.0 / MM_PER_IN * 8.0).round() as u64;
+    let feet = eighths_total / (12 * 8);
+    let inches = (eighths_total % (12 * 8)) / 8;
+    let fraction = eighths_fraction(eighths_total % 8);
+    let sign = if m < 0.0 && eighths_total > 0 {
         "-"
     } else {
         ""
     };
+    let fraction = if fraction.is_empty() {
+        String::new()
+    } else {
+        format!(" {fraction}")
+    };
     format!("{sign}{feet}'-{inches}{fraction}\"")
 }
 
-/// A spacing for people: `150 mm`, or `6 in (152 mm)` when imperial leads; `none` when no spacing works.
+/// `1/8`, `1/4`, ... `7/8` for a count of eighths below eight (reduced); empty for zero.
+fn eighths_fraction(eighths: u64) -> &'static str {
+    match eighths {
+        1 => "1/8",
+        2 => "1/4",
+        3 => "3/8",
+        4 => "1/2",
+        5 => "5/8",
+        6 => "3/4",
+        7 => "7/8",
+        _ => "",
+    }
+}
+
+/// Inches to the nearest eighth as a tape reads them: `6`, `2 1/2`, `3/8`.
+pub fn inches_fraction(inches: f64) -> String {
+    if !inches.is_finite() {
+        return "n/a".to_string();
+    }
+    let eighths_total = (inches.abs() * 8.0).round() as u64;
+    let whole = eighths_total / 8;
+    let fraction = eighths_fraction(eighths_total % 8);
+    let sign = if inches < 0.0 && eighths_total > 0 {
+        "-"
+    } else {
+        ""
+    };
+    match (whole, fraction) {
+        (whole, "") => format!("{sign}{whole}"),
+        (0, fraction) => format!("{sign}{fraction}"),
+        (whole, fraction) => format!("{sign}{whole} {fraction}"),
+    }
+}
+
+/// `value` to three significant figures, the precision the inputs justify (`199.0927` -> `199`,
+/// `2.7291` -> `2.73`, `0.04567` -> `0.0457`); large values keep their whole digits (`3056`).
+pub fn sig3(value: f64) -> String {
+    if !value.is_finite() {
+        return "n/a".to_string();
+    }
+    if value == 0.0 {
+        return "0".to_string();
+    }
+    let magnitude = value.abs().log10().floor() as i32;
+    let decimals = (2 - magnitude).max(0) as usize;
+    let scale = 10f64.powi(magnitude - 2);
+    let rounded = if magnitude >= 2 {
+        (value / scale).round() * scale
+    } else {
+        value
+    };
+    fixed(rounded, decimals)
+}
+
+/// A spacing for people in the chosen units: `150 mm` or `6 in`; `none` when no spacing works.
 pub fn spacing_label(spacing_mm: Option<f64>, imperial: bool) -> String {
     match spacing_mm {
         None => "none".to_string(),
-        Some(mm) if imperial => format!(
-            "{} in ({} mm)",
-            trimmed(mm_to_in(mm), places::SPACING_IN),
-            fixed(mm, places::SPACING_MM)
-        ),
+        Some(mm) if imperial => format!("{} in", inches_fraction(mm_to_in(mm))),
         Some(mm) => format!("{} mm", fixed(mm, places::SPACING_MM)),
     }
 }
 
-/// A pressure for people: `1.234 kPa`, or `25.77 psf (1.234 kPa)` when imperial leads.
+/// A pressure's number in the chosen units (psf or kPa), three significant figures.
+pub fn pressure_value(kpa: f64, imperial: bool) -> String {
+    sig3(if imperial { kpa_to_psf(kpa) } else { kpa })
+}
+
+/// A pressure for people, three significant figures: `2.73 kPa` or `57.0 psf`.
 pub fn pressure_label(kpa: f64, imperial: bool) -> String {
-    if imperial {
-        format!(
-            "{} psf ({} kPa)",
-            fixed(kpa_to_psf(kpa), places::PRESSURE_PSF),
-            fixed(kpa, places::PRESSURE_KPA)
-        )
-    } else {
-        format!("{} kPa", fixed(kpa, places::PRESSURE_KPA))
-    }
+    let unit = if imperial { "psf" } else { "kPa" };
+    format!("{} {unit}", pressure_value(kpa, imperial))
 }
 
-/// A force for people: `512 N`, or `115.1 lbf (512 N)` when imperial leads.
+/// A force's number in the chosen units (lb or N), three significant figures.
+pub fn force_value(n: f64, imperial: bool) -> String {
+    sig3(if imperial { n_to_lbf(n) } else { n })
+}
+
+/// A force for people, three significant figures: `512 N` or `115 lb`.
 pub fn force_label(n: f64, imperial: bool) -> String {
-    if imperial {
-        format!(
-            "{} lbf ({} N)",
-            fixed(n_to_lbf(n), places::FORCE_LBF),
-            fixed(n, places::FORCE_N)
-        )
-    } else {
-        format!("{} N", fixed(n, places::FORCE_N))
-    }
+    let unit = if imperial { "lb" } else { "N" };
+    format!("{} {unit}", force_value(n, imperial))
 }
 
-/// A fastener dimension for people: `63.5 mm`, or `2.5 in (63.5 mm)` when imperial leads.
+/// A fastener dimension for people: `63.5 mm`, or `2.5 in` (decimal inches, as nail sizes are listed).
 pub fn small_length_label(mm: f64, imperial: bool) -> String {
     if imperial {
-        format!("{} in ({} mm)", trimmed(mm_to_in(mm), 3), trimmed(mm, 2))
+        format!("{} in", trimmed(mm_to_in(mm), 3))
     } else {
         format!("{} mm", trimmed(mm, 2))
     }
 }
 
-/// A plan length for people: `12.000 m`, or `39'-4 1/2" (12.000 m)` when imperial leads.
+/// A panel thickness as the trade names it: `15/32 in`, `19/32 in`, `7/16 in` in US units (nearest
+/// thirty-second, reduced), `15.1 mm` in SI.
+pub fn thickness_label(mm: f64, imperial: bool) -> String {
+    if !imperial {
+        return format!("{} mm", trimmed(mm, 1));
+    }
+    let mut numerator = (mm_to_in(mm) * 32.0).round() as u64;
+    let mut denominator = 32_u64;
+    while numerator > 0 && numerator.is_multiple_of(2) && denominator > 1 {
+        numerator /= 2;
+        denominator /= 2;
+    }
+    match (numerator, denominator) {
+        (0, _) => "0 in".to_string(),
+        (n, 1) => format!("{n} in"),
+        (n, d) if n > d => format!("{} {}/{} in", n / d, n % d, d),
+        (n, d) => format!("{n}/{d} in"),
+    }
+}
+
+/// A plan length for people: `12.00 m`, or `39'-4 1/2"`.
 pub fn plan_length_label(m: f64, imperial: bool) -> String {
     if imperial {
-        format!("{} ({} m)", feet_inches(m), fixed(m, places::LENGTH_M))
+        feet_inches(m)
     } else {
-        format!("{} m", fixed(m, places::LENGTH_M))
+        format!("{} m", fixed(m, 2))
+    }
+}
+
+/// A mass for people: `13.2 kg` or `29.1 lb`.
+pub fn mass_label(kg: f64, imperial: bool) -> String {
+    if imperial {
+        format!("{} lb", fixed(kg / KG_PER_LB, places::MASS_KG))
+    } else {
+        format!("{} kg", fixed(kg, places::MASS_KG))
+    }
+}
+
+/// "on center" in US output, "on centre" in Canadian: one spelling per document.
+pub fn on_center(imperial: bool) -> &'static str {
+    if imperial {
+        "on center"
+    } else {
+        "on centre"
+    }
+}
+
+/// "CENTER" or "CENTRE", for headings.
+pub fn center_word(imperial: bool) -> &'static str {
+    if imperial {
+        "center"
+    } else {
+        "centre"
     }
 }
 
@@ -201,6 +297,38 @@ mod tests {
         assert_eq!(feet_inches(12.0), "39'-4 1/2\"");
         assert_eq!(feet_inches(0.3048), "1'-0\"");
         assert_eq!(feet_inches(0.0), "0'-0\"");
+        // 12 ft 4 3/8 in = 148.375 in = 3.768725 m.
+        assert_eq!(feet_inches(3.768725), "12'-4 3/8\"");
+        assert_eq!(feet_inches(0.3048 * 12.0 + 0.0254 * 11.87), "12'-11 7/8\"");
+        // 11 15/16 in rounds up to the next foot.
+        assert_eq!(feet_inches(0.0254 * 11.99), "1'-0\"");
+    }
+
+    #[test]
+    fn inches_read_as_fractions() {
+        assert_eq!(inches_fraction(6.0), "6");
+        assert_eq!(inches_fraction(2.5), "2 1/2");
+        assert_eq!(inches_fraction(0.375), "3/8");
+    }
+
+    #[test]
+    fn three_significant_figures() {
+        assert_eq!(sig3(199.0927), "199");
+        assert_eq!(sig3(2.7291), "2.73");
+        assert_eq!(sig3(0.045_67), "0.0457");
+        assert_eq!(sig3(3056.4), "3060");
+        assert_eq!(sig3(57.0), "57.0");
+        assert_eq!(sig3(0.0), "0");
+    }
+
+    #[test]
+    fn panel_thickness_reads_as_the_trade_names_it() {
+        // 19/32 in = 15.08 mm, 15/32 in = 11.91 mm, 7/16 in = 11.11 mm.
+        assert_eq!(thickness_label(15.08, true), "19/32 in");
+        assert_eq!(thickness_label(11.9, true), "15/32 in");
+        assert_eq!(thickness_label(11.1, true), "7/16 in");
+        assert_eq!(thickness_label(25.4, true), "1 in");
+        assert_eq!(thickness_label(15.1, false), "15.1 mm");
     }
 
     #[test]
@@ -215,9 +343,10 @@ mod tests {
     #[test]
     fn labels_lead_with_the_chosen_units() {
         assert_eq!(spacing_label(Some(150.0), false), "150 mm");
-        assert_eq!(spacing_label(Some(152.4), true), "6 in (152 mm)");
+        assert_eq!(spacing_label(Some(152.4), true), "6 in");
         assert_eq!(spacing_label(None, true), "none");
-        assert_eq!(force_label(444.8222, true), "100.0 lbf (445 N)");
-        assert_eq!(pressure_label(1.0, false), "1.000 kPa");
+        assert_eq!(force_label(444.8222, true), "100 lb");
+        assert_eq!(pressure_label(1.0, false), "1.00 kPa");
+        assert_eq!(plan_length_label(12.0, true), "39'-4 1/2\"");
     }
 }

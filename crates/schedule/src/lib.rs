@@ -15,8 +15,8 @@ mod pdf;
 #[doc(hidden)]
 pub mod sample;
 
-pub use csv_lines::{rafter_lines_csv, LINES_HEADER};
-pub use csv_schedule::{schedule_csv, NO_SPACING, SCHEDULE_HEADER};
+pub use csv_lines::{rafter_lines_csv, LINES_HEADER, LINES_HEADER_US};
+pub use csv_schedule::{schedule_csv, NO_SPACING, SCHEDULE_HEADER, SCHEDULE_HEADER_US};
 pub use error::ScheduleError;
 pub use model::*;
 pub use pdf::{schedule_pdf, PdfOptions};

@@ -8,14 +8,29 @@
 pub use deckhold_core::{SupportRole, ZoneKind};
 use serde::Serialize;
 
-/// Which units the printed report leads with. CSV files always carry both.
+/// The units every printed output uses: one system per document, so a crew never converts. The basis
+/// picks its customary units; `--units` overrides. JSON keeps its SI fields and adds these beside them.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
 #[serde(rename_all = "kebab-case")]
 pub enum Units {
-    /// mm, kPa, N (Canadian basis).
+    /// mm, m, kPa, N (Canadian practice).
     Si,
-    /// in, psf, lbf first, SI in brackets (US basis).
+    /// US customary: inches o.c., feet-inches to 1/8 in, psf, lb, nails by pennyweight.
     Imperial,
+}
+
+impl Units {
+    /// The word the user types: `si` or `us`.
+    pub fn id(self) -> &'static str {
+        match self {
+            Units::Si => "si",
+            Units::Imperial => "us",
+        }
+    }
+
+    pub fn is_us(self) -> bool {
+        self == Units::Imperial
+    }
 }
 
 /// Who, where and when: the title block of every page.

@@ -170,9 +170,11 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
     let (zones, mut curves): (Vec<Zone>, Vec<ZoneCurve>) = zones_and_curves.into_iter().unzip();
     apply_overrides(&zones, &mut curves, &input.overrides)?;
     let mut warnings = basis.warnings.clone();
-    if roof.shape == RoofShape::Hip && roof.rake_overhang_mm > 0.0 {
+    // Only when the user gave a rake overhang that differs from the eave's: a single `overhang` key
+    // sets both, and then nothing is dropped.
+    if roof.shape == RoofShape::Hip && roof.rake_overhang_mm != roof.eave_overhang_mm {
         warnings.push(
-            "hip roof: rake_overhang_mm is not used; the eave overhang runs on all four sides"
+            "hip roof: roof.rake_overhang is not used; the eave overhang runs on all four sides"
                 .to_string(),
         );
     }

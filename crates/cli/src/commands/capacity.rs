@@ -10,10 +10,12 @@ use crate::Outcome;
 use deckhold_fasten::{
     nail_resistance, DeckLayer, Grain, LoadDuration, MemberKind, ResistanceInput, Service,
 };
-use deckhold_project::units::{MM_PER_IN, N_PER_LBF};
+use deckhold_project::units::MM_PER_IN;
 use deckhold_project::{Basis, BasisStandards};
+use deckhold_schedule::format::{force_label, small_length_label};
+use deckhold_schedule::Units;
 
-pub fn run(args: &CapacityArgs) -> Result<Outcome> {
+pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
     let basis = Basis::parse(&args.basis).ok_or_else(|| {
         anyhow!(
             "--basis: '{}' is not one of {}",
@@ -98,19 +100,15 @@ pub fn run(args: &CapacityArgs) -> Result<Outcome> {
         println!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
-    let force = |n: f64| {
-        if us {
-            format!("{:.1} lbf ({n:.0} N)", n / N_PER_LBF)
-        } else {
-            format!("{n:.0} N")
-        }
-    };
+    let us_units = units.map_or(us, Units::is_us);
+    let force = |n: f64| force_label(n, us_units);
     println!(
-        "{} — {} in {} ({}), penetration {penetration_mm:.1} mm",
+        "{} — {} in {} ({}), penetration {}",
         resistance.method.as_str(),
         nail.id,
         species.id,
-        species.name
+        species.name,
+        small_length_label(penetration_mm, us_units)
     );
     println!("  withdrawal:       {}", force(resistance.withdrawal_n));
     match resistance.pull_through_n {

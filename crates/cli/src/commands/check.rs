@@ -9,15 +9,17 @@ use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::units::MM_PER_IN;
 use deckhold_project::{check_pattern, ExistingPattern, PatternSpacing};
+use deckhold_schedule::format::force_label;
+use deckhold_schedule::Units;
 
-pub fn run(args: &CheckArgs) -> Result<Outcome> {
-    let project = load_project(Some(&args.project))?;
+pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
+    let project = load_project(Some(&args.project), units)?;
     let pattern = pattern_from(args, project.existing.as_ref())?;
     let wind =
         deckhold_wind::analyze(&project.wind).context("the wind zones could not be computed")?;
     let checked =
         check_pattern(&project, &wind, &pattern).context("the pattern could not be checked")?;
-    let us = project.basis.is_us();
+    let units = project.units;
     let passes = checked.passes();
     if args.json {
         let rows: Vec<serde_json::Value> = checked
@@ -54,10 +56,10 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
         println!("{}", serde_json::to_string_pretty(&value)?);
     } else {
         println!(
-            "Plan check: {} ({}), {:.0} N per nail ({})\n",
+            "Plan check: {} ({}), {} per nail ({})\n",
             checked.nail.id,
             checked.nail.description,
-            checked.resistance.governing_n,
+            force_label(checked.resistance.governing_n, units.is_us()),
             checked.resistance.governing_mode.as_str()
         );
         let mut table = Table::new(&[
@@ -68,8 +70,8 @@ pub fn run(args: &CheckArgs) -> Result<Outcome> {
                 row.label.to_string(),
                 row.code_zone.clone(),
                 row.support_role.to_string(),
-                spacing_text(Some(row.given_spacing_mm), us),
-                spacing_text(row.required_spacing_mm, us),
+                spacing_text(Some(row.given_spacing_mm), units),
+                spacing_text(row.required_spacing_mm, units),
                 format!("{:.2}", row.utilization),
                 row.governing_line.to_string(),
                 if row.passes {

@@ -12,8 +12,8 @@ use deckhold_deck::layout::SupportRole;
 use deckhold_fasten::CatalogBasis;
 use deckhold_project::rules::prescriptive_minimum_length;
 use deckhold_project::{run_job_with_nails, BasisStandards, NailOutcome, Project};
-
-const LB_PER_KG: f64 = 2.204_622_6;
+use deckhold_schedule::format::{force_label, mass_label, small_length_label, KG_PER_LB};
+use deckhold_schedule::Units;
 
 /// Every catalog nail of the project's basis that reaches the minimum penetration through the deck.
 fn fitting_nails(project: &Project) -> Vec<String> {
@@ -41,8 +41,8 @@ fn meets_prescriptive(project: &Project, candidate: &NailOutcome) -> Option<bool
         .map(|(length_mm, _)| candidate.nail.length_mm + 0.05 >= length_mm)
 }
 
-pub fn run(args: &CompareArgs) -> Result<Outcome> {
-    let project = load_project(args.project.as_deref())?;
+pub fn run(args: &CompareArgs, units: Option<Units>) -> Result<Outcome> {
+    let project = load_project(args.project.as_deref(), units)?;
     let nail_ids: Vec<String> = if args.nails.is_empty() {
         fitting_nails(&project)
     } else {
@@ -57,7 +57,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
         );
     }
     let job = run_job_with_nails(&project, &nail_ids).context("the nails could not be compared")?;
-    let us = project.basis.is_us();
+    let us = project.units.is_us();
     let zone_names: Vec<String> = job
         .wind
         .zones
@@ -115,7 +115,7 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                     "zones": zones,
                     "total_nail_count": candidate.plan.as_ref().map(|plan| plan.total_nail_count),
                     "total_nail_mass_kg": mass_kg,
-                    "total_nail_mass_lb": mass_kg.map(|kg| kg * LB_PER_KG),
+                    "total_nail_mass_lb": mass_kg.map(|kg| kg / KG_PER_LB),
                 })
             })
             .collect();
@@ -162,15 +162,8 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
     for candidate in &order {
         let mut cells = vec![candidate.nail.id.clone()];
         match &candidate.resistance {
-            Ok(resistance) if us => {
-                cells.push(format!(
-                    "{:.0} lbf",
-                    resistance.governing_n / deckhold_project::units::N_PER_LBF
-                ));
-                cells.push(resistance.governing_mode.as_str().to_string());
-            }
             Ok(resistance) => {
-                cells.push(format!("{:.0} N", resistance.governing_n));
+                cells.push(force_label(resistance.governing_n, us));
                 cells.push(resistance.governing_mode.as_str().to_string());
             }
             Err(reason) => {
@@ -183,18 +176,14 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
                 .plan
                 .as_ref()
                 .and_then(|plan| plan.zone_role(*zone_index, *role))
-                .map(|result| spacing_text(result.spacing_mm, us))
+                .map(|result| spacing_text(result.spacing_mm, project.units))
                 .unwrap_or_else(|| "-".to_string());
             cells.push(spacing.replace(" o.c.", ""));
         }
         match &candidate.plan {
             Some(plan) => {
                 cells.push(plan.total_nail_count.to_string());
-                cells.push(if us {
-                    format!("{:.1} lb", plan.total_nail_mass_kg * LB_PER_KG)
-                } else {
-                    format!("{:.1} kg", plan.total_nail_mass_kg)
-                });
+                cells.push(mass_label(plan.total_nail_mass_kg, us));
             }
             None => {
                 cells.push("-".to_string());
@@ -212,11 +201,14 @@ pub fn run(args: &CompareArgs) -> Result<Outcome> {
     println!(
         "{}: nails compared on one deck ({})\n",
         project.basis.info().title,
-        deckhold_project::report::deck_text(&project)
+        deckhold_project::report::deck_text(&project, project.units)
     );
     print!("{}", table.render());
     if let Some((length_mm, source)) = rule {
-        println!("\nprescr.: at least {length_mm:.0} mm long per {source}.");
+        println!(
+            "\nprescr.: at least {} long per {source}.",
+            small_length_label(length_mm, us)
+        );
     }
     print!("{}", caution_lines());
     Ok(Outcome::Works)

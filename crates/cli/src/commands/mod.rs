@@ -10,18 +10,25 @@ pub mod zones;
 
 use anyhow::{Context, Result};
 use deckhold_project::{parse_project, Project, DEMO_PROJECT_JSON};
+use deckhold_schedule::format::spacing_label;
+use deckhold_schedule::Units;
 use std::path::Path;
 
-/// Reads and validates the project file, or the built-in demo when none is given.
-pub fn load_project(path: Option<&Path>) -> Result<Project> {
-    match path {
-        None => parse_project(DEMO_PROJECT_JSON).context("the built-in demo project"),
+/// Reads and validates the project file, or the built-in demo when none is given; `units` (from
+/// `--units`) replaces the basis's customary units for every output.
+pub fn load_project(path: Option<&Path>, units: Option<Units>) -> Result<Project> {
+    let mut project = match path {
+        None => parse_project(DEMO_PROJECT_JSON).context("the built-in demo project")?,
         Some(path) => {
             let text = std::fs::read_to_string(path)
                 .with_context(|| format!("cannot read the project file {}", path.display()))?;
-            parse_project(&text).with_context(|| format!("in {}", path.display()))
+            parse_project(&text).with_context(|| format!("in {}", path.display()))?
         }
+    };
+    if let Some(units) = units {
+        project.units = units;
     }
+    Ok(project)
 }
 
 /// The cautions printed under every table.
@@ -35,15 +42,11 @@ pub fn caution_lines() -> String {
     text
 }
 
-/// A spacing for people: "150 mm o.c." or, for the US basis, "6 in o.c. (152 mm)"; "none works" for None.
-pub fn spacing_text(spacing_mm: Option<f64>, us: bool) -> String {
+/// A spacing for people: "150 mm o.c." or "6 in o.c."; "none works" for None.
+pub fn spacing_text(spacing_mm: Option<f64>, units: Units) -> String {
     match spacing_mm {
         None => "none works".to_string(),
-        Some(spacing_mm) if us => format!(
-            "{:.0} in o.c.",
-            spacing_mm / deckhold_project::units::MM_PER_IN
-        ),
-        Some(spacing_mm) => format!("{spacing_mm:.0} mm o.c."),
+        Some(spacing_mm) => format!("{} o.c.", spacing_label(Some(spacing_mm), units.is_us())),
     }
 }
 

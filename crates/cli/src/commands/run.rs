@@ -10,42 +10,48 @@ use crate::output::write_all_atomically;
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::{run_job, schedule_for};
-use deckhold_schedule::{rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions, Schedule};
+use deckhold_schedule::format::{
+    force_label, force_value, kpa_to_psf, mass_label, n_to_lbf, pressure_value,
+};
+use deckhold_schedule::{
+    rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions, Schedule, Units,
+};
 
-pub fn run(args: &RunArgs) -> Result<Outcome> {
+/// The files `run --out` writes, in order (schedule.json only with --json).
+const FILE_NAMES: [&str; 3] = ["schedule.csv", "rafter-lines.csv", "schedule.pdf"];
+
+pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     let mut stages: Vec<(&str, f64)> = Vec::new();
     let mut clock = Instant::now();
     let mut lap = |name: &'static str| {
         stages.push((name, clock.elapsed().as_secs_f64() * 1000.0));
         clock = Instant::now();
     };
-    let project = load_project(args.project.as_deref())?;
+    let project = load_project(args.project.as_deref(), units)?;
     lap("parse");
     let job = run_job(&project).context("the job could not be run")?;
     lap("wind + resistance + spacing");
     let schedule = schedule_for(&project, &job);
     lap("report data");
 
+    let mut written = Vec::new();
     if let Some(folder) = &args.out {
         let mut files = vec![
-            ("schedule.csv", schedule_csv(&schedule)?),
-            ("rafter-lines.csv", rafter_lines_csv(&schedule)?),
+            (FILE_NAMES[0], schedule_csv(&schedule)?),
+            (FILE_NAMES[1], rafter_lines_csv(&schedule)?),
         ];
         lap("CSV");
         let options = PdfOptions {
             creation_date: schedule.project.date.clone(),
             document_id: format!("deckhold-{}", schedule.project.date),
         };
-        files.push(("schedule.pdf", schedule_pdf(&schedule, &options)?));
+        files.push((FILE_NAMES[2], schedule_pdf(&schedule, &options)?));
         lap("PDF");
         if args.json {
             files.push(("schedule.json", serde_json::to_vec_pretty(&schedule)?));
         }
-        let written = write_all_atomically(folder, &files)?;
+        written = write_all_atomically(folder, &files)?;
         lap("write files");
-        for path in written {
-            eprintln!("wrote {}", path.display());
-        }
     }
 
     if args.json {
@@ -53,8 +59,12 @@ pub fn run(args: &RunArgs) -> Result<Outcome> {
             "{}",
             serde_json::to_string_pretty(&summary_json(&schedule))?
         );
+        for path in &written {
+            eprintln!("wrote {}", path.display());
+        }
     } else {
         print!("{}", summary_text(&schedule));
+        print!("{}", files_text(&written));
     }
     if args.timings {
         let total: f64 = stages.iter().map(|(_, ms)| ms).sum();
@@ -76,7 +86,7 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
         .zones
         .iter()
         .map(|zone| {
-            json!({
+            let mut value = json!({
                 "label": zone.label,
                 "code_zone": zone.code_zone,
                 "support_role": zone.support_role,
@@ -92,11 +102,19 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
                 "nail_count": zone.nail_count,
                 "governing_check": zone.governing_check,
                 "governing_line": zone.governing_line,
-            })
+            });
+            // The user's US units beside the SI fields, which stay for pipelines.
+            if schedule.basis.units.is_us() {
+                value["net_uplift_psf"] = json!(round3(kpa_to_psf(zone.net_uplift_kpa)));
+                value["demand_lb"] = json!(round3(n_to_lbf(zone.demand_n)));
+                value["resistance_lb"] = json!(round3(n_to_lbf(zone.resistance_n)));
+            }
+            value
         })
         .collect();
     json!({
         "basis": schedule.basis.id,
+        "units": schedule.basis.units.id(),
         "nail": schedule.nail.id,
         "feasible": schedule.feasible,
         "edge_width_m": schedule.edge_width_m,
@@ -109,8 +127,29 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
     })
 }
 
+/// A value rounded to 0.001 for the JSON twins.
+fn round3(value: f64) -> f64 {
+    (value * 1000.0).round() / 1000.0
+}
+
+/// The closing line: where the files went, or that none were written and how to write them.
+fn files_text(written: &[std::path::PathBuf]) -> String {
+    if written.is_empty() {
+        return format!(
+            "\nNo files were written. To write {}, {} and {}, add --out FOLDER.\n",
+            FILE_NAMES[0], FILE_NAMES[1], FILE_NAMES[2]
+        );
+    }
+    let mut text = String::from("\nFiles written:\n");
+    for path in written {
+        text.push_str(&format!("  {}\n", path.display()));
+    }
+    text
+}
+
 fn summary_text(schedule: &Schedule) -> String {
-    let us = schedule.basis.units == deckhold_schedule::Units::Imperial;
+    let units = schedule.basis.units;
+    let us = units.is_us();
     let title = if schedule.project.name.is_empty() {
         "Roof sheathing nailing schedule"
     } else {
@@ -118,10 +157,10 @@ fn summary_text(schedule: &Schedule) -> String {
     };
     let nail_line = if schedule.resistance.governing_n > 0.0 {
         format!(
-            "Nail: {} ({}), {:.0} N per nail ({})",
+            "Nail: {} ({}), {} per nail ({})",
             schedule.nail.id,
             schedule.nail.description,
-            schedule.resistance.governing_n,
+            force_label(schedule.resistance.governing_n, us),
             schedule.resistance.governing_mode,
         )
     } else {
@@ -131,13 +170,18 @@ fn summary_text(schedule: &Schedule) -> String {
         )
     };
     let mut text = format!("{title}\n{}\n{nail_line}\n\n", schedule.basis.title);
+    let (pressure_head, force_head) = if us {
+        ("uplift psf", "demand lb")
+    } else {
+        ("uplift kPa", "demand N")
+    };
     let mut table = Table::new(&[
         "zone",
         "code",
         "support",
         "spacing",
-        "uplift kPa",
-        "demand N",
+        pressure_head,
+        force_head,
         "util.",
         "nails",
         "governed by",
@@ -148,9 +192,9 @@ fn summary_text(schedule: &Schedule) -> String {
             zone.label.to_string(),
             zone.code_zone.clone(),
             zone.support_role.to_string(),
-            spacing_text(zone.spacing_mm, us),
-            format!("{:.2}", zone.net_uplift_kpa),
-            format!("{:.0}", zone.demand_n),
+            spacing_text(zone.spacing_mm, units),
+            pressure_value(zone.net_uplift_kpa, us),
+            force_value(zone.demand_n, us),
             format!("{:.2}", zone.utilization),
             zone.nail_count.to_string(),
             zone.governing_check.clone(),
@@ -159,8 +203,9 @@ fn summary_text(schedule: &Schedule) -> String {
     }
     text.push_str(&table.render());
     text.push_str(&format!(
-        "\nTotal: {} nails, {:.1} kg\n",
-        schedule.total_nail_count, schedule.total_nail_mass_kg
+        "\nTotal: {} nails, {}\n",
+        schedule.total_nail_count,
+        mass_label(schedule.total_nail_mass_kg, us)
     ));
     if !schedule.feasible {
         text.push_str("\nNO PRACTICAL SPACING WORKS in every zone with this nail.\n");

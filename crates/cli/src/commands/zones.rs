@@ -9,12 +9,14 @@ use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::units::M_PER_FT;
 use deckhold_project::BasisStandards;
+use deckhold_schedule::format::{plan_length_label, pressure_label, pressure_value, sig3};
+use deckhold_schedule::Units;
 
 /// A nail holds well under a square metre; 0.1 m² is on the figures' small-area plateau.
 const DEFAULT_AREA_M2: f64 = 0.1;
 
-pub fn run(args: &ZonesArgs) -> Result<Outcome> {
-    let project = load_project(args.project.as_deref())?;
+pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
+    let project = load_project(args.project.as_deref(), units)?;
     let area_m2 = match (args.area_m2, args.area_ft2) {
         (Some(area_m2), _) => area_m2,
         (None, Some(area_ft2)) => area_ft2 * M_PER_FT * M_PER_FT,
@@ -62,33 +64,47 @@ pub fn run(args: &ZonesArgs) -> Result<Outcome> {
         println!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
+    let us = project.units.is_us();
+    let area = |m2: f64| {
+        if us {
+            format!("{} ft²", sig3(m2 / (M_PER_FT * M_PER_FT)))
+        } else {
+            format!("{} m²", sig3(m2))
+        }
+    };
     println!(
-        "{}\nEdge / end-zone width {:.2} m, velocity pressure {:.3} kPa, mean roof height {:.2} m, effective area {area_m2:.3} m²\n",
+        "{}\nEdge / end-zone width {}, velocity pressure {}, mean roof height {}, effective area {}\n",
         project.basis.info().title,
-        wind.edge_width_m,
-        wind.q_kpa,
-        wind.mean_roof_height_m
+        plan_length_label(wind.edge_width_m, us),
+        pressure_label(wind.q_kpa, us),
+        plan_length_label(wind.mean_roof_height_m, us),
+        area(area_m2)
+    );
+    let pressure_unit = if us { "psf" } else { "kPa" };
+    let (area_head, wind_head, dead_head, net_head) = (
+        if us { "area ft2" } else { "area m2" },
+        format!("wind {pressure_unit}"),
+        format!("dead {pressure_unit}"),
+        format!("net uplift {pressure_unit}"),
     );
     let mut table = Table::new(&[
-        "zone",
-        "code",
-        "area m2",
-        "cp ext",
-        "cp int",
-        "wind kPa",
-        "dead kPa",
-        "net uplift kPa",
+        "zone", "code", area_head, "cp ext", "cp int", &wind_head, &dead_head, &net_head,
     ]);
     for (zone, uplift) in &rows {
+        let zone_area = if us {
+            zone.area_m2 / (M_PER_FT * M_PER_FT)
+        } else {
+            zone.area_m2
+        };
         table.row(vec![
             zone.label.as_str().to_string(),
             zone.code_zone.clone(),
-            format!("{:.2}", zone.area_m2),
+            format!("{zone_area:.1}"),
             format!("{:.2}", uplift.cp_ext),
             format!("{:.2}", uplift.cp_int),
-            format!("{:.3}", uplift.wind_factored_kpa),
-            format!("{:.3}", uplift.dead_counteracting_kpa),
-            format!("{:.3}", uplift.net_uplift_kpa),
+            pressure_value(uplift.wind_factored_kpa, us),
+            pressure_value(uplift.dead_counteracting_kpa, us),
+            pressure_value(uplift.net_uplift_kpa, us),
         ]);
     }
     print!("{}", table.render());
