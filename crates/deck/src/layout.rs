@@ -6,15 +6,17 @@
 //! nothing of pressures.
 
 mod courses;
+mod framing;
 mod geometry;
 mod lines;
 mod zones;
 
 use serde::{Deserialize, Serialize};
 
-use crate::error::{check_positive, SpacingError};
-use courses::{bearing_at, course_joints, StripCache};
+use crate::error::{check_positive, check_range, SpacingError};
+use courses::{bearing_at, course_pieces, CourseLayer, StripCache};
 use deckhold_core::limits;
+use framing::framing_lines;
 use geometry::{validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
 use zones::{zone_pieces, LineStrip};
@@ -54,9 +56,46 @@ pub struct FramingInput {
     /// Direction the framing lines run in. Default: down each plane's slope; for a flat plane,
     /// parallel to its shorter plan dimension (the joists span the short way).
     pub lines_along: Option<Axis>,
-    /// Plan offset of the first line from the plane's smallest coordinate across the lines, mm;
-    /// 0 puts a line on each edge of the plane.
-    pub first_line_offset_mm: f64,
+    /// The wall lines under the roof, m (segments in plan). Every wall parallel to the framing carries
+    /// a member, and the other lines are set out from the first such wall at `spacing_mm`.
+    pub walls_m: Vec<[[f64; 2]; 2]>,
+}
+
+/// What a framing line is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum LineKind {
+    /// A common rafter, truss or joist at the framing spacing.
+    Common,
+    /// The member over a wall parallel to the framing (a gable-end wall, an inside wall of an L).
+    EndWall,
+    /// A hip rafter, from an outside corner to the ridge.
+    Hip,
+    /// A valley rafter, from an inside corner to the ridge.
+    Valley,
+    /// A jack rafter: from the eave wall up to a hip or valley.
+    Jack,
+    /// Blocking between members where the user asks for it.
+    Blocking,
+}
+
+impl LineKind {
+    pub fn as_str(self) -> &'static str {
+        match self {
+            LineKind::Common => "common",
+            LineKind::EndWall => "end-wall",
+            LineKind::Hip => "hip",
+            LineKind::Valley => "valley",
+            LineKind::Jack => "jack",
+            LineKind::Blocking => "blocking",
+        }
+    }
+}
+
+impl std::fmt::Display for LineKind {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(self.as_str())
+    }
 }
 
 /// The deck panels.
@@ -67,6 +106,9 @@ pub struct PanelInput {
     /// Panel width, laid along the framing, mm (300..1250).
     pub width_mm: f64,
     pub stagger: Stagger,
+    /// Narrowest cut piece laid, across the framing, mm: where a piece would be narrower the panel
+    /// ends are shifted to another line, the way a framer lays out a course.
+    pub min_piece_mm: f64,
 }
 
 /// Offset of the panel end joints in alternate courses.
@@ -126,6 +168,7 @@ pub struct LayoutLine {
     /// 1..N over the roof, by plane then by position.
     pub number: u32,
     pub plane_index: usize,
+    pub kind: LineKind,
     /// Direction the line runs in.
     pub axis: Axis,
     /// The line's constant plan coordinate (x for a line along y), m.
@@ -153,6 +196,57 @@ pub struct Course {
     pub to_m: f64,
     /// Plan positions across the lines of the panel ends in this course, both deck edges included, m.
     pub joints_m: Vec<f64>,
+    /// How the course was shifted or trimmed to avoid a piece narrower than the minimum.
+    pub adjustments: Vec<String>,
+}
+
+/// Every member the deck lands on, for drawings and checks: the numbered lines and the hip and
+/// valley rafters along the planes' oblique edges.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct FramingLine {
+    /// The line's number in [`DeckLayout::lines`]; None for a hip or valley rafter.
+    pub number: Option<u32>,
+    pub kind: LineKind,
+    /// Plan points of the two ends, m.
+    pub start_m: [f64; 2],
+    pub end_m: [f64; 2],
+    /// Length along the member on the slope, m.
+    pub length_on_slope_m: f64,
+}
+
+/// One piece of deck (a panel or a cut panel) in one course.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct DeckPiece {
+    pub plane_index: usize,
+    pub course: usize,
+    /// Plan positions across the framing of the piece's two ends, m.
+    pub start_m: f64,
+    pub end_m: f64,
+    /// Along the slope from the plane's low edge, m.
+    pub from_slope_m: f64,
+    pub to_slope_m: f64,
+    /// Across the framing, on the slope, m.
+    pub length_m: f64,
+    /// Up the slope, m.
+    pub width_m: f64,
+    /// Numbers of the lines under the piece's two ends; None where the end is a deck edge past the
+    /// last member (a cantilever) or a cut along a hip or valley.
+    pub start_line: Option<u32>,
+    pub end_line: Option<u32>,
+    /// Deck past the outermost member under the piece, on the slope, m (0: no cantilever).
+    pub cantilever_start_m: f64,
+    pub cantilever_end_m: f64,
+}
+
+/// Where and how panel laying starts on one plane.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct LayingStart {
+    pub plane_index: usize,
+    /// Plan point of the corner the first panel goes in: the low (eave) edge at the smaller
+    /// coordinate across the framing, m.
+    pub corner_m: [f64; 2],
+    /// Distance of the first course's low edge from the eave edge, up the slope, m (0: flush).
+    pub first_course_offset_m: f64,
 }
 
 /// The laid-out deck.
@@ -160,6 +254,9 @@ pub struct Course {
 pub struct DeckLayout {
     pub lines: Vec<LayoutLine>,
     pub courses: Vec<Course>,
+    pub framing: Vec<FramingLine>,
+    pub pieces: Vec<DeckPiece>,
+    pub laying_starts: Vec<LayingStart>,
 }
 
 /// Lays out the framing lines and panel courses of every plane.
@@ -178,30 +275,41 @@ pub fn layout_deck(
     let mut cache = StripCache::default();
     let mut lines = Vec::new();
     let mut courses = Vec::new();
+    let mut pieces = Vec::new();
+    let mut laying_starts = Vec::new();
     let mut number = 0u32;
     for (plane_index, plane) in planes.iter().enumerate() {
         let frame = plane_frame(plane_index, plane, framing)?;
-        let grid = grid_lines(plane, &frame, framing);
+        let grid = grid_lines(plane, &frame, framing)?;
         let width_m = panel.width_mm / 1000.0;
         let slope_length_m = frame.slope_length_m();
         let course_count = ((slope_length_m / width_m) - 1e-9).ceil().max(1.0) as usize;
+        let layer = CourseLayer {
+            plane_index,
+            frame: &frame,
+            grid: &grid,
+            panel,
+            framing_spacing_mm: framing.spacing_mm,
+        };
+        let first = layer.joints(0, None)?;
+        let first_joint_m = first.joints_m.get(1).copied();
         let mut plane_courses = Vec::with_capacity(course_count);
         for index in 0..course_count {
+            let laid = if index == 0 {
+                first.clone()
+            } else {
+                layer.joints(index, first_joint_m)?
+            };
             plane_courses.push(Course {
                 plane_index,
                 index,
                 from_m: index as f64 * width_m,
                 to_m: ((index + 1) as f64 * width_m).min(slope_length_m),
-                joints_m: course_joints(
-                    plane_index,
-                    &frame,
-                    &grid,
-                    panel,
-                    framing.spacing_mm,
-                    index,
-                )?,
+                joints_m: laid.joints_m,
+                adjustments: laid.adjustments,
             });
         }
+        let first_number = number + 1;
         for line in 0..grid.len() {
             number += 1;
             let context = PlaneContext {
@@ -221,9 +329,23 @@ pub fn layout_deck(
                 &mut cache,
             )?);
         }
+        pieces.extend(course_pieces(&frame, &grid, first_number, &plane_courses));
+        let low_along_m = frame.along_at_m(0.0);
+        laying_starts.push(LayingStart {
+            plane_index,
+            corner_m: frame.plan_point(frame.cross_range_m[0], low_along_m),
+            first_course_offset_m: 0.0,
+        });
         courses.extend(plane_courses);
     }
-    Ok(DeckLayout { lines, courses })
+    let framing_lines = framing_lines(planes, &lines);
+    Ok(DeckLayout {
+        lines,
+        courses,
+        framing: framing_lines,
+        pieces,
+        laying_starts,
+    })
 }
 
 struct PlaneContext<'a> {
@@ -312,6 +434,7 @@ fn lay_out_line(
     Ok(LayoutLine {
         number,
         plane_index,
+        kind: grid_line.kind,
         axis: frame.run,
         position_m: grid_line.position_m,
         length_m: slope_intervals.iter().map(|i| i[1] - i[0]).sum(),
@@ -386,18 +509,22 @@ fn validate(
         }
     }
     limits::FRAMING_SPACING_MM.check("framing.spacing_mm", framing.spacing_mm)?;
-    if !(framing.first_line_offset_mm.is_finite()
-        && framing.first_line_offset_mm >= 0.0
-        && framing.first_line_offset_mm < framing.spacing_mm)
-    {
-        return Err(SpacingError::OutOfRange {
-            field: "framing.first_line_offset_mm".to_string(),
-            value: framing.first_line_offset_mm,
-            allowed: format!("0..{} (less than framing.spacing_mm)", framing.spacing_mm),
-        });
+    for (i, wall) in framing.walls_m.iter().enumerate() {
+        if wall.iter().flatten().any(|c| !c.is_finite()) {
+            return Err(SpacingError::Invalid {
+                field: format!("framing.walls_m[{i}]"),
+                reason: "is not a pair of finite points".to_string(),
+            });
+        }
     }
     limits::PANEL_LENGTH_MM.check("panel.length_mm", panel.length_mm)?;
     limits::PANEL_WIDTH_MM.check("panel.width_mm", panel.width_mm)?;
+    check_range(
+        || "panel.min_piece_mm".to_string(),
+        panel.min_piece_mm,
+        0.0,
+        panel.length_mm,
+    )?;
     if let Stagger::OffsetMm(offset_mm) = panel.stagger {
         check_positive(|| "panel.stagger.offset_mm".to_string(), offset_mm)?;
         if offset_mm >= panel.length_mm {
@@ -449,11 +576,18 @@ mod tests {
         (planes, zones)
     }
 
+    /// The four sides of a rectangle as wall lines.
+    pub(crate) fn walls(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[[f64; 2]; 2]> {
+        let corners = rectangle(x0, y0, x1, y1);
+        (0..4).map(|i| [corners[i], corners[(i + 1) % 4]]).collect()
+    }
+
+    /// Framing on the 30 m × 12 m gable's walls.
     fn framing(spacing_mm: f64) -> FramingInput {
         FramingInput {
             spacing_mm,
             lines_along: None,
-            first_line_offset_mm: 0.0,
+            walls_m: walls(0.0, 0.0, 30.0, 12.0),
         }
     }
 
@@ -462,6 +596,7 @@ mod tests {
             length_mm: 2440.0,
             width_mm: 1220.0,
             stagger,
+            min_piece_mm: 600.0,
         }
     }
 
@@ -585,22 +720,36 @@ mod tests {
     }
 
     #[test]
-    fn an_offset_first_line_leaves_a_cantilever() {
-        let (planes, zones) = gable();
-        let framing = FramingInput {
-            first_line_offset_mm: 300.0,
-            ..framing(610.0)
-        };
-        let layout =
-            layout_deck(&planes, &zones, &[1], &framing, &panel(Stagger::None)).expect("valid");
+    fn the_rake_overhang_is_a_cantilever_past_the_end_wall_member() {
+        // Walls 0..30 m, 300 mm rake overhang each end: the planes run -0.3..30.3 m.
+        let (mut planes, zones) = gable();
+        for plane in &mut planes {
+            for point in &mut plane.polygon_m {
+                point[0] = if point[0] < 1.0 { -0.3 } else { 30.3 };
+            }
+        }
+        let layout = layout_deck(
+            &planes,
+            &zones,
+            &[1],
+            &framing(610.0),
+            &panel(Stagger::None),
+        )
+        .expect("valid");
         let first = &layout.lines[0];
-        assert_relative_eq!(first.position_m, 0.3, max_relative = 1e-12);
+        assert_eq!(first.position_m, 0.0);
+        assert_eq!(first.kind, LineKind::EndWall);
         assert_eq!(first.bearings[0].support_role, SupportRole::Intermediate);
         assert_relative_eq!(
             first.bearings[0].strips[0].overhang_start_m,
             0.3,
             max_relative = 1e-9
         );
+        let piece = &layout.pieces[0];
+        assert_eq!(piece.start_line, None);
+        assert_relative_eq!(piece.cantilever_start_m, 0.3, max_relative = 1e-9);
+        assert_eq!(layout.lines[50].kind, LineKind::EndWall);
+        assert_eq!(layout.lines[50].position_m, 30.0);
     }
 
     #[test]
@@ -615,15 +764,22 @@ mod tests {
             zone_index: 0,
             polygons_m: vec![plane.polygon_m.clone()],
         }];
-        let layout = layout_deck(
-            &[plane],
-            &zones,
-            &[1],
-            &framing(610.0),
-            &panel(Stagger::Half),
-        )
-        .expect("valid");
+        let framing = FramingInput {
+            walls_m: walls(0.0, 0.0, 20.0, 12.0),
+            ..framing(610.0)
+        };
+        let layout =
+            layout_deck(&[plane], &zones, &[1], &framing, &panel(Stagger::Half)).expect("valid");
         assert_eq!(layout.lines[0].axis, Axis::X);
+        assert_eq!(layout.lines[0].kind, LineKind::Jack);
+        assert_eq!(
+            layout
+                .framing
+                .iter()
+                .filter(|l| l.kind == LineKind::Hip)
+                .count(),
+            2
+        );
         // The corner line at y = 0 touches the plane at a point only and is dropped.
         assert_relative_eq!(layout.lines[0].position_m, 0.61, max_relative = 1e-12);
         let cos = 45f64.to_radians().cos();

@@ -536,12 +536,17 @@ mod tests {
         let framing = FramingInput {
             spacing_mm: 610.0,
             lines_along: Some(Axis::Y),
-            first_line_offset_mm: 0.0,
+            walls_m: rectangle(0.0, 0.0, 9.76, 4.88)
+                .iter()
+                .zip(rectangle(0.0, 0.0, 9.76, 4.88).iter().cycle().skip(1))
+                .map(|(a, b)| [*a, *b])
+                .collect(),
         };
         let panel = PanelInput {
             length_mm: 2440.0,
             width_mm: 1220.0,
             stagger: Stagger::None,
+            min_piece_mm: 600.0,
         };
         (planes, zones, framing, panel)
     }

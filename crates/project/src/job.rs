@@ -172,7 +172,7 @@ impl DeckGeometry {
         let framing = FramingInput {
             spacing_mm: project.framing.spacing_mm,
             lines_along,
-            first_line_offset_mm: first_line_offset_mm(project),
+            walls_m: wind.wall_lines_m.clone(),
         };
         let stagger = match project.deck.stagger {
             StaggerChoice::Half => Stagger::Half,
@@ -183,6 +183,7 @@ impl DeckGeometry {
             length_mm: project.deck.panel_length_mm,
             width_mm: project.deck.panel_width_mm,
             stagger,
+            min_piece_mm: project.deck.min_piece_mm,
         };
         Ok(Self {
             planes,
@@ -192,11 +193,6 @@ impl DeckGeometry {
             panel,
         })
     }
-}
-
-/// The first framing line sits on the wall line: the plane starts at the roof edge, one overhang out.
-fn first_line_offset_mm(project: &Project) -> f64 {
-    project.wind.roof.rake_overhang_mm
 }
 
 /// Zones ranked by net uplift at a nail-sized area: higher rank, worse zone.

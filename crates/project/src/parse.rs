@@ -513,6 +513,16 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
             })
         }
     };
+    // A cut piece no narrower than 24 in (610 mm) so that it reaches two supports at 16 in o.c.:
+    // common practice, no source. 600 mm on a Canadian basis.
+    let default_min_piece_mm = if basis.is_us() { 609.6 } else { 600.0 };
+    let min_piece_mm = block
+        .quantity(
+            "min_piece",
+            Quantity::LengthMm,
+            &min_piece_limit(panel_length_mm),
+        )?
+        .unwrap_or(default_min_piece_mm);
     let wet_service = block
         .choice("service", &[("dry", false), ("wet", true)])?
         .unwrap_or(false);
@@ -527,6 +537,7 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         panel_length_mm,
         panel_width_mm,
         stagger,
+        min_piece_mm,
         wet_service,
         treated,
         between_mm,
@@ -612,6 +623,16 @@ fn read_pattern_spacing(block: &ObjectReader) -> Result<PatternSpacing, ProjectE
 }
 
 /// The stagger offset's range depends on the panel: less than one panel length.
+fn min_piece_limit(panel_length_mm: f64) -> Limit {
+    Limit {
+        key: "deck.min_piece_mm",
+        min: 0.0,
+        max: panel_length_mm,
+        unit: "mm",
+        reason: "a piece cannot be longer than the panel it is cut from",
+    }
+}
+
 fn stagger_limit(panel_length_mm: f64) -> Limit {
     Limit {
         key: "deck.stagger.offset_mm",

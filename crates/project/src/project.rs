@@ -64,6 +64,8 @@ pub struct Deck {
     pub panel_length_mm: f64,
     pub panel_width_mm: f64,
     pub stagger: StaggerChoice,
+    /// Narrowest cut piece laid across the framing, mm (`deck.min_piece_mm`).
+    pub min_piece_mm: f64,
     pub wet_service: bool,
     pub treated: bool,
     /// Anything between deck and framing (e.g. an existing board deck in a re-roof), mm.

@@ -6,7 +6,7 @@ use crate::basis::BasisStandards;
 use crate::job::{Job, NailOutcome};
 use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
-use deckhold_deck::layout::{Course, SupportRole};
+use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_schedule::format::{feet_inches, m_to_ft, thickness_label, trimmed};
 use deckhold_schedule::Units;
@@ -108,6 +108,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         framing_spacing_mm: project.framing.spacing_mm,
         framing_member: project.framing.member.as_str().to_string(),
         deck_description: deck_text(project, project.units),
+        panel_laying: laying_text(project, &job.layout, project.units),
         nail: NailInfo {
             id: nail.id.clone(),
             description: nail.description.clone(),
@@ -157,6 +158,40 @@ fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
             (span(0), span(1))
         }
     }
+}
+
+/// Where panel laying starts, in one line for the crew, in the chosen units: the first plane's start
+/// corner, the first-course offset and the narrowest cut piece.
+fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
+    let Some(start) = layout.laying_starts.first() else {
+        return "no deck laid".to_string();
+    };
+    let us = units.is_us();
+    let length = |value_m: f64| {
+        if us {
+            feet_inches(value_m)
+        } else {
+            format!("{value_m:.2} m")
+        }
+    };
+    let offset = if start.first_course_offset_m == 0.0 {
+        "first course flush with the eave edge".to_string()
+    } else {
+        format!(
+            "first course {} up from the eave edge",
+            length(start.first_course_offset_m)
+        )
+    };
+    format!(
+        "each plane from its eave at the end with the smaller coordinate (first plane: x {}, y {}); {offset}; panel ends only on framing; no cut piece under {}",
+        length(start.corner_m[0]),
+        length(start.corner_m[1]),
+        if us {
+            feet_inches(project.deck.min_piece_mm / 1000.0)
+        } else {
+            format!("{:.0} mm", project.deck.min_piece_mm)
+        }
+    )
 }
 
 /// The deck in one line, in the chosen units: "Plywood 19/32 in, 4 x 8 ft panels, half stagger" or

@@ -216,6 +216,8 @@ pub struct Schedule {
     pub framing_member: String,
     /// e.g. "OSB 15.5 mm, 1220 x 2440 mm panels, half stagger".
     pub deck_description: String,
+    /// Where and how panel laying starts (start corner, first-course offset, narrowest piece).
+    pub panel_laying: String,
     pub nail: NailInfo,
     pub resistance: ResistanceInfo,
     /// Velocity pressure and the wind factors used.

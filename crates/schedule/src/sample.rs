@@ -301,6 +301,9 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         framing_spacing_mm: SAMPLE_FRAMING_MM,
         framing_member: "rafter".to_string(),
         deck_description: "OSB 15 mm, 1220 x 2440 mm panels, half stagger".to_string(),
+        panel_laying:
+            "start at the eave corner at x -0.30 m, y -0.45 m; first course flush with the eave"
+                .to_string(),
         nail: NailInfo {
             id: "sample-nail-a".to_string(),
             description: "Sample ring-shank nail 3.3 x 63 mm".to_string(),

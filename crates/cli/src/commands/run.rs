@@ -9,6 +9,7 @@ use crate::args::RunArgs;
 use crate::output::write_all_atomically;
 use crate::table::Table;
 use crate::Outcome;
+use deckhold_deck::layout::DeckLayout;
 use deckhold_project::{run_job, schedule_for};
 use deckhold_schedule::format::{
     force_label, force_value, kpa_to_psf, mass_label, n_to_lbf, pressure_value,
@@ -57,7 +58,7 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     if args.json {
         println!(
             "{}",
-            serde_json::to_string_pretty(&summary_json(&schedule))?
+            serde_json::to_string_pretty(&summary_json(&schedule, &job.layout))?
         );
         for path in &written {
             eprintln!("wrote {}", path.display());
@@ -80,8 +81,9 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     })
 }
 
-/// The machine-readable summary: the per-zone schedule and totals.
-fn summary_json(schedule: &Schedule) -> serde_json::Value {
+/// The machine-readable summary: the per-zone schedule and totals, and the framing and deck layout
+/// (every member with its kind, every piece with the lines under its ends) so that others can check it.
+fn summary_json(schedule: &Schedule, layout: &DeckLayout) -> serde_json::Value {
     let zones: Vec<serde_json::Value> = schedule
         .zones
         .iter()
@@ -124,6 +126,16 @@ fn summary_json(schedule: &Schedule) -> serde_json::Value {
         "alternatives": schedule.alternatives,
         "warnings": schedule.warnings,
         "cautions": schedule.cautions,
+        "framing": { "lines": layout.framing },
+        "deck": {
+            "laying_starts": layout.laying_starts,
+            "pieces": layout.pieces,
+            "adjustments": layout
+                .courses
+                .iter()
+                .flat_map(|course| &course.adjustments)
+                .collect::<Vec<_>>(),
+        },
     })
 }
 

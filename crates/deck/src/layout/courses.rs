@@ -10,7 +10,7 @@ use std::collections::HashMap;
 
 use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
-use super::{PanelInput, PanelStrip, Stagger, SupportRole};
+use super::{Course, DeckPiece, PanelInput, PanelStrip, Stagger, SupportRole};
 use crate::beam::strip_reactions;
 use crate::error::SpacingError;
 
@@ -52,61 +52,189 @@ impl StripCache {
     }
 }
 
-/// Plan positions across the lines of the panel ends in course `course_index`, both deck edges
-/// included, in increasing order.
-pub(crate) fn course_joints(
-    plane_index: usize,
+/// The panel ends of one course and what was changed to avoid narrow pieces.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct LaidCourse {
+    /// Plan positions across the lines, both deck edges included, increasing.
+    pub joints_m: Vec<f64>,
+    pub adjustments: Vec<String>,
+}
+
+/// What the courses of one plane are laid on.
+pub(crate) struct CourseLayer<'a> {
+    pub plane_index: usize,
+    pub frame: &'a PlaneFrame,
+    pub grid: &'a [GridLine],
+    pub panel: &'a PanelInput,
+    pub framing_spacing_mm: f64,
+}
+
+impl CourseLayer<'_> {
+    fn to_plan(&self, length_mm: f64) -> f64 {
+        length_mm / 1000.0 / self.frame.cross_factor
+    }
+
+    /// The panel ends of course `course_index`. Every course starts at the deck edge at the smaller
+    /// cross coordinate; each panel ends on the farthest line it reaches. A staggered course has its
+    /// first end joint the stagger away from the first end joint of course 0 (`first_joint_m`), on
+    /// the nearest line, so the joints of alternate courses are the stagger apart whatever the rake
+    /// overhang. No piece is narrower than the minimum where a line allows it: the joint before a
+    /// narrow last piece moves back a line, a narrow first piece moves its joint on a line.
+    pub(crate) fn joints(
+        &self,
+        course_index: usize,
+        first_joint_m: Option<f64>,
+    ) -> Result<LaidCourse, SpacingError> {
+        let [min, max] = self.frame.cross_range_m;
+        let panel_m = self.to_plan(self.panel.length_mm);
+        let min_piece_m = self.to_plan(self.panel.min_piece_mm);
+        let stagger_mm = match (course_index % 2, &self.panel.stagger) {
+            (0, _) | (_, Stagger::None) => 0.0,
+            (_, Stagger::Half) => self.panel.length_mm / 2.0,
+            (_, Stagger::OffsetMm(offset_mm)) => *offset_mm,
+        };
+        let positions: Vec<f64> = self.grid.iter().map(|g| g.position_m).collect();
+        let mut adjustments = Vec::new();
+        let mut joints = vec![min];
+        let mut previous = min;
+        if let (true, Some(first)) = (stagger_mm > 0.0, first_joint_m) {
+            let stagger_m = self.to_plan(stagger_mm);
+            let target = if first - stagger_m >= min + min_piece_m - SAME_POSITION_M {
+                first - stagger_m
+            } else {
+                first + stagger_m
+            };
+            let reachable = |p: &f64| {
+                *p > min + SAME_POSITION_M
+                    && *p <= min + panel_m + SAME_POSITION_M
+                    && *p < max - SAME_POSITION_M
+            };
+            let nearest = positions
+                .iter()
+                .copied()
+                .filter(reachable)
+                .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
+            let wide_enough = positions
+                .iter()
+                .copied()
+                .filter(|p| reachable(p) && *p - min >= min_piece_m - SAME_POSITION_M)
+                .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
+            if let Some(position) = wide_enough {
+                if nearest.is_some_and(|n| (n - position).abs() > SAME_POSITION_M) {
+                    adjustments.push(format!(
+                        "course {}: first end joint moved to the line at {position:.3} m so the \
+                         first piece is at least {:.0} mm",
+                        course_index + 1,
+                        self.panel.min_piece_mm
+                    ));
+                }
+                joints.push(position);
+                previous = position;
+            }
+        }
+        while previous < max - SAME_POSITION_M {
+            if previous + panel_m >= max - SAME_POSITION_M {
+                joints.push(max);
+                break;
+            }
+            let reach = previous + panel_m + SAME_POSITION_M;
+            let next = positions
+                .iter()
+                .rev()
+                .copied()
+                .find(|p| *p > previous + SAME_POSITION_M && *p <= reach)
+                .ok_or(SpacingError::PanelTooShort {
+                    plane_index: self.plane_index,
+                    length_mm: self.panel.length_mm,
+                    spacing_mm: self.framing_spacing_mm,
+                    from_m: previous,
+                })?;
+            joints.push(next);
+            previous = next;
+        }
+        self.widen_last_piece(course_index, &positions, &mut joints, &mut adjustments);
+        Ok(LaidCourse {
+            joints_m: joints,
+            adjustments,
+        })
+    }
+
+    /// Moves the joint before a narrow last piece back to an earlier line, if one leaves both the
+    /// last piece and the one before it at least the minimum.
+    fn widen_last_piece(
+        &self,
+        course_index: usize,
+        positions: &[f64],
+        joints: &mut [f64],
+        adjustments: &mut Vec<String>,
+    ) {
+        let count = joints.len();
+        if count < 3 {
+            return;
+        }
+        let min_piece_m = self.to_plan(self.panel.min_piece_mm);
+        let max = joints[count - 1];
+        let before = joints[count - 3];
+        if max - joints[count - 2] >= min_piece_m - SAME_POSITION_M {
+            return;
+        }
+        let moved = positions.iter().rev().copied().find(|p| {
+            max - p >= min_piece_m - SAME_POSITION_M && p - before >= min_piece_m - SAME_POSITION_M
+        });
+        if let Some(position) = moved {
+            adjustments.push(format!(
+                "course {}: last end joint moved back to the line at {position:.3} m so the last \
+                 piece is at least {:.0} mm",
+                course_index + 1,
+                self.panel.min_piece_mm
+            ));
+            joints[count - 2] = position;
+        }
+    }
+}
+
+/// The pieces of every course of one plane, with the lines under their ends. `first_number` is the
+/// number of the plane's first grid line.
+pub(crate) fn course_pieces(
     frame: &PlaneFrame,
     grid: &[GridLine],
-    panel: &PanelInput,
-    framing_spacing_mm: f64,
-    course_index: usize,
-) -> Result<Vec<f64>, SpacingError> {
-    let [min, max] = frame.cross_range_m;
-    let panel_m = panel.length_mm / 1000.0 / frame.cross_factor;
-    let stagger_mm = match (course_index % 2, &panel.stagger) {
-        (0, _) | (_, Stagger::None) => 0.0,
-        (_, Stagger::Half) => panel.length_mm / 2.0,
-        (_, Stagger::OffsetMm(offset_mm)) => *offset_mm,
+    first_number: u32,
+    courses: &[Course],
+) -> Vec<DeckPiece> {
+    let line_at = |position: f64| {
+        grid.iter()
+            .position(|g| (g.position_m - position).abs() <= SAME_POSITION_M)
+            .map(|index| first_number + index as u32)
     };
-    let mut joints = vec![min];
-    let mut previous = min;
-    if stagger_mm > 0.0 {
-        // The part panel ends on the line nearest the stagger, if that is nearer than the edge.
-        let target = min + stagger_mm / 1000.0 / frame.cross_factor;
-        let nearest = grid
-            .iter()
-            .map(|g| g.position_m)
-            .filter(|p| *p > min + SAME_POSITION_M && *p <= min + panel_m + SAME_POSITION_M)
-            .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
-        if let Some(position) =
-            nearest.filter(|p| (p - target).abs() < target - min && *p < max - SAME_POSITION_M)
-        {
-            joints.push(position);
-            previous = position;
+    let mut pieces = Vec::new();
+    for course in courses {
+        for pair in course.joints_m.windows(2) {
+            let [start_m, end_m] = [pair[0], pair[1]];
+            let inside: Vec<f64> = grid
+                .iter()
+                .map(|g| g.position_m)
+                .filter(|p| *p >= start_m - SAME_POSITION_M && *p <= end_m + SAME_POSITION_M)
+                .collect();
+            let cantilever = |edge: f64, nearest: Option<&f64>| {
+                nearest.map_or(0.0, |p| (p - edge).abs() * frame.cross_factor)
+            };
+            pieces.push(DeckPiece {
+                plane_index: course.plane_index,
+                course: course.index,
+                start_m,
+                end_m,
+                from_slope_m: course.from_m,
+                to_slope_m: course.to_m,
+                length_m: (end_m - start_m) * frame.cross_factor,
+                width_m: course.to_m - course.from_m,
+                start_line: line_at(start_m),
+                end_line: line_at(end_m),
+                cantilever_start_m: cantilever(start_m, inside.first()),
+                cantilever_end_m: cantilever(end_m, inside.last()),
+            });
         }
     }
-    while previous < max - SAME_POSITION_M {
-        if previous + panel_m >= max - SAME_POSITION_M {
-            joints.push(max);
-            break;
-        }
-        let reach = previous + panel_m + SAME_POSITION_M;
-        let next = grid
-            .iter()
-            .rev()
-            .map(|g| g.position_m)
-            .find(|p| *p > previous + SAME_POSITION_M && *p <= reach)
-            .ok_or(SpacingError::PanelTooShort {
-                plane_index,
-                length_mm: panel.length_mm,
-                spacing_mm: framing_spacing_mm,
-                from_m: previous,
-            })?;
-        joints.push(next);
-        previous = next;
-    }
-    Ok(joints)
+    pieces
 }
 
 /// One side of a line inside one panel: the panel's extent across the lines at this course.

@@ -1,7 +1,7 @@
 //! Framing lines of one roof plane: their direction, positions and extent on the slope.
 
-use super::geometry::{bounds, line_intervals, MIN_PIECE_M, SAME_POSITION_M};
-use super::{Axis, FramingInput, PlaneGeometry};
+use super::geometry::{bounds, line_intervals, section, SAME_POSITION_M};
+use super::{Axis, FramingInput, LineKind, PlaneGeometry};
 use crate::error::SpacingError;
 
 /// A downslope component below this is no component (the vector is along the other axis).
@@ -109,6 +109,7 @@ pub(crate) struct GridLine {
     pub position_m: f64,
     /// Plan intervals along the line inside the plane, sorted.
     pub intervals_m: Vec<[f64; 2]>,
+    pub kind: LineKind,
 }
 
 impl GridLine {
@@ -120,47 +121,104 @@ impl GridLine {
     }
 }
 
-/// Framing lines of a plane, in increasing cross position.
+/// A common rafter closer than this to a wall member is left out: the two would touch (a 38 mm
+/// member each), and the wall member carries the deck there. Common practice, no source.
+pub(crate) const MIN_BAY_M: f64 = 0.05;
+
+/// Framing lines of a plane, in increasing cross position, set out the way a framer does.
 ///
-/// Lines sit at `min + offset + k · spacing`. With no offset the first line is on the plane's edge and
-/// a closing line is added on the far edge when the spacing does not land on it (the last bay is then
-/// shorter), so both deck edges bear on framing; with an offset the caller has placed the framing and
-/// the deck past the outer lines is carried as a cantilever.
+/// Every wall parallel to the lines that lies under the plane carries a member (kind end-wall): both
+/// gable-end walls whatever the length, and the inside walls of an L- or T-shaped roof. The other
+/// lines sit at `first wall + k · spacing` between the outermost walls, so the last bay is whatever is
+/// left; none sits in the rake overhang (the deck cantilevers past the end-wall member there). A line
+/// whose high end stops on a hip or valley edge of the plane is a jack. A line that would carry no
+/// deck over the building (the corner of a hip plane) is left out.
 pub(crate) fn grid_lines(
     plane: &PlaneGeometry,
     frame: &PlaneFrame,
     framing: &FramingInput,
-) -> Vec<GridLine> {
-    let [min, max] = frame.cross_range_m;
+) -> Result<Vec<GridLine>, SpacingError> {
+    let r = frame.run.index();
+    let k = frame.run.other().index();
+    let walls = &framing.walls_m;
+    if walls.is_empty() {
+        return Err(SpacingError::Invalid {
+            field: "framing.walls_m".to_string(),
+            reason: "needs the wall lines the framing is set out from".to_string(),
+        });
+    }
+    let extent = |axis: usize| {
+        let coordinates = walls.iter().flatten().map(|p| p[axis]);
+        [
+            coordinates.clone().fold(f64::INFINITY, f64::min),
+            coordinates.fold(f64::NEG_INFINITY, f64::max),
+        ]
+    };
+    let cross_walls = extent(k);
+    let along_walls = extent(r);
+    // Walls parallel to the lines with deck above them on this plane carry a member.
+    let mut members: Vec<f64> = walls
+        .iter()
+        .filter(|[a, b]| (a[k] - b[k]).abs() < SAME_POSITION_M)
+        .filter(|[a, b]| {
+            let (lo, hi) = (a[r].min(b[r]), a[r].max(b[r]));
+            line_intervals(&plane.polygon_m, frame.run, a[k])
+                .iter()
+                .any(|i| i[1].min(hi) - i[0].max(lo) >= MIN_BAY_M)
+        })
+        .map(|[a, _]| a[k])
+        .collect();
+    members.sort_by(f64::total_cmp);
+    members.dedup_by(|a, b| (*a - *b).abs() < SAME_POSITION_M);
+
     let spacing_m = framing.spacing_mm / 1000.0;
-    let offset_m = framing.first_line_offset_mm / 1000.0;
-    let mut positions = Vec::new();
-    let mut k = 0u32;
+    let mut positions: Vec<(f64, LineKind)> =
+        members.iter().map(|p| (*p, LineKind::EndWall)).collect();
+    let mut step = 0u32;
     loop {
-        let position = min + offset_m + f64::from(k) * spacing_m;
-        if position > max + SAME_POSITION_M {
+        let position = cross_walls[0] + f64::from(step) * spacing_m;
+        if position > cross_walls[1] - MIN_BAY_M {
             break;
         }
-        positions.push(position.min(max));
-        k += 1;
+        if members.iter().all(|m| (m - position).abs() >= MIN_BAY_M) {
+            positions.push((position, LineKind::Common));
+        }
+        step += 1;
     }
-    if offset_m == 0.0
-        && positions
-            .last()
-            .is_some_and(|last| max - last > MIN_PIECE_M)
-    {
-        positions.push(max);
-    }
-    positions
+    positions.sort_by(|a, b| a.0.total_cmp(&b.0));
+
+    Ok(positions
         .into_iter()
-        .filter_map(|position_m| {
+        .filter_map(|(position_m, kind)| {
             let intervals_m = line_intervals(&plane.polygon_m, frame.run, position_m);
-            (!intervals_m.is_empty()).then_some(GridLine {
+            let over_building: f64 = intervals_m
+                .iter()
+                .map(|i| (i[1].min(along_walls[1]) - i[0].max(along_walls[0])).max(0.0))
+                .sum();
+            if intervals_m.is_empty() || over_building < MIN_BAY_M {
+                return None;
+            }
+            let kind = if kind == LineKind::Common
+                && ends_on_oblique_edge(&plane.polygon_m, frame.run, position_m)
+            {
+                LineKind::Jack
+            } else {
+                kind
+            };
+            Some(GridLine {
                 position_m,
                 intervals_m,
+                kind,
             })
         })
-        .collect()
+        .collect())
+}
+
+/// The line at `position_m` ends on an oblique edge of the polygon (a hip or valley).
+fn ends_on_oblique_edge(polygon: &[[f64; 2]], run: Axis, position_m: f64) -> bool {
+    section(polygon, run, position_m)
+        .iter()
+        .any(|stretch| stretch.lo_oblique || stretch.hi_oblique)
 }
 
 #[cfg(test)]
@@ -172,7 +230,12 @@ mod tests {
         FramingInput {
             spacing_mm,
             lines_along: None,
-            first_line_offset_mm: 0.0,
+            walls_m: vec![
+                [[0.0, 0.0], [30.0, 0.0]],
+                [[30.0, 0.0], [30.0, 12.0]],
+                [[30.0, 12.0], [0.0, 12.0]],
+                [[0.0, 12.0], [0.0, 0.0]],
+            ],
         }
     }
 
@@ -264,26 +327,50 @@ mod tests {
     }
 
     #[test]
-    fn lines_start_on_the_edge_and_close_on_the_far_edge() {
-        // 30 m at 610 mm: 0, 0.61, ... 29.89 (50 lines) plus a closing line at 30.0.
+    fn lines_start_on_the_first_wall_and_both_end_walls_carry_a_member() {
+        // Walls x = 0 and 30, rake overhang 0.4 m: 0 (end wall), 0.61, ... 29.89, 30 (end wall); the
+        // last bay is 0.11 m; nothing in the overhang.
         let south = plane(
-            vec![[0.0, 0.0], [30.0, 0.0], [30.0, 6.0], [0.0, 6.0]],
+            vec![[-0.4, 0.0], [30.4, 0.0], [30.4, 6.0], [-0.4, 6.0]],
             20.0,
             [0.0, -1.0],
         );
         let frame = plane_frame(0, &south, &framing(610.0)).expect("valid plane");
-        let lines = grid_lines(&south, &frame, &framing(610.0));
+        let lines = grid_lines(&south, &frame, &framing(610.0)).expect("lines");
         assert_eq!(lines.len(), 51);
+        assert_eq!(lines[0].position_m, 0.0);
+        assert_eq!(lines[0].kind, LineKind::EndWall);
         assert_relative_eq!(lines[49].position_m, 29.89, max_relative = 1e-12);
-        assert_relative_eq!(lines[50].position_m, 30.0);
-        assert_eq!(lines[50].intervals_m, vec![[0.0, 6.0]]);
-        let offset = FramingInput {
-            first_line_offset_mm: 300.0,
-            ..framing(610.0)
-        };
-        let lines = grid_lines(&south, &frame, &offset);
-        assert_relative_eq!(lines[0].position_m, 0.3, max_relative = 1e-12);
-        // 0.3 + 48 x 0.61 = 29.58 is the last; 30.19 is off the plane and no closing line is added.
-        assert_eq!(lines.len(), 49);
+        assert_eq!(lines[49].kind, LineKind::Common);
+        assert_eq!(lines[50].position_m, 30.0);
+        assert_eq!(lines[50].kind, LineKind::EndWall);
+        // Spacing below the overhang is fine: 300 mm with a 400 mm overhang.
+        let lines = grid_lines(&south, &frame, &framing(300.0)).expect("lines");
+        assert_eq!(lines.len(), 101);
+        assert!(lines.iter().all(|l| (0.0..=30.0).contains(&l.position_m)));
+    }
+
+    #[test]
+    fn a_common_that_would_touch_the_end_wall_member_is_left_out() {
+        // 30.03 m: 0.61 x 49 = 29.89 stays (0.14 m bay), and at 300 mm 30.0 falls 30 mm from the
+        // wall at 30.03 and is left out.
+        let mut short = framing(300.0);
+        for wall in &mut short.walls_m {
+            for point in wall.iter_mut() {
+                if point[0] > 1.0 {
+                    point[0] = 30.03;
+                }
+            }
+        }
+        let south = plane(
+            vec![[0.0, 0.0], [30.03, 0.0], [30.03, 6.0], [0.0, 6.0]],
+            20.0,
+            [0.0, -1.0],
+        );
+        let frame = plane_frame(0, &south, &short).expect("valid plane");
+        let lines = grid_lines(&south, &frame, &short).expect("lines");
+        let last = &lines[lines.len() - 2..];
+        assert_relative_eq!(last[0].position_m, 29.7, max_relative = 1e-9);
+        assert_relative_eq!(last[1].position_m, 30.03, max_relative = 1e-12);
     }
 }

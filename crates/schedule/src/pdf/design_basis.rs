@@ -109,6 +109,7 @@ pub(crate) fn design_basis(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
                 ),
             ),
             ("deck", schedule.deck_description.clone()),
+            ("panel laying", schedule.panel_laying.clone()),
             (
                 "edge zone width",
                 plan_length_label(schedule.edge_width_m, imperial),
