@@ -94,6 +94,18 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
             ("panel-edge", "panel edges"),
             ("intermediate", "intermediate"),
         ] {
+            // The overhang corner lies in the rake overhang, past the end-wall member: the deck
+            // cantilevers there, so it has no member and no panel-edge row.
+            if (label, role) == ("overhang-corner", "panel-edge") {
+                assert!(
+                    !schedule
+                        .zones
+                        .iter()
+                        .any(|zone| zone.label.as_str() == label
+                            && zone.support_role.as_str() == role)
+                );
+                continue;
+            }
             let wanted = format!("{words} {:.0} mm", spacing_of(label, role));
             assert!(
                 lines[row + 1..(row + 7).min(lines.len())]

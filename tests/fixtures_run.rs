@@ -86,7 +86,7 @@ fn the_existing_pattern_is_checked_zone_by_zone() {
     // 0.6 x 16.4 x 2.84^0.82 x 0.42^2.2 x (51 - 11.1) = 0.6 x 5.725 x 39.9 = 137.0 N (CSA O86:19 12.9.5.2,
     // from memory).
     let checked = check_existing(serde_json::Value::Null);
-    assert_eq!(checked.rows.len(), 10, "five zones x two support roles");
+    assert_eq!(checked.rows.len(), 9, "five zones x two support roles, less the overhang corner's panel edges: it lies in the rake overhang past the end-wall member, where the deck cantilevers");
     assert!((checked.resistance.governing_n - 137.0).abs() < 0.5);
     // Corner, intermediate, 300 mm: 2.936 x 0.6971 x 300 = 614.0 N; 614.0 / 137.0 = 4.48 (the closing bay
     // at the gable end carries a little more, never less). It would need 137.0 / (2.936 x 0.6971) = 66.9 mm,

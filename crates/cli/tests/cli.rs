@@ -211,7 +211,7 @@ fn check_of_the_existing_pattern_reports_each_zone() {
     let value = json_of(&output.stdout);
     assert_eq!(value["pass"].as_bool(), Some(false));
     let zones = value["zones"].as_array().expect("zones");
-    assert_eq!(zones.len(), 10, "five zones x two support roles");
+    assert_eq!(zones.len(), 9, "five zones x two support roles, less the overhang corner's panel edges: it lies in the rake overhang past the end-wall member, where the deck cantilevers");
     let interior = zones
         .iter()
         .find(|zone| zone["label"] == "interior" && zone["support_role"] == "intermediate")
