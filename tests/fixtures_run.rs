@@ -13,6 +13,7 @@ fn every_good_fixture_runs_to_a_schedule_with_cautions() {
         "ca-no-feasible-nail.json",
         "template-ca.json",
         "template-us.json",
+        "us-retrofit-1970s.json",
     ] {
         let project =
             parse_project(&fixture_text(name)).unwrap_or_else(|error| panic!("{name}: {error}"));

@@ -23,6 +23,8 @@ const CASES: &[(&str, &str)] = &[
     ("template-us.json", "run"),
     ("template-ca.json", "check"),
     ("template-us.json", "check"),
+    ("us-retrofit-1970s.json", "run"),
+    ("us-retrofit-1970s.json", "check"),
     ("broken/both-units.json", "run"),
     ("broken/malformed.json", "run"),
     ("broken/missing-key.json", "run"),

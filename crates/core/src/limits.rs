@@ -368,6 +368,53 @@ pub const PATTERN_SPACING_MM: Limit = limit(
     "an existing nail pattern as measured on site (common practice, no source)",
 );
 
+pub const EXISTING_CREDIT: Limit = limit(
+    "existing.credit",
+    0.0,
+    1.0,
+    "",
+    "share of the existing fasteners' resistance counted: 1 sound, 0 unknown or corroded (a fraction)",
+);
+
+// ---- Fasteners stated in the project file (common practice, no source: the span of roof sheathing
+// nails and screws, well beyond what is sold for the job).
+
+pub const FASTENER_DIAMETER_MM: Limit = limit(
+    "fasteners[].diameter_mm",
+    1.5,
+    10.0,
+    "mm",
+    "shank diameter of a sheathing nail or screw (common practice, no source)",
+);
+pub const FASTENER_LENGTH_MM: Limit = limit(
+    "fasteners[].length_mm",
+    20.0,
+    200.0,
+    "mm",
+    "length of a sheathing nail or screw (common practice, no source)",
+);
+pub const FASTENER_HEAD_MM: Limit = limit(
+    "fasteners[].head_diameter_mm",
+    3.0,
+    30.0,
+    "mm",
+    "head diameter of a sheathing nail or screw (common practice, no source)",
+);
+pub const FASTENER_THREAD_MM: Limit = limit(
+    "fasteners[].thread_length_mm",
+    5.0,
+    200.0,
+    "mm",
+    "thread length of a screw, never more than its length (common practice, no source)",
+);
+pub const FASTENER_WITHDRAWAL_N_PER_MM: Limit = limit(
+    "fasteners[].withdrawal_n_per_mm",
+    0.5,
+    500.0,
+    "N/mm",
+    "withdrawal per mm of penetration stated from an evaluation report (common practice, no source)",
+);
+
 /// Every limit, in the order `deckhold limits` prints them.
 pub const ALL: &[Limit] = &[
     FILE_SIZE,
@@ -403,6 +450,12 @@ pub const ALL: &[Limit] = &[
     PANEL_WIDTH_MM,
     BETWEEN_MM,
     PATTERN_SPACING_MM,
+    EXISTING_CREDIT,
+    FASTENER_DIAMETER_MM,
+    FASTENER_LENGTH_MM,
+    FASTENER_HEAD_MM,
+    FASTENER_THREAD_MM,
+    FASTENER_WITHDRAWAL_N_PER_MM,
 ];
 
 #[cfg(test)]

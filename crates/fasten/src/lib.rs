@@ -11,6 +11,7 @@ pub mod panel;
 pub mod penetration;
 pub mod resistance;
 pub mod species;
+pub mod stated;
 
 pub use catalog::{
     nail, nails, panel, panels, species, species_groups, CatalogBasis, Confidence, SourcedValue,
@@ -24,3 +25,4 @@ pub use resistance::{
     ResistanceKind, Service,
 };
 pub use species::{MemberKind, Species};
+pub use stated::{stated_fastener, StatedFastener, StatedKind, StatedShank};

@@ -1,6 +1,6 @@
 //! A nail as the catalog describes it: dimensions, shank, material and where the numbers come from.
 
-use crate::catalog::{CatalogBasis, Confidence};
+use crate::catalog::{CatalogBasis, Confidence, SourcedValue};
 use crate::error::FastenError;
 use serde::{Deserialize, Serialize};
 
@@ -56,13 +56,15 @@ impl Material {
 
 /// Which NDS 2018 withdrawal equation the nail belongs to.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
-#[serde(rename_all = "lowercase")]
+#[serde(rename_all = "kebab-case")]
 pub enum NdsNailType {
     /// Common, box, sinker and other wire nails: the smooth-shank equation (12.2-3, or 12.2-4 for
     /// stainless). Deformed shanks of this type get no credit for the deformation.
     Wire,
     /// ASTM F1667 roof sheathing ring shank nail: equation 12.2-5 on the ring length.
     Rsrs,
+    /// A wood screw (ASME B18.6.1): equation 12.2-2 on the thread length in the member.
+    WoodScrew,
 }
 
 /// Where `mass_g` comes from.
@@ -95,12 +97,30 @@ pub struct Nail {
     /// Standard and table, with edition.
     pub source: String,
     pub confidence: Confidence,
+    /// A withdrawal value per mm of penetration stated by the user with its source (a maker's evaluation
+    /// report): the reference value W of the NDS or the basic y_w of CSA O86, before the basis's
+    /// adjustment factors. None: the standard's equation for the fastener applies.
+    pub stated_withdrawal_n_per_mm: Option<SourcedValue>,
 }
 
 impl Nail {
     /// The catalog's provenance line: `source (confidence)`.
     pub fn provenance(&self) -> String {
         self.confidence.provenance(&self.source)
+    }
+
+    /// A wood screw rather than a nail.
+    pub fn is_wood_screw(&self) -> bool {
+        self.nds_type == NdsNailType::WoodScrew
+    }
+
+    /// `screw` or `nail`, for messages.
+    pub fn kind_word(&self) -> &'static str {
+        if self.is_wood_screw() {
+            "screw"
+        } else {
+            "nail"
+        }
     }
 }
 
@@ -195,6 +215,11 @@ fn check_record(record: NailRecord, file: &'static str) -> Result<Nail, FastenEr
     if record.nds_type == NdsNailType::Rsrs && record.shank != ShankKind::Ring {
         return Err(bad("nds_type `rsrs` needs a ring shank".to_string()));
     }
+    if record.nds_type == NdsNailType::WoodScrew && record.shank != ShankKind::Screw {
+        return Err(bad(
+            "nds_type `wood-screw` needs shank `screw` and its thread length".to_string(),
+        ));
+    }
     let (mass_g, mass_basis) = match record.mass_g {
         Some(mass_g) => {
             positive("mass_g", mass_g)?;
@@ -220,6 +245,7 @@ fn check_record(record: NailRecord, file: &'static str) -> Result<Nail, FastenEr
         mass_basis,
         source: record.source,
         confidence: record.confidence,
+        stated_withdrawal_n_per_mm: None,
     })
 }
 

@@ -35,7 +35,7 @@ pub struct CheckRow {
 /// The whole plan check.
 #[derive(Debug, Clone)]
 pub struct PatternCheck {
-    pub nail: &'static Nail,
+    pub nail: Nail,
     pub penetration_mm: f64,
     pub resistance: Resistance,
     pub plan: DeckPlan,
@@ -54,11 +54,11 @@ pub fn check_pattern(
     wind: &WindAnalysis,
     pattern: &ExistingPattern,
 ) -> Result<PatternCheck, JobError> {
-    let nail = deckhold_fasten::nail(&pattern.nail_id)?;
+    let nail = project.fastener(&pattern.nail_id)?.clone();
     let layout = deck_layout(project, wind)?;
-    let penetration_mm = penetration_for(project, nail);
+    let penetration_mm = penetration_for(project, &nail);
     let resistance =
-        deckhold_fasten::nail_resistance(&resistance_input(project, nail, penetration_mm)?)?;
+        deckhold_fasten::nail_resistance(&resistance_input(project, &nail, penetration_mm)?)?;
     let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
     let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
     // One spacing per zone of the analysis, looked up once: a zone the layout names is always one
@@ -75,9 +75,20 @@ pub fn check_pattern(
             SupportRole::Intermediate => spacing.intermediate_spacing_mm,
         })
     };
+    if pattern.credit <= 0.0 {
+        return Err(crate::ProjectError::Invalid {
+            path: "existing.credit".to_string(),
+            message:
+                "0 counts nothing of the existing fasteners, so there is no pattern to check: \
+                      give `check --add FASTENER` to size what to add"
+                    .to_string(),
+        }
+        .into());
+    }
+    // The existing fasteners' condition: only `credit` of each one's resistance is counted.
     let option = NailOption {
         id: nail.id.clone(),
-        resistance_n: resistance.governing_n,
+        resistance_n: resistance.governing_n * pattern.credit,
         mass_g: nail.mass_g,
     };
     let plan = check_on_layout(&layout, &uplift, &option, &rules, &given)?;

@@ -22,7 +22,7 @@ const RANKING_AREA_M2: f64 = 0.1;
 /// One candidate nail worked through the job.
 #[derive(Debug, Clone)]
 pub struct NailOutcome {
-    pub nail: &'static Nail,
+    pub nail: Nail,
     pub penetration_mm: f64,
     /// Err: the nail cannot be used at all (the message says why, e.g. too short to reach the minimum
     /// penetration).
@@ -100,7 +100,7 @@ pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job,
     let layout = deck_layout(project, &wind)?;
     let mut candidates = Vec::with_capacity(nail_ids.len());
     for id in nail_ids {
-        let nail = deckhold_fasten::nail(id)?;
+        let nail = project.fastener(id)?.clone();
         let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
         candidates.push(work_nail(project, &wind, &layout, nail, &rules)?);
     }
@@ -258,25 +258,30 @@ fn work_nail(
     project: &Project,
     wind: &WindAnalysis,
     layout: &DeckLayout,
-    nail: &'static Nail,
+    nail: Nail,
     rules: &SpacingRules,
 ) -> Result<NailOutcome, JobError> {
-    let penetration_mm = penetration_for(project, nail);
+    let penetration_mm = penetration_for(project, &nail);
     let through_mm = project.deck.thickness_mm + project.deck.between_mm;
     if penetration_mm <= 0.0 {
+        let reason = format!(
+            "the {:.0} mm {} does not reach the framing through {through_mm:.1} mm of deck and layers",
+            nail.length_mm,
+            nail.kind_word()
+        );
         return Ok(NailOutcome {
             nail,
             penetration_mm,
-            resistance: Err(format!(
-                "the {:.0} mm nail does not reach the framing through {through_mm:.1} mm of deck and layers",
-                nail.length_mm
-            )),
+            resistance: Err(reason),
             plan: None,
             feasible: false,
         });
     }
-    let input = resistance_input(project, nail, penetration_mm)?;
-    let resistance = match deckhold_fasten::nail_resistance(&input) {
+    let resistance = match deckhold_fasten::nail_resistance(&resistance_input(
+        project,
+        &nail,
+        penetration_mm,
+    )?) {
         Ok(resistance) => resistance,
         Err(error) => {
             return Ok(NailOutcome {
@@ -288,7 +293,7 @@ fn work_nail(
             })
         }
     };
-    let plan = plan_with_resistance(wind, layout, nail, resistance.governing_n, rules)?;
+    let plan = plan_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?;
     let feasible = plan.zone_roles.iter().all(|role| role.spacing_mm.is_some());
     Ok(NailOutcome {
         nail,

@@ -7,6 +7,7 @@
 pub mod basis;
 pub mod demo;
 pub mod error;
+pub mod fasteners;
 pub mod parse;
 pub mod project;
 pub mod reader;

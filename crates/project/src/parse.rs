@@ -10,6 +10,7 @@ use crate::reader::{as_finite_number, ObjectReader};
 use crate::units::Quantity;
 use deckhold_core::limits::{self, Limit};
 use deckhold_core::ZoneKind;
+use deckhold_fasten::Nail;
 use deckhold_schedule::ProjectInfo;
 use deckhold_wind::{
     AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
@@ -44,9 +45,10 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
     let overrides = read_overrides(&root)?;
     let framing = read_framing(&root.require_object("framing")?, basis)?;
     let deck = read_deck(&root.require_object("deck")?, basis)?;
-    let nails = read_nails(&root)?;
+    let fasteners = crate::fasteners::read_fasteners(&root)?;
+    let nails = read_nails(&root, &fasteners)?;
     let existing = match root.object("existing")? {
-        Some(block) => Some(read_existing(&block)?),
+        Some(block) => Some(read_existing(&block, &fasteners)?),
         None => None,
     };
     root.finish()?;
@@ -65,6 +67,7 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
         existing,
         units: basis.units(),
         as_written: value.clone(),
+        fasteners,
     })
 }
 
@@ -544,7 +547,7 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
     })
 }
 
-fn read_nails(root: &ObjectReader) -> Result<Vec<String>, ProjectError> {
+fn read_nails(root: &ObjectReader, stated: &[Nail]) -> Result<Vec<String>, ProjectError> {
     let Value::Array(items) = root.require("nails")? else {
         return Err(ProjectError::WrongType {
             path: "nails".to_string(),
@@ -565,29 +568,40 @@ fn read_nails(root: &ObjectReader) -> Result<Vec<String>, ProjectError> {
                 path: path.clone(),
                 expected: "a nail id (see `deckhold catalog nails`)".to_string(),
             })?;
-            check_nail_id(&path, id)?;
+            check_nail_id(&path, id, stated)?;
             Ok(id.to_string())
         })
         .collect()
 }
 
-fn check_nail_id(path: &str, id: &str) -> Result<(), ProjectError> {
-    deckhold_fasten::nail(id)
-        .map(|_| ())
-        .map_err(|error| ProjectError::Invalid {
+fn check_nail_id(path: &str, id: &str, stated: &[Nail]) -> Result<(), ProjectError> {
+    if stated.iter().any(|nail| nail.id == id) {
+        return Ok(());
+    }
+    deckhold_fasten::nail(id).map(|_| ()).map_err(|error| {
+        let mut message = error.to_string();
+        if !stated.is_empty() {
+            let ids: Vec<&str> = stated.iter().map(|nail| nail.id.as_str()).collect();
+            message.push_str(&format!("; stated in `fasteners`: {}", ids.join(", ")));
+        }
+        ProjectError::Invalid {
             path: path.to_string(),
-            message: error.to_string(),
-        })
+            message,
+        }
+    })
 }
 
-fn read_existing(block: &ObjectReader) -> Result<ExistingPattern, ProjectError> {
+fn read_existing(block: &ObjectReader, stated: &[Nail]) -> Result<ExistingPattern, ProjectError> {
     let nail_id = block
         .string("nail")?
         .ok_or_else(|| ProjectError::Missing {
             path: "existing.nail".to_string(),
         })?
         .to_string();
-    check_nail_id("existing.nail", &nail_id)?;
+    check_nail_id("existing.nail", &nail_id, stated)?;
+    let credit = block
+        .number("credit", &limits::EXISTING_CREDIT)?
+        .unwrap_or(1.0);
     let all_zones = read_pattern_spacing(block)?;
     let mut by_zone = Vec::new();
     if let Some(zones) = block.object("zones")? {
@@ -604,6 +618,7 @@ fn read_existing(block: &ObjectReader) -> Result<ExistingPattern, ProjectError> 
         nail_id,
         all_zones,
         by_zone,
+        credit,
     })
 }
 

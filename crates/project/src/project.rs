@@ -2,6 +2,7 @@
 
 use crate::basis::Basis;
 use deckhold_core::ZoneKind;
+use deckhold_fasten::{FastenError, Nail};
 use deckhold_schedule::{ProjectInfo, Units};
 use deckhold_wind::WindInput;
 
@@ -86,6 +87,9 @@ pub struct ExistingPattern {
     pub all_zones: PatternSpacing,
     /// Per-zone overrides by zone kind.
     pub by_zone: Vec<(ZoneKind, PatternSpacing)>,
+    /// Share of the existing fasteners' resistance that may be counted, 0..1 (1 sound, 0 unknown or
+    /// corroded).
+    pub credit: f64,
 }
 
 impl ExistingPattern {
@@ -114,4 +118,27 @@ pub struct Project {
     pub units: Units,
     /// The project file as the user wrote it (keys, units and values), for "Inputs as given".
     pub as_written: serde_json::Value,
+    /// Fasteners stated in the project file, used by id like catalog ones.
+    pub fasteners: Vec<Nail>,
+}
+
+impl Project {
+    /// The fastener with this id: one stated in the project, else the catalog's (the error lists close
+    /// ids from both).
+    pub fn fastener(&self, id: &str) -> Result<&Nail, FastenError> {
+        if let Some(stated) = self.fasteners.iter().find(|nail| nail.id == id) {
+            return Ok(stated);
+        }
+        deckhold_fasten::nail(id).map_err(|error| match error {
+            FastenError::UnknownId { kind, id, close } if !self.fasteners.is_empty() => {
+                let mut close = close;
+                close.extend(deckhold_fasten::catalog::close_ids(
+                    &id,
+                    self.fasteners.iter().map(|nail| nail.id.as_str()),
+                ));
+                FastenError::UnknownId { kind, id, close }
+            }
+            other => other,
+        })
+    }
 }

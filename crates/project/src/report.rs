@@ -21,7 +21,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     let outcome = job.chosen();
     let wind = &job.wind;
     let plan = outcome.plan.as_ref();
-    let nail = outcome.nail;
+    let nail = &outcome.nail;
     let (building_length_m, building_width_m) = plan_size_m(&project.wind.building.footprint);
 
     let resistance = match &outcome.resistance {

@@ -13,6 +13,8 @@ pub enum Quantity {
     PressureKpa,
     /// `_m2` or `_ft2`.
     AreaM2,
+    /// `_n_per_mm` or `_lb_per_in` (withdrawal per unit penetration).
+    ForceNPerMm,
 }
 
 impl Quantity {
@@ -22,6 +24,7 @@ impl Quantity {
             Quantity::LengthMm => "mm",
             Quantity::PressureKpa => "kpa",
             Quantity::AreaM2 => "m2",
+            Quantity::ForceNPerMm => "n_per_mm",
         }
     }
 
@@ -31,6 +34,7 @@ impl Quantity {
             Quantity::LengthMm => "in",
             Quantity::PressureKpa => "psf",
             Quantity::AreaM2 => "ft2",
+            Quantity::ForceNPerMm => "lb_per_in",
         }
     }
 
@@ -40,6 +44,7 @@ impl Quantity {
             Quantity::LengthMm => "mm",
             Quantity::PressureKpa => "kPa",
             Quantity::AreaM2 => "m²",
+            Quantity::ForceNPerMm => "N/mm",
         }
     }
 
@@ -49,6 +54,7 @@ impl Quantity {
             Quantity::LengthMm => "in",
             Quantity::PressureKpa => "psf",
             Quantity::AreaM2 => "ft²",
+            Quantity::ForceNPerMm => "lb/in",
         }
     }
 
@@ -58,6 +64,7 @@ impl Quantity {
             Quantity::LengthMm => MM_PER_IN,
             Quantity::PressureKpa => KPA_PER_PSF,
             Quantity::AreaM2 => M_PER_FT * M_PER_FT,
+            Quantity::ForceNPerMm => N_PER_LBF / MM_PER_IN,
         }
     }
 

@@ -48,6 +48,7 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
             "basis": project.basis.as_str(),
             "nail": checked.nail.id,
             "resistance_n": checked.resistance.governing_n,
+            "credit": pattern.credit,
             "governing_mode": checked.resistance.governing_mode.as_str(),
             "pass": passes,
             "zones": rows,
@@ -56,11 +57,23 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
         println!("{}", serde_json::to_string_pretty(&value)?);
     } else {
         println!(
-            "Plan check: {} ({}), {} per nail ({})\n",
+            "Plan check: {} ({}), {} per nail ({}){}\n",
             checked.nail.id,
             checked.nail.description,
             force_label(checked.resistance.governing_n, units.is_us()),
-            checked.resistance.governing_mode.as_str()
+            checked.resistance.governing_mode.as_str(),
+            if pattern.credit < 1.0 {
+                format!(
+                    ", credit {:.2} for their condition: {} counted",
+                    pattern.credit,
+                    force_label(
+                        checked.resistance.governing_n * pattern.credit,
+                        units.is_us()
+                    )
+                )
+            } else {
+                String::new()
+            }
         );
         let mut table = Table::new(&[
             "zone", "code", "support", "given", "needed", "util.", "line", "result", "retrofit",
@@ -143,6 +156,8 @@ fn pattern_from(args: &CheckArgs, existing: Option<&ExistingPattern>) -> Result<
                 intermediate_spacing_mm,
             },
             by_zone: Vec::new(),
+            // A pattern given on the command line is a proposed one, nailed new: full credit.
+            credit: 1.0,
         });
     }
     let mut pattern = existing.cloned().ok_or_else(|| {

@@ -11,6 +11,10 @@ pub enum Confidence {
     /// Recalled; the source text names the edition.
     #[serde(rename = "from memory")]
     FromMemory,
+    /// Stated by the user in the project file with its source (for example a maker's evaluation
+    /// report); deckhold has not checked it.
+    #[serde(rename = "stated by the user")]
+    StatedByUser,
 }
 
 impl Confidence {
@@ -18,6 +22,7 @@ impl Confidence {
         match self {
             Confidence::Checked => "checked",
             Confidence::FromMemory => "from memory",
+            Confidence::StatedByUser => "stated by the user",
         }
     }
 

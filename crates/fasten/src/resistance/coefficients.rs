@@ -147,6 +147,12 @@ pub const O86_MIN_PENETRATION_RULE: &str =
 /// Nails may be relied on in withdrawal only for short-term loads.
 pub const O86_SHORT_TERM_RULE: &str = "CSA O86:19 12.9.5.1 (from memory): nails and spikes may be \
     designed to resist withdrawal only under short-term loads such as wind or earthquake";
+/// Wood screws under CSA O86: the standard has a wood-screw clause (12.11 in O86:19, from memory), but
+/// its withdrawal equation could not be sourced for this tool, so screws are refused on this basis.
+pub const O86_WOOD_SCREW_RULE: &str =
+    "CSA O86:19 has a wood-screw clause (12.11, from memory) whose \
+    withdrawal equation deckhold does not carry because it could not be checked against a source; \
+    wood screws are refused on the Canadian basis: use a nail, or the US basis";
 pub const O86_END_GRAIN_RULE: &str = "CSA O86:19 12.9.5.1 (from memory)";
 pub const O86_STAINLESS_RULE: &str = "CSA O86:19 12.9.5 (from memory) gives one withdrawal equation, \
     derived for carbon-steel wire nails to CSA B111; it has no provision for stainless-steel nails, \
@@ -185,6 +191,19 @@ pub const NDS_W_RING_SHANK: Coefficient = from_memory(
      shank nails, per inch of ring-shank penetration",
 );
 pub const NDS_W_RING_SHANK_EXPONENT: f64 = 2.0;
+
+/// Wood screws: W = 2850 G^2 D, lb per inch of thread penetration into the main member (D the shank
+/// diameter). The equation agrees with engineeringtoolbox.com 'Wood Screws - Withdrawal Force' (its
+/// example: G 0.45, No. 10 screw D 0.190 in, 109 lb/in), which we looked at; the clause number is from
+/// memory.
+pub const NDS_W_WOOD_SCREW: Coefficient = checked(
+    "W coefficient",
+    2850.0,
+    "lb/in",
+    "NDS 2018 12.2.2 Eq. 12.2-2, W = 2850 G^2 D for wood screws, per inch of thread penetration \
+     (equation checked against engineeringtoolbox.com 'Wood Screws - Withdrawal Force'; clause from memory)",
+);
+pub const NDS_W_WOOD_SCREW_EXPONENT: f64 = 2.0;
 
 /// Head pull-through of round-head fasteners: W_H = 690 π D_H G² t_ns, lb, with D_H and t_ns in inches.
 pub const NDS_WH_COEFFICIENT: Coefficient = from_memory(
@@ -336,6 +355,7 @@ mod tests {
             NDS_W_SMOOTH_CARBON,
             NDS_W_SMOOTH_STAINLESS,
             NDS_W_RING_SHANK,
+            NDS_W_WOOD_SCREW,
             NDS_WH_COEFFICIENT,
             NDS_CD_WIND,
             NDS_CD_TEN_YEARS,

@@ -10,7 +10,8 @@ use super::coefficients::{
     NDS_CM_WET, NDS_CT, NDS_CTN_STRAIGHT, NDS_CTN_TOE_NAILED, NDS_KF_CONNECTIONS,
     NDS_LAMBDA_OCCUPANCY, NDS_LAMBDA_PERMANENT, NDS_LAMBDA_WIND, NDS_PHI_CONNECTIONS,
     NDS_W_RING_SHANK, NDS_W_RING_SHANK_EXPONENT, NDS_W_SMOOTH_CARBON, NDS_W_SMOOTH_CARBON_EXPONENT,
-    NDS_W_SMOOTH_STAINLESS, NDS_W_SMOOTH_STAINLESS_EXPONENT,
+    NDS_W_SMOOTH_STAINLESS, NDS_W_SMOOTH_STAINLESS_EXPONENT, NDS_W_WOOD_SCREW,
+    NDS_W_WOOD_SCREW_EXPONENT,
 };
 use super::{Factor, LoadDuration, Method, ModeResult, ResistanceInput, Service};
 use crate::catalog::{species_groups, SourcedValue};
@@ -28,6 +29,8 @@ pub enum NdsWithdrawalEquation {
     SmoothStainless,
     /// Eq. 12.2-5 (roof sheathing ring shank, post-frame ring shank).
     RingShank,
+    /// Eq. 12.2-2 (wood screws), on the thread length in the member.
+    WoodScrew,
 }
 
 impl NdsWithdrawalEquation {
@@ -35,6 +38,7 @@ impl NdsWithdrawalEquation {
     pub fn for_nail(nail: &Nail) -> Self {
         match (nail.nds_type, nail.material) {
             (NdsNailType::Rsrs, _) => NdsWithdrawalEquation::RingShank,
+            (NdsNailType::WoodScrew, _) => NdsWithdrawalEquation::WoodScrew,
             (NdsNailType::Wire, Material::Stainless) => NdsWithdrawalEquation::SmoothStainless,
             (NdsNailType::Wire, Material::Carbon) => NdsWithdrawalEquation::SmoothCarbon,
         }
@@ -45,6 +49,7 @@ impl NdsWithdrawalEquation {
             NdsWithdrawalEquation::SmoothCarbon => &NDS_W_SMOOTH_CARBON,
             NdsWithdrawalEquation::SmoothStainless => &NDS_W_SMOOTH_STAINLESS,
             NdsWithdrawalEquation::RingShank => &NDS_W_RING_SHANK,
+            NdsWithdrawalEquation::WoodScrew => &NDS_W_WOOD_SCREW,
         }
     }
 
@@ -53,6 +58,7 @@ impl NdsWithdrawalEquation {
             NdsWithdrawalEquation::SmoothCarbon => NDS_W_SMOOTH_CARBON_EXPONENT,
             NdsWithdrawalEquation::SmoothStainless => NDS_W_SMOOTH_STAINLESS_EXPONENT,
             NdsWithdrawalEquation::RingShank => NDS_W_RING_SHANK_EXPONENT,
+            NdsWithdrawalEquation::WoodScrew => NDS_W_WOOD_SCREW_EXPONENT,
         }
     }
 }
@@ -127,18 +133,32 @@ pub(super) fn withdrawal(
     let mut warnings = Vec::new();
 
     let credited_length_mm = match (equation, nail.threaded_length_mm) {
-        (NdsWithdrawalEquation::RingShank, Some(ring_mm)) if penetration_mm > ring_mm => {
+        (NdsWithdrawalEquation::RingShank | NdsWithdrawalEquation::WoodScrew, Some(thread_mm))
+            if penetration_mm > thread_mm =>
+        {
             warnings.push(format!(
-                "nail `{}`: only the {ring_mm:.1} mm ring-shank length is credited; the smooth \
+                "{} `{}`: only the {thread_mm:.1} mm {} length is credited; the smooth \
                  {:.1} mm of shank above it in the member is not",
+                nail.kind_word(),
                 nail.id,
-                penetration_mm - ring_mm
+                if nail.is_wood_screw() {
+                    "thread"
+                } else {
+                    "ring-shank"
+                },
+                penetration_mm - thread_mm
             ));
-            ring_mm
+            thread_mm
         }
         _ => penetration_mm,
     };
-    if nail.shank.is_deformed() && equation != NdsWithdrawalEquation::RingShank {
+    if nail.shank.is_deformed()
+        && !matches!(
+            equation,
+            NdsWithdrawalEquation::RingShank | NdsWithdrawalEquation::WoodScrew
+        )
+        && nail.stated_withdrawal_n_per_mm.is_none()
+    {
         warnings.push(format!(
             "nail `{}` has a {} shank but is not an ASTM F1667 roof sheathing ring shank nail: NDS 2018 \
              12.2.3 gives it no deformed-shank equation, so it is credited as a smooth nail",
@@ -147,12 +167,30 @@ pub(super) fn withdrawal(
         ));
     }
 
-    let w_lbf_per_in = reference_withdrawal_lbf_per_in(
-        equation,
-        gravity.value,
-        in_from_mm(nail.shank_diameter_mm),
-    );
-    let w_n_per_mm = n_per_mm_from_lbf_per_in(w_lbf_per_in);
+    let (w_n_per_mm, w_source) = match &nail.stated_withdrawal_n_per_mm {
+        Some(stated) => (
+            stated.value,
+            format!(
+                "stated for `{}` as the reference withdrawal design value W: {}",
+                nail.id,
+                stated.provenance()
+            ),
+        ),
+        None => {
+            let w_lbf_per_in = reference_withdrawal_lbf_per_in(
+                equation,
+                gravity.value,
+                in_from_mm(nail.shank_diameter_mm),
+            );
+            (
+                n_per_mm_from_lbf_per_in(w_lbf_per_in),
+                format!(
+                    "{} = {w_lbf_per_in:.2} lb/in",
+                    equation.coefficient().provenance()
+                ),
+            )
+        }
+    };
 
     let c_m = match (input.toe_nail, input.service) {
         (true, _) => &NDS_CM_TOE_NAILED,
@@ -199,15 +237,7 @@ pub(super) fn withdrawal(
             "mm",
             format!("nail `{}`: {}", nail.id, nail.provenance()),
         ),
-        Factor::new(
-            "W",
-            w_n_per_mm,
-            "N/mm",
-            format!(
-                "{} = {w_lbf_per_in:.2} lb/in",
-                equation.coefficient().provenance()
-            ),
-        ),
+        Factor::new("W", w_n_per_mm, "N/mm", w_source),
         Factor::new(
             "L (credited)",
             credited_length_mm,

@@ -7,8 +7,8 @@
 
 use super::coefficients::{
     Coefficient, O86_JA_STRAIGHT, O86_JA_TOE_NAILED, O86_JB, O86_JX_CLT, O86_JX_SAWN, O86_KSF_DRY,
-    O86_KSF_WET, O86_KT, O86_PHI, O86_SHORT_TERM_RULE, O86_STAINLESS_RULE, O86_YW_COEFFICIENT,
-    O86_YW_DENSITY_EXPONENT, O86_YW_DIAMETER_EXPONENT,
+    O86_KSF_WET, O86_KT, O86_PHI, O86_SHORT_TERM_RULE, O86_STAINLESS_RULE, O86_WOOD_SCREW_RULE,
+    O86_YW_COEFFICIENT, O86_YW_DENSITY_EXPONENT, O86_YW_DIAMETER_EXPONENT,
 };
 use super::{Factor, LoadDuration, ModeResult, ResistanceInput, Service};
 use crate::catalog::species_groups;
@@ -66,6 +66,12 @@ pub(super) fn withdrawal(
             rule: O86_SHORT_TERM_RULE,
         });
     }
+    if nail.is_wood_screw() {
+        return Err(FastenError::NailNotCovered {
+            nail: nail.id.clone(),
+            reason: O86_WOOD_SCREW_RULE.to_string(),
+        });
+    }
     if nail.material == Material::Stainless {
         return Err(FastenError::NailNotCovered {
             nail: nail.id.clone(),
@@ -88,7 +94,20 @@ pub(super) fn withdrawal(
     let k_sf = pick(input.service == Service::Wet, &O86_KSF_WET, &O86_KSF_DRY);
     let j_x = pick(input.member == MemberKind::Clt, &O86_JX_CLT, &O86_JX_SAWN);
     let j_a = pick(input.toe_nail, &O86_JA_TOE_NAILED, &O86_JA_STRAIGHT);
-    let y_w = basic_withdrawal_n_per_mm(nail.shank_diameter_mm, density.value);
+    let (y_w, y_w_source) = match &nail.stated_withdrawal_n_per_mm {
+        Some(stated) => (
+            stated.value,
+            format!(
+                "stated for `{}` as the basic withdrawal resistance y_w: {}",
+                nail.id,
+                stated.provenance()
+            ),
+        ),
+        None => (
+            basic_withdrawal_n_per_mm(nail.shank_diameter_mm, density.value),
+            O86_YW_COEFFICIENT.provenance(),
+        ),
+    };
     let terms = O86Withdrawal {
         phi: O86_PHI.value,
         y_w_n_per_mm: y_w,
@@ -102,7 +121,7 @@ pub(super) fn withdrawal(
     };
 
     let mut warnings = Vec::new();
-    if nail.shank.is_deformed() {
+    if nail.shank.is_deformed() && nail.stated_withdrawal_n_per_mm.is_none() {
         warnings.push(format!(
             "nail `{}` has a {} shank: CSA O86:19 12.9.5 (from memory) gives deformed shanks no extra \
              withdrawal resistance, so it is credited as a smooth nail of the same diameter",
@@ -126,7 +145,7 @@ pub(super) fn withdrawal(
             "mm",
             format!("nail `{}`: {}", nail.id, nail.provenance()),
         ),
-        Factor::new("y_w", y_w, "N/mm", O86_YW_COEFFICIENT.provenance()),
+        Factor::new("y_w", y_w, "N/mm", y_w_source),
         Factor::from_coefficient(k_sf),
         Factor::from_coefficient(&O86_KT),
         Factor::from_coefficient(j_x),

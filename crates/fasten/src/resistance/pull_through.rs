@@ -70,6 +70,14 @@ fn head_pull_through(
     let value_n = w_h_n * adjustments.iter().map(|c| c.value).product::<f64>();
 
     let mut warnings = Vec::new();
+    if nail.is_wood_screw() {
+        warnings.push(format!(
+            "screw `{}`: head pull-through is taken with the nail-head equation of NDS 2018 12.2.5 and the \
+             screw's head diameter, as for nails (from memory); a countersunk head set into the panel \
+             holds less",
+            nail.id
+        ));
+    }
     if input.service == Service::Wet {
         warnings.push(
             "head pull-through: no wet service factor is applied (NDS 2018 Table 11.3.3 lists none for \

@@ -533,3 +533,76 @@ proptest! {
         prop_assert!((resistance.governing_n - pull_n.min(resistance.withdrawal_n)).abs() < 1e-9);
     }
 }
+
+// ------------------------------------------------------------------------------------------------
+// Wood screws
+// ------------------------------------------------------------------------------------------------
+
+#[test]
+fn wood_screw_w_matches_the_engineering_toolbox_example() {
+    // engineeringtoolbox.com, 'Wood Screws - Withdrawal Force' (checked): G = 0.45, No. 10 screw
+    // D = 0.190 in, F = 2850 (0.45)^2 (0.190) = 109 lb per inch of penetration (NDS 2018 12.2.2).
+    let w = reference_withdrawal_lbf_per_in(NdsWithdrawalEquation::WoodScrew, 0.45, 0.190);
+    assert_relative_eq!(w, 109.0, max_relative = 0.01);
+}
+
+#[test]
+fn wood_screw_credits_only_its_thread_in_the_member() {
+    // NDS 2018 12.2.2 (from memory): W per inch of thread penetration. No. 10 x 3 in screw, thread 2 in,
+    // in DF-L (G 0.50) through 7/16 in OSB: W = 2850 · 0.25 · 0.190 = 135.4 lb/in, ASD with C_D 1.6:
+    // 135.4 · 2.0 · 1.6 = 433 lb (hand calculation from the equation).
+    let input = base(
+        Method::NdsAsd,
+        "wood-screw-10x3in",
+        "dfl",
+        mm_from_in(3.0 - 0.4375),
+    );
+    let resistance = resist(&input);
+    assert_relative_eq!(
+        resistance.credited_length_mm,
+        mm_from_in(2.0),
+        max_relative = 1e-9
+    );
+    assert_relative_eq!(
+        lbf_from_n(resistance.withdrawal_n),
+        433.2,
+        max_relative = 2e-3
+    );
+    assert!(resistance
+        .warnings
+        .iter()
+        .any(|warning| warning.contains("thread length is credited")));
+}
+
+#[test]
+fn wood_screws_are_refused_on_the_canadian_basis() {
+    let input = base(Method::O86LimitStates, "wood-screw-8x2.5in", "spf", 45.0);
+    let error = nail_resistance(&input).expect_err("refused");
+    let message = error.to_string();
+    assert!(message.contains("wood-screw-8x2.5in"), "{message}");
+    assert!(
+        message.contains("refused on the Canadian basis"),
+        "{message}"
+    );
+}
+
+#[test]
+fn a_stated_withdrawal_value_replaces_the_equation_and_names_its_source() {
+    let mut stated = nail("8d-ring").expect("8d ring").clone();
+    stated.stated_withdrawal_n_per_mm = Some(SourcedValue {
+        value: 10.0,
+        source: "evaluation report ER-0000 (invented for this test)".to_string(),
+        confidence: crate::catalog::Confidence::StatedByUser,
+    });
+    let mut input = base(Method::NdsAsd, "8d-ring", "spf", 40.0);
+    input.nail = &stated;
+    let resistance = resist(&input);
+    // 10 N/mm · 40 mm · C_D 1.6 = 640 N.
+    assert_relative_eq!(resistance.withdrawal_n, 640.0, max_relative = 1e-9);
+    let w = resistance
+        .factors
+        .iter()
+        .find(|factor| factor.name == "W")
+        .expect("W");
+    assert!(w.source.contains("ER-0000"), "{}", w.source);
+}
