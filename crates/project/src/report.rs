@@ -87,10 +87,11 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
             .iter()
             .map(|factor| format!("{}: {}", factor.name, factor.source)),
     );
+    provenance.push(format!("Zone map: {}", wind.zone_map));
     provenance.extend(zone_pressures.iter().map(|row| {
         format!(
-            "Zone {} ({}) coefficient: {}",
-            row.label, row.code_zone, row.source
+            "Zone {} ({}) coefficient, {} ({}): {}",
+            row.label, row.code_zone, row.figure, row.coefficient_status, row.source
         )
     }));
     provenance.extend(spacing_rule_sources(project.basis));
@@ -252,6 +253,7 @@ fn zone_pressures(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> Vec<ZonePress
                 })
                 .unwrap_or(0.1);
             let uplift = wind.uplift(zone_index, effective_area_m2).ok()?;
+            let curve = wind.curves.get(zone_index)?;
             Some(ZonePressureRow {
                 label: zone.label,
                 code_zone: zone.code_zone.clone(),
@@ -264,6 +266,8 @@ fn zone_pressures(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> Vec<ZonePress
                 dead_counteracting_kpa: uplift.dead_counteracting_kpa,
                 net_uplift_kpa: uplift.net_uplift_kpa,
                 source: uplift.source,
+                figure: curve.figure.clone(),
+                coefficient_status: curve.status.to_string(),
             })
         })
         .collect()

@@ -154,6 +154,10 @@ pub struct ZonePressureRow {
     pub dead_counteracting_kpa: f64,
     pub net_uplift_kpa: f64,
     pub source: String,
+    /// Figure and slope band the coefficient comes from (or the user's table).
+    pub figure: String,
+    /// `checked`, `from memory`, `severe-of-two` or `user-supplied`.
+    pub coefficient_status: String,
 }
 
 /// One line of the crew's schedule: a zone and a support role.

@@ -275,6 +275,8 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
             dead_counteracting_kpa: 0.07,
             net_uplift_kpa: zone.net_uplift_kpa,
             source: "sample table, invented for tests (from memory: none)".to_string(),
+            figure: "sample figure, invented for tests".to_string(),
+            coefficient_status: "from memory".to_string(),
         })
         .collect();
 

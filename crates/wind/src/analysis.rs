@@ -11,6 +11,7 @@ use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
 use crate::types::{CurveOverride, RoofShape, SiteWind, WindInput};
 use crate::uplift::{evaluate, Uplift};
+use crate::zone_maps::CoefficientStatus;
 use crate::zones::{layout, Region};
 use crate::{asce, nbc};
 use deckhold_core::limits;
@@ -70,6 +71,8 @@ pub struct WindAnalysis {
     /// One curve per zone, same order as `zones`.
     pub curves: Vec<ZoneCurve>,
     pub pressure: PressureBasis,
+    /// The figure and slope band used, with its zone map (which zones, widths, placement) and status.
+    pub zone_map: String,
 }
 
 impl WindAnalysis {
@@ -217,6 +220,7 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
         warnings,
         curves,
         pressure: basis.pressure.clone(),
+        zone_map: basis.zone_map.clone(),
     })
 }
 
@@ -272,6 +276,11 @@ fn build_zones(
                 let upper = data.curve(&slope_blend.upper_set, region)?;
                 let upper_points = ZoneCurve::from_data(upper, None).points;
                 curve.points = blend(&curve.points, &upper_points, slope_blend.fraction);
+                curve.figure = format!("{} blended into {}", curve.figure, upper.figure);
+                if upper.status != curve.status {
+                    // Two rows of different standing: the blend is no better than from memory.
+                    curve.status = CoefficientStatus::FromMemory;
+                }
                 curve.source = format!(
                     "{}; blended with {} zone {} ({}): {}",
                     curve.source, upper.figure, upper.code_zone, upper.confidence, slope_blend.rule
@@ -314,6 +323,8 @@ fn apply_overrides(
                     points: replacement.points.clone(),
                     soffit: None,
                     source: replacement.source.clone(),
+                    figure: format!("coefficient_overrides[{index}]"),
+                    status: CoefficientStatus::UserSupplied,
                 };
             }
         }

@@ -5,7 +5,7 @@ use crate::basis::{edge_width_m, Factor, PressureBasis, SlopeBlend, StandardBasi
 use crate::coefficients::{table, Edition, Table};
 use crate::error::WindError;
 use crate::types::{AsceWind, Enclosure, Exposure, RoofShape, StrengthMethod};
-use crate::zones::Strips;
+use crate::zone_maps::{figure, figure_for_slope};
 use deckhold_core::limits;
 use deckhold_core::units::{KPA_PER_PSF, M_PER_FT};
 
@@ -99,14 +99,6 @@ pub(crate) fn basis(
     let (dead_factor, dead_source) = data.constant(&format!("dead_load_factor.{method_key}"))?;
     let (minimum_kpa, minimum_source) = data.constant("minimum_pressure_kpa")?;
     let sloped = slope_deg > 7.0 && matches!(shape, RoofShape::Gable | RoofShape::Hip);
-    let band = if slope_deg <= 20.0 {
-        "7-20"
-    } else if slope_deg <= 27.0 || shape == RoofShape::Hip {
-        // Hip roofs over 27 deg start from the 20-27 deg curves and blend to 45 deg (`hip_blend`).
-        "20-27"
-    } else {
-        "27-45"
-    };
     let (slope_set, edge, edge_source) = if !sloped {
         (
             "slope-0-7".to_string(),
@@ -115,12 +107,20 @@ pub(crate) fn basis(
         )
     } else {
         let prefix = if shape == RoofShape::Gable {
-            "gable"
+            "gable-"
         } else {
-            "hip"
+            "hip-"
+        };
+        // The band's figure by the standard's boundary rule (upper bound included); hip roofs over
+        // 27 deg start from the 20-27 deg curves and blend into the 45 deg figure (`hip_blend`).
+        let banded = figure_for_slope(&data.figures, prefix, slope_deg, &data.edition)?;
+        let set = if banded.set == "hip-45" {
+            "hip-20-27".to_string()
+        } else {
+            banded.set.clone()
         };
         (
-            format!("{prefix}-{band}"),
+            set,
             edge_width_m(least_dimension_m, mean_height_m, 3.0 * M_PER_FT),
             "ASCE 7-22 Figures 30.3-2B..G notes: a = min(0.1 D, 0.4 h) >= max(0.04 D, 3 ft) (from memory)",
         )
@@ -141,12 +141,19 @@ pub(crate) fn basis(
         Factor::new("dead_load_factor", dead_factor, dead_source),
     ];
     let mut warnings = vec![
-        "ASCE 7-22 GC_p curves are from memory (gable and hip figures with low confidence); check them against the printed Figure 30.3-2 series or override them".to_string(),
+        "ASCE 7-22 GC_p curves are from memory or the more severe of two unconfirmed readings (severe-of-two: gable 27-45 zone 3, hip 7-20 zones 1 and 2); check them against the printed Figure 30.3-2 series or override them".to_string(),
     ];
+    if sloped && shape == RoofShape::Hip {
+        warnings.push("ASCE 7-22 hip roofs: zone 3 is taken along every eave, not only at the corners (the more severe of two unconfirmed readings of the 7-22 hip zone map)".to_string());
+    }
     if !sloped {
         warnings.push("ASCE 7-22 Figure 30.3-2A: zone 1' is taken as zone 1 and the corner zone 3 as the full 0.6 h square (conservative simplification)".to_string());
     }
     let reference_kpa = q_h_kpa * k_d;
+    // The figure of the band decides which strips the layout draws (zone_maps.rs).
+    let band_figure = figure(&data.figures, &slope_set, &data.edition)?;
+    let strips = band_figure.strips(shape, edge);
+    let zone_map = band_figure.summary();
     Ok(StandardBasis {
         edition: Edition::Asce722,
         pressure: PressureBasis {
@@ -160,11 +167,8 @@ pub(crate) fn basis(
             cos_slope: slope_deg.to_radians().cos(),
         },
         q_kpa: q_h_kpa,
-        strips: Strips {
-            edge_width_m: edge,
-            ridge: sloped && shape == RoofShape::Gable,
-            hips: sloped && shape == RoofShape::Hip,
-        },
+        strips,
+        zone_map,
         slope_set,
         slope_blend: hip_blend(shape, slope_deg),
         zone_names: ["1", "2", "3"],

@@ -62,6 +62,8 @@ pub(crate) struct StandardBasis {
     pub slope_set: String,
     /// Set when the standard interpolates between two figures by slope.
     pub slope_blend: Option<SlopeBlend>,
+    /// The figure, slope band and zone map used, for the report.
+    pub zone_map: String,
     /// Code-zone names for interior, edge and corner.
     pub zone_names: [&'static str; 3],
     pub factors: Vec<Factor>,

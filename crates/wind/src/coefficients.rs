@@ -6,6 +6,7 @@ use serde::{Deserialize, Serialize};
 
 use crate::error::WindError;
 use crate::types::CurvePoint;
+use crate::zone_maps::{CoefficientStatus, FigureData};
 use crate::zones::Region;
 
 #[derive(Debug, Clone, PartialEq, Deserialize)]
@@ -35,6 +36,7 @@ pub(crate) struct CurveData {
     pub region: String,
     pub code_zone: String,
     pub figure: String,
+    pub status: CoefficientStatus,
     pub confidence: String,
     pub points: Vec<PointData>,
 }
@@ -45,6 +47,8 @@ pub(crate) struct Table {
     pub edition: String,
     pub constants: Vec<Constant>,
     pub soffit: SoffitData,
+    /// One entry per figure and slope band, with its zone map.
+    pub figures: Vec<FigureData>,
     pub curves: Vec<CurveData>,
 }
 
@@ -134,6 +138,9 @@ pub struct ZoneCurve {
     /// Positive soffit coefficients pushing up under an overhang; subtracted from `points`.
     pub soffit: Option<Vec<CurvePoint>>,
     pub source: String,
+    /// The figure and slope band the curve comes from (or the user's file).
+    pub figure: String,
+    pub status: CoefficientStatus,
 }
 
 impl ZoneCurve {
@@ -161,6 +168,8 @@ impl ZoneCurve {
             points: convert(&curve.points),
             soffit: soffit.map(|s| convert(&s.points)),
             source,
+            figure: curve.figure.clone(),
+            status: curve.status,
         }
     }
 
@@ -275,12 +284,11 @@ mod tests {
             assert!(!table.curves.is_empty());
             for data in &table.curves {
                 assert!(
-                    data.confidence.starts_with("from memory")
-                        || data.confidence.starts_with("checked")
-                        || data.confidence.starts_with("severe-of-two"),
+                    data.confidence.starts_with(data.status.as_str()),
                     "{}",
                     data.confidence
                 );
+                assert_ne!(data.status, CoefficientStatus::UserSupplied);
                 let points: Vec<f64> = data.points.iter().map(|p| p.coefficient.abs()).collect();
                 assert!(
                     points.windows(2).all(|w| w[1] <= w[0]),

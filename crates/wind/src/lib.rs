@@ -18,6 +18,7 @@ mod outline;
 mod roof;
 mod types;
 mod uplift;
+mod zone_maps;
 mod zones;
 
 pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone};
@@ -31,3 +32,4 @@ pub use types::{
     NbcWind, RidgeAlong, Roof, SiteWind, StrengthMethod, Terrain, WindInput,
 };
 pub use uplift::Uplift;
+pub use zone_maps::CoefficientStatus;

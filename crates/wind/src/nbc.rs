@@ -4,7 +4,7 @@ use crate::basis::{edge_width_m, Factor, PressureBasis, StandardBasis};
 use crate::coefficients::{table, Edition};
 use crate::error::WindError;
 use crate::types::{Importance, NbcWind, RoofShape, Terrain};
-use crate::zones::Strips;
+use crate::zone_maps::{figure, figure_for_slope};
 use deckhold_core::limits;
 
 /// Low-building height limit, m (NBC 2020 4.1.7.6.(1), checked against the clause text on codeindex.ca).
@@ -74,12 +74,13 @@ pub(crate) fn basis(
     let q_kpa = site.q50_kpa * c_e * c_t;
     let reference_kpa = i_w * q_kpa;
     let sloped = slope_deg > 7.0 && matches!(shape, RoofShape::Gable | RoofShape::Hip);
-    let slope_set = if !sloped {
-        "slope-0-7"
-    } else if slope_deg <= 27.0 {
-        "gable-hip-7-27"
+    // The band's figure by the standard's boundary rule (4.1.7.6.(4) and (6); upper bound included).
+    let slope_set = if sloped {
+        figure_for_slope(&data.figures, "gable-hip-", slope_deg, &data.edition)?
+            .set
+            .clone()
     } else {
-        "gable-hip-27-45"
+        "slope-0-7".to_string()
     };
     let edge = edge_width_m(least_dimension_m, mean_height_m, 1.0);
     let terrain_formula = match site.terrain {
@@ -104,6 +105,10 @@ pub(crate) fn basis(
     if sloped {
         warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
     }
+    // The figure of the band decides which strips the layout draws (zone_maps.rs).
+    let band_figure = figure(&data.figures, &slope_set, &data.edition)?;
+    let strips = band_figure.strips(shape, edge);
+    let zone_map = band_figure.summary();
     Ok(StandardBasis {
         edition: Edition::Nbc2020,
         pressure: PressureBasis {
@@ -117,12 +122,9 @@ pub(crate) fn basis(
             cos_slope: slope_deg.to_radians().cos(),
         },
         q_kpa,
-        strips: Strips {
-            edge_width_m: edge,
-            ridge: sloped && shape == RoofShape::Gable,
-            hips: sloped && shape == RoofShape::Hip,
-        },
-        slope_set: slope_set.to_string(),
+        strips,
+        zone_map,
+        slope_set,
         slope_blend: None,
         zone_names: ["r", "s", "c"],
         factors,

@@ -88,6 +88,8 @@ mod tests {
             }],
             soffit: None,
             source: "test curve".to_string(),
+            figure: "test figure".to_string(),
+            status: crate::zone_maps::CoefficientStatus::FromMemory,
         }
     }
 

@@ -21,6 +21,9 @@ pub(crate) struct Strips {
     pub ridge: bool,
     /// Edge bands along the hip lines and ridge (hip > 7°).
     pub hips: bool,
+    /// The region of the strips along the walls: edge, or corner where a figure's map puts its worst
+    /// zone along the whole eave (ASCE 7-22 hip roofs, severe-of-two).
+    pub wall_region: Region,
 }
 
 /// One classified piece of the roof outline, local frame.
@@ -125,7 +128,7 @@ fn classify_rectangle(u: f64, v: f64, lu: f64, lv: f64, strips: Strips) -> (Regi
         && (du - dv).abs() / std::f64::consts::SQRT_2 < a
         && du < lv / 2.0 + a
         && dv < lv / 2.0 + a;
-    let region = if corner {
+    let region = if corner || (near_wall && strips.wall_region == Region::Corner) {
         Region::Corner
     } else if near_wall || ridge_strip || hip_ridge || hip_band {
         Region::Edge
@@ -274,6 +277,7 @@ mod tests {
             edge_width_m: 1.0,
             ridge: true,
             hips: false,
+            wall_region: Region::Edge,
         };
         let (local, pieces) = pieces_for(
             RoofShape::Gable,
@@ -305,6 +309,7 @@ mod tests {
             edge_width_m: 1.0,
             ridge: false,
             hips: true,
+            wall_region: Region::Edge,
         };
         let (local, pieces) = pieces_for(
             RoofShape::Hip,
@@ -330,6 +335,7 @@ mod tests {
             edge_width_m: 1.0,
             ridge: false,
             hips: false,
+            wall_region: Region::Edge,
         };
         let l_shape = vec![
             [0.0, 0.0],

@@ -173,7 +173,10 @@ pub(crate) fn design_basis(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
                     pressure_label(row.net_uplift_kpa, imperial),
                 ],
                 bold: false,
-                note: Some(format!("source: {}", row.source)),
+                note: Some(format!(
+                    "{} ({}); source: {}",
+                    row.figure, row.coefficient_status, row.source
+                )),
             }]
         })
         .collect();
