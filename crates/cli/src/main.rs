@@ -4,6 +4,8 @@
 //! practical spacing works in some zone); 2 the input is refused (bad file, bad option, outside the method).
 
 mod args;
+#[macro_use]
+mod console;
 mod commands;
 mod output;
 mod table;
@@ -32,11 +34,16 @@ fn main() -> ExitCode {
         Command::Catalog(args) => commands::catalog::run(&args),
         Command::Init(args) => commands::init::run(&args),
     };
+    let result = result.and_then(|outcome| console::flush_out().map(|()| outcome));
     match result {
         Ok(Outcome::Works) => ExitCode::SUCCESS,
         Ok(Outcome::DoesNotWork) => ExitCode::from(1),
+        // The reader of our output went away (`deckhold zones | head -1`): stop quietly, as the shell's
+        // own tools do, with the status a pipe-killed process would have (128 + SIGPIPE).
+        Err(error) if console::is_broken_pipe(&error) => ExitCode::from(141),
         Err(error) => {
-            eprintln!("deckhold: error: {error:#}");
+            // If even standard error cannot be written, the status still says the run failed.
+            let _ = console::write_err(format_args!("deckhold: error: {error:#}\n"));
             ExitCode::from(2)
         }
     }

@@ -1,39 +1,48 @@
-//! Writing result files: each to a temporary file in the same folder, then renamed into place, so a failed
-//! run never leaves a half-written schedule behind.
+//! Writing result files as a set: all or nothing. The layout is documented in docs/output-sets.md.
+//!
+//! On Unix the files of one run live in a generation directory `DIR/.deckhold/gen-<id>/`; the symbolic link
+//! `DIR/.deckhold/current` names the generation in force, and each visible name (`DIR/schedule.csv`, ...)
+//! is a link to `.deckhold/current/<name>`. A new set is written whole into a fresh generation directory,
+//! synced, then made visible by renaming one new link over `current`: a single atomic step. So after a kill
+//! at any instant every visible name shows the previous set or the new one, never a mix. Runs take an
+//! exclusive lock on `DIR/.deckhold/lock` while they write and swap, so concurrent runs each leave a whole
+//! set, and a run removes what killed runs left behind (`gen-*`, `next-*`, `link-*`) under that lock.
+//!
+//! Nothing is followed that deckhold did not create: an entry found where deckhold writes must be either
+//! absent, a regular file (an older output, replaced by a link), or exactly the link deckhold makes; anything
+//! else is refused with a message. Files the tool does not name are never touched.
 
-use anyhow::{Context, Result};
+use anyhow::{bail, Context, Result};
 use std::fs;
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
-/// Writes every `(file name, bytes)` into `folder`. All files are written to temporaries first and renamed
-/// only when every one of them was written.
+/// Every name a run may write in the output folder (the set is a subset of these).
+pub const SET_NAMES: [&str; 4] = [
+    "schedule.csv",
+    "rafter-lines.csv",
+    "schedule.pdf",
+    "schedule.json",
+];
+/// The folder beside the outputs where generations live.
+pub const STATE_DIR: &str = ".deckhold";
+
+/// Writes every `(file name, bytes)` into `folder` as one set and returns the visible paths.
 pub fn write_all_atomically(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+    for (name, _) in files {
+        if !SET_NAMES.contains(name) {
+            bail!("internal: {name} is not one of the output set's names");
+        }
+    }
     fs::create_dir_all(folder)
         .with_context(|| format!("cannot create the output folder {}", folder.display()))?;
-    let mut staged = Vec::new();
-    for (name, bytes) in files {
-        let final_path = folder.join(name);
-        let temporary_path = folder.join(format!(".{name}.partial"));
-        let written = fs::File::create(&temporary_path)
-            .and_then(|mut file| file.write_all(bytes).and_then(|()| file.sync_all()));
-        if let Err(error) = written {
-            for (temporary, _) in &staged {
-                let _ = fs::remove_file(temporary);
-            }
-            let _ = fs::remove_file(&temporary_path);
-            return Err(error)
-                .with_context(|| format!("cannot write {}", temporary_path.display()));
-        }
-        staged.push((temporary_path, final_path));
+    if !fs::metadata(folder)
+        .with_context(|| format!("cannot read {}", folder.display()))?
+        .is_dir()
+    {
+        bail!("{} is not a folder: give --out a folder", folder.display());
     }
-    let mut written_paths = Vec::new();
-    for (temporary, final_path) in staged {
-        fs::rename(&temporary, &final_path)
-            .with_context(|| format!("cannot move the result into {}", final_path.display()))?;
-        written_paths.push(final_path);
-    }
-    Ok(written_paths)
+    platform::write_set(folder, files)
 }
 
 /// Writes one new file, refusing to overwrite an existing one.
@@ -49,5 +58,257 @@ pub fn write_new_file(path: &Path, bytes: &[u8]) -> Result<()> {
             )
         })?;
     file.write_all(bytes)
+        .and_then(|()| file.sync_all())
         .with_context(|| format!("cannot write {}", path.display()))
+}
+
+/// A name no other process or earlier run will pick: process id, time and a counter.
+fn unique_suffix() -> String {
+    use std::sync::atomic::{AtomicU64, Ordering};
+    static COUNTER: AtomicU64 = AtomicU64::new(0);
+    let nanos = std::time::SystemTime::now()
+        .duration_since(std::time::UNIX_EPOCH)
+        .map_or(0, |elapsed| elapsed.as_nanos());
+    format!(
+        "{}-{nanos}-{}",
+        std::process::id(),
+        COUNTER.fetch_add(1, Ordering::Relaxed)
+    )
+}
+
+#[cfg(unix)]
+mod platform {
+    use super::{unique_suffix, write_new_file, SET_NAMES, STATE_DIR};
+    use anyhow::{bail, Context, Result};
+    use rustix::fs::{flock, FlockOperation};
+    use std::fs;
+    use std::io::ErrorKind;
+    use std::os::unix::fs::{symlink, OpenOptionsExt};
+    use std::path::{Path, PathBuf};
+
+    const CURRENT: &str = "current";
+
+    /// The link target of a visible name: always the same, so the links never change once made.
+    fn visible_target(name: &str) -> PathBuf {
+        Path::new(STATE_DIR).join(CURRENT).join(name)
+    }
+
+    pub fn write_set(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+        let state = folder.join(STATE_DIR);
+        ensure_state_dir(&state)?;
+        let lock_path = state.join("lock");
+        let lock = fs::OpenOptions::new()
+            .create(true)
+            .truncate(false)
+            .write(true)
+            .custom_flags(rustix::fs::OFlags::NOFOLLOW.bits() as i32)
+            .open(&lock_path)
+            .with_context(|| format!("cannot open the lock file {}", lock_path.display()))?;
+        flock(&lock, FlockOperation::LockExclusive)
+            .with_context(|| format!("cannot lock {}", lock_path.display()))?;
+        // From here on no other deckhold run writes in this folder until the lock is dropped.
+        for (name, _) in files {
+            check_visible_name(folder, name)?;
+        }
+        let current = state.join(CURRENT);
+        let previous = current_generation(&current)?;
+        remove_leftovers(&state, previous.as_deref())?;
+
+        let generation = format!("gen-{}", unique_suffix());
+        let generation_path = state.join(&generation);
+        fs::create_dir(&generation_path)
+            .with_context(|| format!("cannot create {}", generation_path.display()))?;
+        for (name, bytes) in files {
+            write_new_file(&generation_path.join(name), bytes)?;
+        }
+        sync_dir(&generation_path)?;
+
+        // The one step that makes the new set visible.
+        let next = state.join(format!("next-{}", unique_suffix()));
+        symlink(&generation, &next).with_context(|| format!("cannot create {}", next.display()))?;
+        fs::rename(&next, &current)
+            .with_context(|| format!("cannot swap in the new set at {}", current.display()))?;
+        sync_dir(&state)?;
+
+        let mut written = Vec::new();
+        for name in SET_NAMES {
+            let path = folder.join(name);
+            let in_set = files.iter().any(|(file, _)| *file == name);
+            if in_set {
+                make_visible_link(folder, &state, name)?;
+                written.push(path);
+            } else if is_our_link(&path, name)? {
+                // A name of an earlier set that this one lacks (schedule.json without --json).
+                fs::remove_file(&path)
+                    .with_context(|| format!("cannot remove {}", path.display()))?;
+            }
+        }
+        sync_dir(folder)?;
+        if let Some(previous) = previous {
+            remove_entry(&state.join(previous))?;
+        }
+        drop(lock);
+        Ok(written)
+    }
+
+    fn ensure_state_dir(state: &Path) -> Result<()> {
+        match fs::symlink_metadata(state) {
+            Ok(meta) if meta.file_type().is_dir() => Ok(()),
+            Ok(_) => bail!(
+                "{} is not the folder deckhold keeps its output sets in (it is a file or a link); \
+                 remove it or choose another --out",
+                state.display()
+            ),
+            Err(error) if error.kind() == ErrorKind::NotFound => match fs::create_dir(state) {
+                Ok(()) => Ok(()),
+                Err(error) if error.kind() == ErrorKind::AlreadyExists => ensure_state_dir(state),
+                Err(error) => {
+                    Err(error).with_context(|| format!("cannot create {}", state.display()))
+                }
+            },
+            Err(error) => Err(error).with_context(|| format!("cannot read {}", state.display())),
+        }
+    }
+
+    /// A visible name must be absent, a regular file (an earlier output) or the link deckhold makes.
+    fn check_visible_name(folder: &Path, name: &str) -> Result<()> {
+        let path = folder.join(name);
+        match fs::symlink_metadata(&path) {
+            Err(error) if error.kind() == ErrorKind::NotFound => Ok(()),
+            Err(error) => Err(error).with_context(|| format!("cannot read {}", path.display())),
+            Ok(meta) if meta.file_type().is_file() => Ok(()),
+            Ok(_) if is_our_link(&path, name)? => Ok(()),
+            Ok(meta) if meta.file_type().is_symlink() => bail!(
+                "{} is a link deckhold did not make; it is never followed: remove it or choose another --out",
+                path.display()
+            ),
+            Ok(_) => bail!(
+                "{} is taken by something that is not a file (a folder or a device); deckhold writes its \
+                 {name} there: remove it or choose another --out",
+                path.display()
+            ),
+        }
+    }
+
+    fn is_our_link(path: &Path, name: &str) -> Result<bool> {
+        match fs::read_link(path) {
+            Ok(target) => Ok(target == visible_target(name)),
+            Err(error) if matches!(error.kind(), ErrorKind::NotFound | ErrorKind::InvalidInput) => {
+                Ok(false)
+            }
+            Err(error) => Err(error).with_context(|| format!("cannot read {}", path.display())),
+        }
+    }
+
+    /// The generation `current` names, if it is deckhold's link; anything else there is refused.
+    fn current_generation(current: &Path) -> Result<Option<String>> {
+        match fs::symlink_metadata(current) {
+            Err(error) if error.kind() == ErrorKind::NotFound => Ok(None),
+            Err(error) => Err(error).with_context(|| format!("cannot read {}", current.display())),
+            Ok(meta) if meta.file_type().is_symlink() => {
+                let target = fs::read_link(current)
+                    .with_context(|| format!("cannot read {}", current.display()))?;
+                match target.to_str() {
+                    Some(text) if is_generation_name(text) => Ok(Some(text.to_string())),
+                    _ => bail!(
+                        "{} points to {}, which is not a deckhold output set: remove it",
+                        current.display(),
+                        target.display()
+                    ),
+                }
+            }
+            Ok(_) => bail!(
+                "{} is not a link deckhold made: remove it",
+                current.display()
+            ),
+        }
+    }
+
+    fn is_generation_name(text: &str) -> bool {
+        text.starts_with("gen-") && !text.contains('/') && text != "gen-"
+    }
+
+    /// Removes what runs killed part-way left in the state folder: generations not in force, unused links.
+    fn remove_leftovers(state: &Path, keep: Option<&str>) -> Result<()> {
+        let entries =
+            fs::read_dir(state).with_context(|| format!("cannot list {}", state.display()))?;
+        for entry in entries {
+            let entry = entry.with_context(|| format!("cannot list {}", state.display()))?;
+            let name = entry.file_name();
+            let Some(name) = name.to_str() else { continue };
+            let stale = (is_generation_name(name) && Some(name) != keep)
+                || name.starts_with("next-")
+                || name.starts_with("link-");
+            if stale {
+                remove_entry(&entry.path())?;
+            }
+        }
+        Ok(())
+    }
+
+    /// Removes a file, link or folder without following links (a link is removed, not its target).
+    fn remove_entry(path: &Path) -> Result<()> {
+        let meta = match fs::symlink_metadata(path) {
+            Err(error) if error.kind() == ErrorKind::NotFound => return Ok(()),
+            other => other.with_context(|| format!("cannot read {}", path.display()))?,
+        };
+        let removed = if meta.file_type().is_dir() {
+            fs::remove_dir_all(path)
+        } else {
+            fs::remove_file(path)
+        };
+        removed.with_context(|| format!("cannot remove {}", path.display()))
+    }
+
+    /// Puts deckhold's link at a visible name (replacing an earlier output file in one rename).
+    fn make_visible_link(folder: &Path, state: &Path, name: &str) -> Result<()> {
+        let path = folder.join(name);
+        if is_our_link(&path, name)? {
+            return Ok(());
+        }
+        // The link's text is relative to the output folder; it is made in the state folder (where a run
+        // killed here leaves it for the next run to remove) and renamed to its name in one step.
+        let staged = state.join(format!("link-{}", unique_suffix()));
+        symlink(visible_target(name), &staged)
+            .with_context(|| format!("cannot create {}", staged.display()))?;
+        fs::rename(&staged, &path).with_context(|| format!("cannot create {}", path.display()))
+    }
+
+    fn sync_dir(path: &Path) -> Result<()> {
+        fs::File::open(path)
+            .and_then(|dir| dir.sync_all())
+            .with_context(|| format!("cannot sync {}", path.display()))
+    }
+}
+
+#[cfg(not(unix))]
+mod platform {
+    //! Fallback where symbolic links and locks are not available in the same way: each file is written to a
+    //! unique temporary and renamed into place. Each file is whole, but a kill between renames can leave
+    //! files of two runs side by side (documented in docs/output-sets.md).
+    use super::{unique_suffix, write_new_file};
+    use anyhow::{Context, Result};
+    use std::fs;
+    use std::path::{Path, PathBuf};
+
+    pub fn write_set(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+        let mut staged = Vec::new();
+        for (name, bytes) in files {
+            let temporary = folder.join(format!(".{name}.{}.partial", unique_suffix()));
+            if let Err(error) = write_new_file(&temporary, bytes) {
+                for (path, _) in &staged {
+                    let _ = fs::remove_file(path);
+                }
+                return Err(error);
+            }
+            staged.push((temporary, folder.join(name)));
+        }
+        let mut written = Vec::new();
+        for (temporary, path) in staged {
+            fs::rename(&temporary, &path)
+                .with_context(|| format!("cannot move the result into {}", path.display()))?;
+            written.push(path);
+        }
+        Ok(written)
+    }
 }

@@ -423,3 +423,46 @@ fn init_writes_a_project_that_runs_and_never_overwrites() {
         .assert()
         .success();
 }
+
+#[test]
+#[cfg(target_os = "linux")]
+fn a_full_standard_output_ends_the_run_with_a_message_not_a_panic() {
+    let full = std::fs::OpenOptions::new()
+        .write(true)
+        .open("/dev/full")
+        .expect("/dev/full");
+    let output = std::process::Command::new(env!("CARGO_BIN_EXE_deckhold"))
+        .arg("zones")
+        .stdout(full)
+        .output()
+        .expect("runs");
+    let message = String::from_utf8_lossy(&output.stderr);
+    assert_eq!(output.status.code(), Some(2), "{message}");
+    assert!(
+        message.contains("cannot write to standard output"),
+        "{message}"
+    );
+    assert!(!message.contains("panicked"), "{message}");
+}
+
+#[test]
+#[cfg(unix)]
+fn a_closed_pipe_ends_the_run_quietly() {
+    let mut child = std::process::Command::new(env!("CARGO_BIN_EXE_deckhold"))
+        .args(["catalog", "nails"])
+        .stdout(std::process::Stdio::piped())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .expect("runs");
+    // The reader goes away before the first line is written (`deckhold ... | head -0`).
+    drop(child.stdout.take());
+    let output = child.wait_with_output().expect("waits");
+    let message = String::from_utf8_lossy(&output.stderr);
+    assert!(message.is_empty(), "quiet on a closed pipe: {message}");
+    assert_ne!(output.status.code(), Some(101), "no panic");
+    assert!(
+        matches!(output.status.code(), Some(0 | 141)),
+        "{:?}",
+        output.status
+    );
+}

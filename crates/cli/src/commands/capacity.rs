@@ -97,12 +97,12 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
             value["governing_lbf"] = json!(resistance.governing_lbf());
             value["penetration_in"] = json!(penetration_mm / MM_PER_IN);
         }
-        println!("{}", serde_json::to_string_pretty(&value)?);
+        outln!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
     let us_units = units.map_or(us, Units::is_us);
     let force = |n: f64| force_label(n, us_units);
-    println!(
+    outln!(
         "{} — {} in {} ({}), penetration {}",
         resistance.method.as_str(),
         nail.id,
@@ -110,9 +110,9 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
         species.name,
         small_length_label(penetration_mm, us_units)
     );
-    println!("  withdrawal:       {}", force(resistance.withdrawal_n));
+    outln!("  withdrawal:       {}", force(resistance.withdrawal_n));
     match resistance.pull_through_n {
-        Some(pull_n) => println!(
+        Some(pull_n) => outln!(
             "  head pull-through: {}{}",
             force(pull_n),
             if resistance.pull_through_is_advisory {
@@ -121,9 +121,9 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
                 ""
             }
         ),
-        None => println!("  head pull-through: not checked (give --deck-mm)"),
+        None => outln!("  head pull-through: not checked (give --deck-mm)"),
     }
-    println!(
+    outln!(
         "  governing:        {} ({})\n",
         force(resistance.governing_n),
         resistance.governing_mode.as_str()
@@ -137,10 +137,10 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
             factor.source.clone(),
         ]);
     }
-    print!("{}", table.render());
+    out!("{}", table.render());
     for warning in &resistance.warnings {
-        println!("Warning: {warning}");
+        outln!("Warning: {warning}");
     }
-    print!("{}", caution_lines());
+    out!("{}", caution_lines());
     Ok(Outcome::Works)
 }

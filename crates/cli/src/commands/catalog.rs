@@ -11,7 +11,7 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
         CatalogKind::Nails => {
             let nails = deckhold_fasten::nails();
             if args.json {
-                println!("{}", serde_json::to_string_pretty(nails)?);
+                outln!("{}", serde_json::to_string_pretty(nails)?);
                 return Ok(Outcome::Works);
             }
             let mut table = Table::new(&[
@@ -36,12 +36,12 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
                     nail.provenance(),
                 ]);
             }
-            print!("{}", table.render());
+            out!("{}", table.render());
         }
         CatalogKind::Species => {
             let groups = deckhold_fasten::species_groups();
             if args.json {
-                println!("{}", serde_json::to_string_pretty(groups)?);
+                outln!("{}", serde_json::to_string_pretty(groups)?);
                 return Ok(Outcome::Works);
             }
             let mut table = Table::new(&["id", "name", "O86 rel. density", "NDS G", "sources"]);
@@ -63,12 +63,12 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
                     sources.join("; "),
                 ]);
             }
-            print!("{}", table.render());
+            out!("{}", table.render());
         }
         CatalogKind::Panels => {
             let panels = deckhold_fasten::panels();
             if args.json {
-                println!("{}", serde_json::to_string_pretty(panels)?);
+                outln!("{}", serde_json::to_string_pretty(panels)?);
                 return Ok(Outcome::Works);
             }
             let mut table = Table::new(&["id", "name", "NDS G", "source"]);
@@ -80,7 +80,7 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
                     panel.nds_specific_gravity.provenance(),
                 ]);
             }
-            print!("{}", table.render());
+            out!("{}", table.render());
         }
     }
     Ok(Outcome::Works)

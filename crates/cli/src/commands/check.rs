@@ -54,9 +54,9 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
             "zones": rows,
             "cautions": deckhold_schedule::standard_cautions(),
         });
-        println!("{}", serde_json::to_string_pretty(&value)?);
+        outln!("{}", serde_json::to_string_pretty(&value)?);
     } else {
-        println!(
+        outln!(
             "Plan check: {} ({}), {} per nail ({}){}\n",
             checked.nail.id,
             checked.nail.description,
@@ -97,8 +97,8 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
                     .unwrap_or_default(),
             ]);
         }
-        print!("{}", table.render());
-        println!(
+        out!("{}", table.render());
+        outln!(
             "\n{}",
             if passes {
                 "The pattern passes in every zone."
@@ -106,7 +106,7 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
                 "The pattern FAILS."
             }
         );
-        print!("{}", caution_lines());
+        out!("{}", caution_lines());
     }
     Ok(if passes {
         Outcome::Works

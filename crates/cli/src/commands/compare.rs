@@ -125,7 +125,7 @@ pub fn run(args: &CompareArgs, units: Option<Units>) -> Result<Outcome> {
             "nails": nails,
             "cautions": deckhold_schedule::standard_cautions(),
         });
-        println!("{}", serde_json::to_string_pretty(&value)?);
+        outln!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
 
@@ -198,18 +198,18 @@ pub fn run(args: &CompareArgs, units: Option<Units>) -> Result<Outcome> {
         cells.push(if candidate.feasible { "yes" } else { "no" }.to_string());
         table.row(cells);
     }
-    println!(
+    outln!(
         "{}: nails compared on one deck ({})\n",
         project.basis.info().title,
         deckhold_project::report::deck_text(&project, project.units)
     );
-    print!("{}", table.render());
+    out!("{}", table.render());
     if let Some((length_mm, source)) = rule {
-        println!(
+        outln!(
             "\nprescr.: at least {} long per {source}.",
             small_length_label(length_mm, us)
         );
     }
-    print!("{}", caution_lines());
+    out!("{}", caution_lines());
     Ok(Outcome::Works)
 }

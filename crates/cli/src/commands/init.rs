@@ -23,7 +23,7 @@ pub fn run(args: &InitArgs) -> Result<Outcome> {
         CA_TEMPLATE_JSON
     };
     write_new_file(&path, text.as_bytes())?;
-    eprintln!(
+    errln!(
         "wrote {} ({} basis example); edit it, then run `deckhold run {}`",
         path.display(),
         if args.us { "US" } else { "Canadian" },

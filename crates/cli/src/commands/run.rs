@@ -56,23 +56,23 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     }
 
     if args.json {
-        println!(
+        outln!(
             "{}",
             serde_json::to_string_pretty(&summary_json(&schedule, &job.layout))?
         );
         for path in &written {
-            eprintln!("wrote {}", path.display());
+            errln!("wrote {}", path.display());
         }
     } else {
-        print!("{}", summary_text(&schedule));
-        print!("{}", files_text(&written));
+        out!("{}", summary_text(&schedule));
+        out!("{}", files_text(&written));
     }
     if args.timings {
         let total: f64 = stages.iter().map(|(_, ms)| ms).sum();
         for (name, ms) in &stages {
-            eprintln!("timing: {name:<28} {ms:8.2} ms");
+            errln!("timing: {name:<28} {ms:8.2} ms");
         }
-        eprintln!("timing: {:<28} {total:8.2} ms", "total");
+        errln!("timing: {:<28} {total:8.2} ms", "total");
     }
     Ok(if schedule.feasible {
         Outcome::Works

@@ -61,7 +61,7 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
             "warnings": wind.warnings,
             "cautions": deckhold_schedule::standard_cautions(),
         });
-        println!("{}", serde_json::to_string_pretty(&value)?);
+        outln!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
     }
     let us = project.units.is_us();
@@ -72,7 +72,7 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
             format!("{} m²", sig3(m2))
         }
     };
-    println!(
+    outln!(
         "{}\nEdge / end-zone width {}, velocity pressure {}, mean roof height {}, effective area {}\n",
         project.basis.info().title,
         plan_length_label(wind.edge_width_m, us),
@@ -107,17 +107,19 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
             pressure_value(uplift.net_uplift_kpa, us),
         ]);
     }
-    print!("{}", table.render());
-    println!("\nFactors:");
+    out!("{}", table.render());
+    outln!("\nFactors:");
     for factor in &wind.factors {
-        println!(
+        outln!(
             "  {} = {:.4}  ({})",
-            factor.name, factor.value, factor.source
+            factor.name,
+            factor.value,
+            factor.source
         );
     }
     for warning in &wind.warnings {
-        println!("Warning: {warning}");
+        outln!("Warning: {warning}");
     }
-    print!("{}", caution_lines());
+    out!("{}", caution_lines());
     Ok(Outcome::Works)
 }

@@ -1,0 +1,205 @@
+//! Output sets are all or nothing (docs/output-sets.md): concurrent runs each leave a whole set, a run killed
+//! at any instant leaves the previous or the new set, never a mix, and nothing the tool did not write is
+//! touched or followed. Unix only: elsewhere the fallback writes file by file.
+#![cfg(unix)]
+
+use std::fs;
+use std::path::{Path, PathBuf};
+use std::process::{Command, Stdio};
+use std::time::{Duration, Instant};
+
+const SET: [&str; 3] = ["schedule.csv", "rafter-lines.csv", "schedule.pdf"];
+
+fn binary() -> PathBuf {
+    PathBuf::from(env!("CARGO_BIN_EXE_deckhold"))
+}
+
+fn fixture(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("../../fixtures")
+        .join(name)
+}
+
+fn run_into(project: Option<&Path>, out: &Path) -> Command {
+    let mut command = Command::new(binary());
+    command.arg("run");
+    if let Some(project) = project {
+        command.arg(project);
+    }
+    command
+        .arg("--out")
+        .arg(out)
+        .stdout(Stdio::null())
+        .stderr(Stdio::null());
+    command
+}
+
+/// The visible set's bytes, or None for a name that is absent.
+fn read_set(out: &Path) -> Vec<Option<Vec<u8>>> {
+    SET.iter()
+        .map(|name| fs::read(out.join(name)).ok())
+        .collect()
+}
+
+fn reference_set(project: Option<&Path>, folder: &Path) -> Vec<Option<Vec<u8>>> {
+    let status = run_into(project, folder).status().expect("runs");
+    assert!(status.success(), "the reference run works");
+    let set = read_set(folder);
+    assert!(
+        set.iter().all(Option::is_some),
+        "the reference set is whole"
+    );
+    set
+}
+
+/// Names in the state folder that are neither the lock, the current link nor the current generation.
+fn leftovers(out: &Path) -> Vec<String> {
+    let state = out.join(".deckhold");
+    let current = fs::read_link(state.join("current")).ok();
+    fs::read_dir(&state)
+        .map(|entries| {
+            entries
+                .filter_map(Result::ok)
+                .map(|entry| entry.file_name().to_string_lossy().to_string())
+                .filter(|name| {
+                    name != "lock"
+                        && name != "current"
+                        && Some(Path::new(name)) != current.as_deref()
+                })
+                .collect()
+        })
+        .unwrap_or_default()
+}
+
+#[test]
+fn eight_concurrent_runs_leave_one_whole_set_identical_to_a_single_run() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let single = reference_set(None, &folder.path().join("single"));
+    let out = folder.path().join("shared");
+    fs::create_dir(&out).expect("folder");
+    fs::write(out.join("notes.txt"), b"the owner's notes").expect("notes");
+    let children: Vec<_> = (0..8)
+        .map(|_| run_into(None, &out).spawn().expect("spawns"))
+        .collect();
+    for mut child in children {
+        assert!(child.wait().expect("waits").success(), "every run works");
+    }
+    assert_eq!(read_set(&out), single, "one whole set, byte-identical");
+    assert_eq!(
+        fs::read(out.join("notes.txt")).expect("notes"),
+        b"the owner's notes"
+    );
+    assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+}
+
+/// A small deterministic generator (xorshift), so a failure can be replayed from its seed.
+fn next(state: &mut u64) -> u64 {
+    *state ^= *state << 13;
+    *state ^= *state >> 7;
+    *state ^= *state << 17;
+    *state
+}
+
+#[test]
+fn runs_killed_at_random_instants_never_leave_a_mixed_set() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let us = fixture("us-hip.json");
+    let set_a = reference_set(None, &folder.path().join("a"));
+    let set_b = reference_set(Some(&us), &folder.path().join("b"));
+    assert_ne!(set_a, set_b, "the two projects give different sets");
+    let out = folder.path().join("killed");
+    // How long a whole run takes here, to spread the kills over it.
+    let started = Instant::now();
+    reference_set(None, &folder.path().join("timing"));
+    let run_us = started.elapsed().as_micros().max(1000) as u64;
+
+    let mut seed = 0x9e37_79b9_7f4a_7c15_u64;
+    let (mut killed, mut mixed, mut whole) = (0, 0, 0);
+    let rounds = 40;
+    for round in 0..rounds {
+        let project = (round % 2 == 1).then_some(us.as_path());
+        let mut child = run_into(project, &out).spawn().expect("spawns");
+        let delay_us = next(&mut seed) % (run_us + run_us / 4);
+        std::thread::sleep(Duration::from_micros(delay_us));
+        if child.try_wait().expect("polls").is_none() {
+            child.kill().expect("kills");
+            killed += 1;
+        }
+        let _ = child.wait();
+        let set = read_set(&out);
+        let nothing_yet = set.iter().all(Option::is_none);
+        if set == set_a || set == set_b || nothing_yet {
+            whole += 1;
+        } else {
+            mixed += 1;
+        }
+    }
+    // One more run that completes: it removes what the killed runs left behind.
+    assert!(run_into(None, &out).status().expect("runs").success());
+    assert_eq!(read_set(&out), set_a);
+    assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+    eprintln!(
+        "output sets: {rounds} runs, {killed} killed part-way, {whole} whole sets, {mixed} mixed"
+    );
+    assert_eq!(mixed, 0, "a killed run left a mixed set");
+    assert!(killed > 0, "some runs were killed part-way");
+}
+
+#[test]
+fn a_name_taken_by_a_folder_or_a_foreign_link_is_refused_and_left_alone() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("taken");
+    fs::create_dir_all(out.join("schedule.pdf")).expect("a folder named like the PDF");
+    let output = run_into(None, &out)
+        .stderr(Stdio::piped())
+        .output()
+        .expect("runs");
+    assert_eq!(output.status.code(), Some(2));
+    let message = String::from_utf8_lossy(&output.stderr);
+    assert!(
+        message.contains("schedule.pdf is taken by something that is not a file"),
+        "{message}"
+    );
+    assert!(out.join("schedule.pdf").is_dir());
+    assert!(!out.join("schedule.csv").exists(), "nothing half-written");
+
+    let out = folder.path().join("linked");
+    fs::create_dir(&out).expect("folder");
+    let target = folder.path().join("elsewhere.csv");
+    fs::write(&target, b"not ours").expect("target");
+    std::os::unix::fs::symlink(&target, out.join("schedule.csv")).expect("planted link");
+    let output = run_into(None, &out)
+        .stderr(Stdio::piped())
+        .output()
+        .expect("runs");
+    assert_eq!(output.status.code(), Some(2));
+    assert!(String::from_utf8_lossy(&output.stderr).contains("a link deckhold did not make"));
+    assert_eq!(
+        fs::read(&target).expect("target"),
+        b"not ours",
+        "never followed"
+    );
+}
+
+#[test]
+fn an_earlier_plain_file_is_replaced_and_a_planted_state_link_is_refused() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("earlier");
+    fs::create_dir(&out).expect("folder");
+    fs::write(out.join("schedule.csv"), b"an earlier schedule").expect("earlier file");
+    assert!(run_into(None, &out).status().expect("runs").success());
+    let single = reference_set(None, &folder.path().join("single"));
+    assert_eq!(read_set(&out), single);
+
+    let out = folder.path().join("planted");
+    fs::create_dir(&out).expect("folder");
+    let elsewhere = folder.path().join("elsewhere");
+    fs::create_dir(&elsewhere).expect("elsewhere");
+    std::os::unix::fs::symlink(&elsewhere, out.join(".deckhold")).expect("planted link");
+    assert_eq!(run_into(None, &out).status().expect("runs").code(), Some(2));
+    assert_eq!(
+        fs::read_dir(&elsewhere).expect("lists").count(),
+        0,
+        "nothing written through it"
+    );
+}
