@@ -109,6 +109,10 @@ pub struct CheckArgs {
     /// Spacing at intermediate supports, in.
     #[arg(long, requires = "edge_in")]
     pub intermediate_in: Option<f64>,
+    /// Retrofit: size the fasteners of this id (catalog or the project's `fasteners`) to add between
+    /// the existing ones, per zone and support role, so existing plus added carry the uplift.
+    #[arg(long)]
+    pub add: Option<String>,
     #[arg(long)]
     pub json: bool,
 }

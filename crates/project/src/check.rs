@@ -48,6 +48,27 @@ impl PatternCheck {
     }
 }
 
+/// The pattern's spacing for a zone index and support role. One spacing per zone of the analysis, looked
+/// up once: a zone the layout names is always one of these (the layout is built from the same zones), so
+/// no zone falls back to another's pattern.
+pub(crate) fn given_spacings(
+    wind: &WindAnalysis,
+    pattern: &ExistingPattern,
+) -> impl Fn(usize, SupportRole) -> Option<f64> {
+    let by_zone: Vec<_> = wind
+        .zones
+        .iter()
+        .map(|zone| pattern.for_zone(zone.label))
+        .collect();
+    move |zone_index: usize, role: SupportRole| -> Option<f64> {
+        let spacing = by_zone.get(zone_index)?;
+        Some(match role {
+            SupportRole::PanelEdge => spacing.edge_spacing_mm,
+            SupportRole::Intermediate => spacing.intermediate_spacing_mm,
+        })
+    }
+}
+
 /// Checks `pattern` on the project's roof with the wind already analysed.
 pub fn check_pattern(
     project: &Project,
@@ -61,20 +82,7 @@ pub fn check_pattern(
         deckhold_fasten::nail_resistance(&resistance_input(project, &nail, penetration_mm)?)?;
     let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
     let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
-    // One spacing per zone of the analysis, looked up once: a zone the layout names is always one
-    // of these (the layout is built from the same zones), so no zone falls back to another's pattern.
-    let by_zone: Vec<_> = wind
-        .zones
-        .iter()
-        .map(|zone| pattern.for_zone(zone.label))
-        .collect();
-    let given = |zone_index: usize, role: SupportRole| -> Option<f64> {
-        let spacing = by_zone.get(zone_index)?;
-        Some(match role {
-            SupportRole::PanelEdge => spacing.edge_spacing_mm,
-            SupportRole::Intermediate => spacing.intermediate_spacing_mm,
-        })
-    };
+    let given = given_spacings(wind, pattern);
     if pattern.credit <= 0.0 {
         return Err(crate::ProjectError::Invalid {
             path: "existing.credit".to_string(),

@@ -17,6 +17,9 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
     let pattern = pattern_from(args, project.existing.as_ref())?;
     let wind =
         deckhold_wind::analyze(&project.wind).context("the wind zones could not be computed")?;
+    if let Some(added_id) = &args.add {
+        return super::retrofit::run(&project, &wind, &pattern, added_id, args.json);
+    }
     let checked =
         check_pattern(&project, &wind, &pattern).context("the pattern could not be checked")?;
     let units = project.units;

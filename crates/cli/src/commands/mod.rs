@@ -5,6 +5,7 @@ pub mod catalog;
 pub mod check;
 pub mod compare;
 pub mod init;
+pub mod retrofit;
 pub mod run;
 pub mod zones;
 
