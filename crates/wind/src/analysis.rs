@@ -666,6 +666,9 @@ mod tests {
         // and zone 2 -2.4 (were -1.6 and -2.3); readings as named in docs/sources.md, not confirmed.
         let gable = input(RoofShape::Gable, 35.0, RidgeAlong::Length, asce_site(130.0));
         assert_relative_eq!(corner_cp_at_small_area(&gable, "3"), -3.2);
+        // Figure 30.3-2A zone 2: -2.5 (a public transcription) against -2.3 from memory.
+        let flat = input(RoofShape::Flat, 0.0, RidgeAlong::Length, asce_site(130.0));
+        assert_relative_eq!(corner_cp_at_small_area(&flat, "2"), -2.5);
         let hip = input(RoofShape::Hip, 15.0, RidgeAlong::Length, asce_site(130.0));
         assert_relative_eq!(corner_cp_at_small_area(&hip, "1"), -1.8);
         assert_relative_eq!(corner_cp_at_small_area(&hip, "2"), -2.4);

@@ -141,7 +141,7 @@ pub(crate) fn basis(
         Factor::new("dead_load_factor", dead_factor, dead_source),
     ];
     let mut warnings = vec![
-        "ASCE 7-22 GC_p curves are from memory or the more severe of two unconfirmed readings (severe-of-two: gable 27-45 zone 3, hip 7-20 zones 1 and 2); check them against the printed Figure 30.3-2 series or override them".to_string(),
+        "ASCE 7-22 GC_p curves are from memory or the more severe of two unconfirmed readings (severe-of-two: low-slope zone 2, gable 27-45 zone 3, hip 7-20 zones 1 and 2); check them against the printed Figure 30.3-2 series or override them".to_string(),
     ];
     if sloped && shape == RoofShape::Hip {
         warnings.push("ASCE 7-22 hip roofs: zone 3 is taken along every eave, not only at the corners (the more severe of two unconfirmed readings of the 7-22 hip zone map)".to_string());
