@@ -258,13 +258,15 @@ fn text_made_from_valid_documents_gets_past_the_json_syntax_and_each_refusal_nam
                         !message.starts_with("project file is not valid JSON"),
                         "{message}"
                     );
-                    // The message names the key touched, or (for a removed key that has a unit
-                    // variant, e.g. length_m / length_ft) its stem.
+                    // The message names the key touched by its whole path as written (or, for a removed
+                    // key that has a unit variant, e.g. length_m / length_ft, the path of its stem).
+                    let mut full = parent.to_vec();
+                    full.push(touched.clone());
                     let stem = key.rsplit_once('_').map_or(key.as_str(), |(stem, _)| stem);
+                    let mut stem_path = parent.to_vec();
+                    stem_path.push(stem.to_string());
                     prop_assert!(
-                        message.contains(touched.as_str())
-                            || message.contains(stem)
-                            || parent.iter().any(|p| message.contains(p.as_str())),
+                        message.contains(&full.join(".")) || message.contains(&stem_path.join(".")),
                         "{path:?} ({kind}): {message}"
                     );
                     Ok(true)

@@ -93,14 +93,19 @@ fn another(key: &str, value: &Value) -> Value {
     }
 }
 
+/// The project as the reader understood it: everything but the echo of the file as written (which changes
+/// with any key, read or not).
+fn as_read(project: &deckhold_project::Project) -> String {
+    let mut project = project.clone();
+    project.as_written = Value::Null;
+    format!("{project:?}")
+}
+
 #[test]
 fn every_key_of_both_templates_is_read() {
     for name in ["template-ca.json", "template-us.json"] {
         let original = template(name);
-        let base = format!(
-            "{:?}",
-            project_from_value(&original).unwrap_or_else(|e| panic!("{name}: {e}"))
-        );
+        let base = as_read(&project_from_value(&original).unwrap_or_else(|e| panic!("{name}: {e}")));
         let mut found = Vec::new();
         leaves(&original, &mut Vec::new(), &mut found);
         assert!(found.len() >= 40, "{name}: {} keys", found.len());
@@ -115,7 +120,7 @@ fn every_key_of_both_templates_is_read() {
             *at(&mut changed, path) = another(key, value);
             match project_from_value(&changed) {
                 Ok(project) => {
-                    if format!("{project:?}") == base {
+                    if as_read(&project) == base {
                         ignored.push(path.join("."));
                     }
                 }
