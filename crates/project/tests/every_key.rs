@@ -105,7 +105,8 @@ fn as_read(project: &deckhold_project::Project) -> String {
 fn every_key_of_both_templates_is_read() {
     for name in ["template-ca.json", "template-us.json"] {
         let original = template(name);
-        let base = as_read(&project_from_value(&original).unwrap_or_else(|e| panic!("{name}: {e}")));
+        let base =
+            as_read(&project_from_value(&original).unwrap_or_else(|e| panic!("{name}: {e}")));
         let mut found = Vec::new();
         leaves(&original, &mut Vec::new(), &mut found);
         assert!(found.len() >= 40, "{name}: {} keys", found.len());
