@@ -406,8 +406,8 @@ fn on_random_roofs_worse_zones_get_more_uplift_and_never_wider_nailing() {
 }
 
 #[test]
-#[ignore = "fails today on small hip roofs (a zone's intermediate supports get no practical spacing at \
-            1.34 kPa while the corner works): the hip framing model is issue 11/12's; un-ignore when it lands"]
+// Failed before the framing model of issue 11 (a 25 mm bay between a jack and the hip cut pried the
+// jack to three times its share, so the edge zone got no spacing while the corner did).
 fn on_random_hip_roofs_worse_zones_get_more_uplift_and_never_wider_nailing() {
     run_zone_ordering(&["hip"]);
 }

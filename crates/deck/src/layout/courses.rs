@@ -14,23 +14,25 @@ use super::{Course, DeckPiece, PanelInput, PanelStrip, Stagger, SupportRole};
 use crate::beam::strip_reactions;
 use crate::error::SpacingError;
 
-/// Reactions of strips already solved, keyed by their geometry rounded to 0.1 µm.
+/// Reactions of strips already solved, keyed by their geometry rounded to 0.1 nm: strips equal but
+/// for floating-point noise share one solution, and the rounding (at most 0.05 nm a length) keeps
+/// each strip's reactions equal to its load to better than 1e-9.
 #[derive(Debug, Default)]
 pub(crate) struct StripCache {
     solved: HashMap<Vec<i64>, Vec<f64>>,
 }
 
 fn to_key(length_m: f64) -> i64 {
-    // Lengths are at most a few metres here; 0.1 µm steps fit easily.
-    (length_m * 1e7).round() as i64
+    // Lengths are at most a few tens of metres here; 0.1 nm steps fit easily in an i64.
+    (length_m * 1e10).round() as i64
 }
 
 fn from_key(key: i64) -> f64 {
-    key as f64 * 1e-7
+    key as f64 * 1e-10
 }
 
 impl StripCache {
-    /// Unit-load reactions (tributary widths, m) of the strip; the geometry is rounded to 0.1 µm so
+    /// Unit-load reactions (tributary widths, m) of the strip; the geometry is rounded to 0.1 nm so
     /// that strips equal in practice share one solution.
     fn reactions(
         &mut self,
@@ -237,6 +239,13 @@ pub(crate) fn course_pieces(
     pieces
 }
 
+/// A strip of deck narrower than this between a hip or valley cut and the nearest line is a sliver:
+/// the line carries it as a short cantilever rather than as a span onto the hip or valley rafter.
+/// Taken as a span, a 25 mm bay next to a 610 mm one pries the line to three times its share
+/// (continuous-beam solution), which the two-way panel near the cut does not do. Common practice,
+/// no source.
+pub(crate) const SLIVER_M: f64 = 0.1;
+
 /// One side of a line inside one panel: the panel's extent across the lines at this course.
 struct PanelSide {
     from_m: f64,
@@ -334,7 +343,10 @@ pub(crate) fn bearing_at(
         let mut overhang_end_m = 0.0;
         let first = supports.first().copied().unwrap_or(position);
         if first - side.from_m > MIN_PIECE_M {
-            if deck.lo_oblique && near(side.from_m, deck.lo) {
+            if deck.lo_oblique
+                && near(side.from_m, deck.lo)
+                && (first - side.from_m) * frame.cross_factor >= SLIVER_M
+            {
                 supports.insert(0, side.from_m);
             } else {
                 overhang_start_m = first - side.from_m;
@@ -342,7 +354,10 @@ pub(crate) fn bearing_at(
         }
         let last = supports.last().copied().unwrap_or(position);
         if side.to_m - last > MIN_PIECE_M {
-            if deck.hi_oblique && near(side.to_m, deck.hi) {
+            if deck.hi_oblique
+                && near(side.to_m, deck.hi)
+                && (side.to_m - last) * frame.cross_factor >= SLIVER_M
+            {
                 supports.push(side.to_m);
             } else {
                 overhang_end_m = side.to_m - last;

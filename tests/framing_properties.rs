@@ -1,0 +1,243 @@
+//! Invariants of the framing and deck model on random rectangle roofs (gable, hip, monoslope, flat):
+//! length and width 3-40 m, slopes 0-45 deg (within each shape's range), framing 300-1220 mm,
+//! overhangs 0-900 mm. No outside source: these are properties any correct layout has.
+//! 1. every wall parallel to the framing carries a line; every line lies in its plane and ends on the
+//!    plane's boundary (eave, rake, ridge, hip or valley);
+//! 2. every panel end inside the deck lies on a line; the pieces of a course tile the deck across the
+//!    framing and the courses tile it up the slope; no piece is narrower than the minimum;
+//! 3. each course's strips hold exactly the deck of the course (reactions sum to the load);
+//! 5. any spacing at or below either overhang is laid out (never refused).
+
+use deckhold_deck::layout::{DeckLayout, LineKind};
+use deckhold_project::job::deck_layout;
+use deckhold_project::{parse_project, DEMO_PROJECT_JSON};
+use deckhold_wind::{RoofPlane, WindAnalysis};
+use proptest::prelude::*;
+use serde_json::{json, Value};
+
+fn cases(default: u32) -> u32 {
+    std::env::var("PROPTEST_CASES")
+        .ok()
+        .and_then(|text| text.parse().ok())
+        .unwrap_or(default)
+}
+
+#[derive(Debug, Clone)]
+struct Roof {
+    shape: &'static str,
+    length_m: f64,
+    width_m: f64,
+    slope_deg: f64,
+    spacing_mm: f64,
+    eave_mm: f64,
+    rake_mm: f64,
+}
+
+fn roofs() -> impl Strategy<Value = Roof> {
+    (
+        prop_oneof![Just("gable"), Just("hip"), Just("monoslope"), Just("flat")],
+        3.0f64..40.0,
+        3.0f64..40.0,
+        0.0f64..1.0,
+        300.0f64..1220.0,
+        0.0f64..900.0,
+        0.0f64..900.0,
+    )
+        .prop_map(|(shape, a, b, slope, spacing_mm, eave_mm, rake_mm)| {
+            // A hip's ridge runs along the longer side.
+            let (length_m, width_m) = if shape == "hip" {
+                (a.max(b), a.min(b))
+            } else {
+                (a, b)
+            };
+            let slope_deg = match shape {
+                "gable" | "hip" => 45.0 * slope,
+                "monoslope" => 3.0 * slope,
+                _ => 7.0 * slope,
+            };
+            Roof {
+                shape,
+                length_m,
+                width_m,
+                slope_deg,
+                spacing_mm,
+                eave_mm,
+                rake_mm,
+            }
+        })
+}
+
+/// The roof laid out; None when the wind method itself refuses the building (a mean roof height
+/// over the least plan dimension), which is outside what these properties are about.
+fn lay_out(roof: &Roof) -> Option<(WindAnalysis, DeckLayout, f64)> {
+    let mut value: Value = serde_json::from_str(DEMO_PROJECT_JSON).expect("demo JSON");
+    value["building"]["footprint"]["rectangle"] =
+        json!({ "length_m": roof.length_m, "width_m": roof.width_m });
+    value["roof"] = json!({
+        "shape": roof.shape,
+        "slope_deg": roof.slope_deg,
+        "ridge_along": "length",
+        "eave_overhang_mm": roof.eave_mm,
+        "rake_overhang_mm": roof.rake_mm,
+        "dead_load_kpa": 0.3
+    });
+    value["building"]["eave_height_m"] = json!(2.4);
+    value["framing"]["spacing_mm"] = json!(roof.spacing_mm);
+    let project = parse_project(&value.to_string()).expect("the roof parses");
+    let wind = deckhold_wind::analyze(&project.wind).ok()?;
+    let layout = deck_layout(&project, &wind).expect("laid out, never refused");
+    Some((wind, layout, project.deck.min_piece_mm))
+}
+
+fn distance_to_segment(p: [f64; 2], a: [f64; 2], b: [f64; 2]) -> f64 {
+    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
+    let t = (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy)).clamp(0.0, 1.0);
+    (p[0] - a[0] - t * dx).hypot(p[1] - a[1] - t * dy)
+}
+
+fn on_boundary(plane: &RoofPlane, p: [f64; 2]) -> bool {
+    plane
+        .edges
+        .iter()
+        .any(|edge| distance_to_segment(p, edge.from_m, edge.to_m) < 1e-5)
+}
+
+fn inside(polygon: &[[f64; 2]], p: [f64; 2]) -> bool {
+    let mut crossings = 0;
+    for (i, a) in polygon.iter().enumerate() {
+        let b = polygon[(i + 1) % polygon.len()];
+        if (a[1] > p[1]) != (b[1] > p[1]) {
+            let x = a[0] + (p[1] - a[1]) / (b[1] - a[1]) * (b[0] - a[0]);
+            if x > p[0] {
+                crossings += 1;
+            }
+        }
+    }
+    crossings % 2 == 1
+}
+
+proptest! {
+    #![proptest_config(ProptestConfig::with_cases(cases(24)))]
+
+    #[test]
+    fn walls_carry_members_and_lines_end_on_the_plane_boundary(roof in roofs()) {
+        let Some((wind, layout, _)) = lay_out(&roof) else {
+            return Err(TestCaseError::reject("the wind method refuses this building"));
+        };
+        for line in &layout.lines {
+            let plane = &wind.planes[line.plane_index];
+            prop_assert!(on_boundary(plane, line.plan_start_m), "line {} starts off the boundary", line.number);
+            prop_assert!(on_boundary(plane, line.plan_end_m), "line {} ends off the boundary", line.number);
+            let middle = [
+                0.5 * (line.plan_start_m[0] + line.plan_end_m[0]),
+                0.5 * (line.plan_start_m[1] + line.plan_end_m[1]),
+            ];
+            let nudged = [middle[0] + 1e-7, middle[1] + 1e-7];
+            prop_assert!(inside(&plane.polygon_m, middle) || inside(&plane.polygon_m, nudged));
+        }
+        // Gable, monoslope and flat: both walls parallel to the framing carry an end-wall member on
+        // every plane (the framing runs along y here: across the ridge, or the short way for a flat roof
+        // whose y side is the shorter one).
+        if roof.shape != "hip" {
+            for (plane_index, _) in wind.planes.iter().enumerate() {
+                let lines: Vec<_> = layout.lines.iter().filter(|l| l.plane_index == plane_index).collect();
+                let along_y = lines.first().is_some_and(|l| l.plan_start_m[0] == l.plan_end_m[0]);
+                let walls = if along_y { [0.0, roof.length_m] } else { [0.0, roof.width_m] };
+                for wall in walls {
+                    prop_assert!(
+                        lines.iter().any(|l| l.kind == LineKind::EndWall && (l.position_m - wall).abs() < 1e-9),
+                        "no member on the wall at {wall} m (plane {plane_index})"
+                    );
+                }
+                // Nothing in the rake overhang.
+                prop_assert!(lines.iter().all(|l| l.position_m >= -1e-9 && l.position_m <= walls[1] + 1e-9));
+            }
+        }
+    }
+
+    #[test]
+    fn pieces_tile_the_deck_end_on_lines_and_are_never_narrow(roof in roofs()) {
+        let Some((_, layout, min_piece_mm)) = lay_out(&roof) else {
+            return Err(TestCaseError::reject("the wind method refuses this building"));
+        };
+        for course in &layout.courses {
+            let pieces: Vec<_> = layout
+                .pieces
+                .iter()
+                .filter(|p| p.plane_index == course.plane_index && p.course == course.index)
+                .collect();
+            prop_assert!(!pieces.is_empty());
+            prop_assert_eq!(pieces[0].start_m, course.joints_m[0]);
+            prop_assert_eq!(pieces[pieces.len() - 1].end_m, course.joints_m[course.joints_m.len() - 1]);
+            for pair in pieces.windows(2) {
+                prop_assert_eq!(pair[0].end_m, pair[1].start_m, "pieces meet, no gap, no overlap");
+                prop_assert!(pair[0].end_line.is_some(), "an end joint off the framing");
+            }
+            for piece in &pieces {
+                prop_assert!(piece.end_m > piece.start_m);
+                prop_assert!(
+                    piece.length_m * 1000.0 >= min_piece_mm - 1e-6,
+                    "piece of {:.0} mm under the minimum {min_piece_mm} mm (course {})",
+                    piece.length_m * 1000.0,
+                    course.index
+                );
+            }
+        }
+        // Courses tile each plane up the slope.
+        for plane_index in 0..=layout.courses.iter().map(|c| c.plane_index).max().unwrap_or(0) {
+            let courses: Vec<_> = layout.courses.iter().filter(|c| c.plane_index == plane_index).collect();
+            prop_assert_eq!(courses[0].from_m, 0.0);
+            for pair in courses.windows(2) {
+                prop_assert_eq!(pair[0].to_m, pair[1].from_m);
+            }
+        }
+    }
+
+    #[test]
+    fn each_course_strips_hold_exactly_its_deck(roof in roofs()) {
+        // On the rectangular planes (not hip) every line crosses every course, so the reactions of a
+        // course's strips add up to the deck's length across the framing (unit load, widths in mm).
+        prop_assume!(roof.shape != "hip");
+        let Some((_, layout, _)) = lay_out(&roof) else {
+            return Err(TestCaseError::reject("the wind method refuses this building"));
+        };
+        for course in &layout.courses {
+            let total_mm: f64 = layout
+                .lines
+                .iter()
+                .filter(|l| l.plane_index == course.plane_index)
+                .flat_map(|l| l.bearings.iter().filter(|b| b.course_index == course.index))
+                .flat_map(|b| b.strips.iter().map(|s| s.reaction_width_mm))
+                .sum();
+            let pieces_mm: f64 = layout
+                .pieces
+                .iter()
+                .filter(|p| p.plane_index == course.plane_index && p.course == course.index)
+                .map(|p| p.length_m * 1000.0)
+                .sum();
+            prop_assert!(((total_mm - pieces_mm) / pieces_mm).abs() < 1e-9, "{total_mm} vs {pieces_mm}");
+        }
+    }
+
+    #[test]
+    fn a_spacing_at_or_below_either_overhang_is_laid_out(
+        shape in prop_oneof![Just("gable"), Just("flat")],
+        overhang_mm in 300.0f64..900.0,
+        below in 0.0f64..1.0,
+    ) {
+        let spacing_mm = 300.0 + below * (overhang_mm - 300.0);
+        let roof = Roof {
+            shape,
+            length_m: 12.0,
+            width_m: 8.0,
+            slope_deg: if shape == "gable" { 20.0 } else { 0.0 },
+            spacing_mm,
+            eave_mm: overhang_mm,
+            rake_mm: overhang_mm,
+        };
+        let Some((_, layout, _)) = lay_out(&roof) else {
+            return Err(TestCaseError::reject("the wind method refuses this building"));
+        };
+        prop_assert!(!layout.lines.is_empty());
+    }
+}
