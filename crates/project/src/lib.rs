@@ -8,6 +8,7 @@ pub mod basis;
 pub mod demo;
 pub mod error;
 pub mod fasteners;
+pub mod inputs;
 pub mod parse;
 pub mod project;
 pub mod reader;

@@ -11,10 +11,10 @@ use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_schedule::format::{feet_inches, m_to_ft, thickness_label, trimmed};
 use deckhold_schedule::Units;
 use deckhold_schedule::{
-    standard_cautions, BasisInfo, FactorRow, InputRow, LineRow, NailInfo, PlanLine, PlanView,
-    PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
+    standard_cautions, BasisInfo, FactorRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
+    ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
 };
-use deckhold_wind::{Footprint, SiteWind, WindAnalysis};
+use deckhold_wind::{Footprint, WindAnalysis};
 
 /// The report for the job's chosen nail.
 pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
@@ -42,7 +42,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
                         format!("{} ({})", factor.name, factor.unit)
                     },
                     value: factor.value,
-                    source: factor.source.clone(),
+                    source: factor.source.replace('`', ""),
                 })
                 .collect(),
         },
@@ -96,6 +96,10 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     }));
     provenance.extend(spacing_rule_sources(project.basis));
     provenance.dedup();
+    // The catalogs write ids in backticks for the docs; the report is plain text.
+    let plain = |text: &String| text.replace('`', "");
+    let provenance = provenance.iter().map(plain).collect();
+    let warnings = warnings.iter().map(plain).collect();
 
     Schedule {
         project: project.info.clone(),
@@ -127,7 +131,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
             .map(|factor| FactorRow {
                 name: factor.name.clone(),
                 value: factor.value,
-                source: factor.source.clone(),
+                source: factor.source.replace('`', ""),
             })
             .collect(),
         edge_width_m: wind.edge_width_m,
@@ -136,7 +140,8 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         lines,
         total_nail_count: plan.map_or(0, |plan| plan.total_nail_count),
         total_nail_mass_kg: plan.map_or(0.0, |plan| plan.total_nail_mass_kg),
-        inputs: input_rows(project),
+        inputs: crate::inputs::as_written_rows(&project.as_written),
+        derived: crate::inputs::derived_rows(project),
         provenance,
         warnings,
         feasible: outcome.feasible,
@@ -407,127 +412,6 @@ fn plan_point(line: &RafterLine, along_m: f64) -> [f64; 2] {
         line.plan_start_m[0] + (line.plan_end_m[0] - line.plan_start_m[0]) * fraction,
         line.plan_start_m[1] + (line.plan_end_m[1] - line.plan_start_m[1]) * fraction,
     ]
-}
-
-fn input_rows(project: &Project) -> Vec<InputRow> {
-    let row = |key: &str, value: String| InputRow {
-        key: key.to_string(),
-        value,
-    };
-    let wind = &project.wind;
-    let mut rows = vec![row("basis", project.basis.to_string())];
-    match &wind.building.footprint {
-        Footprint::Rectangle { length_m, width_m } => {
-            rows.push(row(
-                "building.footprint.rectangle.length_m",
-                format!("{length_m:.2} m"),
-            ));
-            rows.push(row(
-                "building.footprint.rectangle.width_m",
-                format!("{width_m:.2} m"),
-            ));
-        }
-        Footprint::Polygon { vertices_m } => {
-            rows.push(row(
-                "building.footprint.polygon_m",
-                format!("{} corners", vertices_m.len()),
-            ));
-        }
-    }
-    rows.push(row(
-        "building.eave_height_m",
-        format!("{:.2} m", wind.building.eave_height_m),
-    ));
-    rows.push(row(
-        "roof.shape",
-        format!("{:?}", wind.roof.shape).to_lowercase(),
-    ));
-    rows.push(row(
-        "roof.slope_deg",
-        format!("{:.1} deg", wind.roof.slope_deg),
-    ));
-    rows.push(row(
-        "roof.ridge_along",
-        format!("{:?}", wind.roof.ridge_along).to_lowercase(),
-    ));
-    rows.push(row(
-        "roof.eave_overhang_mm",
-        format!("{:.0} mm", wind.roof.eave_overhang_mm),
-    ));
-    rows.push(row(
-        "roof.rake_overhang_mm",
-        format!("{:.0} mm", wind.roof.rake_overhang_mm),
-    ));
-    rows.push(row(
-        "roof.dead_load_kpa",
-        format!("{:.2} kPa", wind.roof.dead_load_kpa),
-    ));
-    match &wind.site {
-        SiteWind::Nbc2020(site) => {
-            rows.push(row("wind.q50_kpa", format!("{:.2} kPa", site.q50_kpa)));
-            rows.push(row(
-                "wind.terrain",
-                format!("{:?}", site.terrain).to_lowercase(),
-            ));
-            rows.push(row(
-                "wind.topographic_factor",
-                format!("{:.2}", site.topographic_factor),
-            ));
-            rows.push(row(
-                "wind.importance",
-                format!("{:?}", site.importance).to_lowercase(),
-            ));
-            rows.push(row(
-                "wind.internal_category",
-                site.internal_category.to_string(),
-            ));
-        }
-        SiteWind::Asce722(site) => {
-            rows.push(row("wind.speed_mph", format!("{:.0} mph", site.speed_mph)));
-            rows.push(row("wind.exposure", format!("{:?}", site.exposure)));
-            rows.push(row("wind.kzt", format!("{:.2}", site.kzt)));
-            rows.push(row(
-                "wind.ground_elevation_ft",
-                format!("{:.0} ft", site.ground_elevation_ft),
-            ));
-            rows.push(row(
-                "wind.enclosure",
-                format!("{:?}", site.enclosure).to_lowercase(),
-            ));
-        }
-    }
-    for curve in &wind.overrides {
-        rows.push(row(
-            "coefficient_overrides",
-            format!("zone {} from {}", curve.code_zone, curve.source),
-        ));
-    }
-    let framing = &project.framing;
-    rows.push(row("framing.member", framing.member.as_str().to_string()));
-    rows.push(row(
-        "framing.spacing_mm",
-        format!("{:.0} mm o.c.", framing.spacing_mm),
-    ));
-    rows.push(row("framing.species", framing.species_id.clone()));
-    rows.push(row(
-        "framing.member_width_mm x member_depth_mm",
-        format!(
-            "{:.0} x {:.0} mm",
-            framing.member_width_mm, framing.member_depth_mm
-        ),
-    ));
-    rows.push(row("framing.toe_nailed", framing.toe_nailed.to_string()));
-    let deck = &project.deck;
-    rows.push(row("deck.panel", deck.panel_id.clone()));
-    rows.push(row(
-        "deck.thickness_mm",
-        format!("{:.1} mm", deck.thickness_mm),
-    ));
-    rows.push(row("deck.between_mm", format!("{:.1} mm", deck.between_mm)));
-    rows.push(row("deck.wet_service", deck.wet_service.to_string()));
-    rows.push(row("deck.treated", deck.treated.to_string()));
-    rows.push(row("nails", project.nails.join(", ")));
-    rows
 }
 
 /// When the chosen nail does not work everywhere: the candidates that do, or what to change.

@@ -232,7 +232,10 @@ pub struct Schedule {
     pub lines: Vec<LineRow>,
     pub total_nail_count: u64,
     pub total_nail_mass_kg: f64,
+    /// The keys the user wrote, with the values as written.
     pub inputs: Vec<InputRow>,
+    /// The values the tool used, derived from the inputs, in the report's units.
+    pub derived: Vec<InputRow>,
     /// Where every table value came from, one line each.
     pub provenance: Vec<String>,
     /// Things the engineer must look at (values from memory, nails exiting members, ...).

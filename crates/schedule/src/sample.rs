@@ -345,6 +345,10 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         lines,
         total_nail_count,
         total_nail_mass_kg: total_nail_count as f64 * 0.0046,
+        derived: vec![InputRow {
+            key: "framing spacing".to_string(),
+            value: "610 mm o.c.".to_string(),
+        }],
         inputs: vec![
             InputRow {
                 key: "building.length_m".to_string(),

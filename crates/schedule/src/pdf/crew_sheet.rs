@@ -5,7 +5,7 @@ use super::canvas::{Align, Area, Canvas, Stroke};
 use super::drawing::{draw_plan, role_words, swatch, zone_style, PlanNotes};
 use super::page::Frame;
 use super::text::{line_height_mm, wrap, Font};
-use crate::format::{fixed, mm_to_in, places, small_length_label, spacing_label, trimmed};
+use crate::format::{center_word, mass_label, on_center, small_length_label, spacing_label};
 use crate::{Schedule, SupportRole, Units, ZoneKind, ZoneRow};
 
 /// Share of the body width given to the drawing.
@@ -85,19 +85,12 @@ pub(crate) fn crew_sheet(
         15.0,
         Align::Left,
     );
-    let framing = if imperial {
-        format!(
-            "{} in ({} mm)",
-            trimmed(mm_to_in(schedule.framing_spacing_mm), 2),
-            fixed(schedule.framing_spacing_mm, 0)
-        )
-    } else {
-        format!("{} mm", fixed(schedule.framing_spacing_mm, 0))
-    };
+    let framing = spacing_label(Some(schedule.framing_spacing_mm), imperial);
     let subtitle = format!(
-        "{} at {} on centre   \u{00B7}   {}   \u{00B7}   edge zones {} wide",
+        "{} at {} {}   \u{00B7}   {}   \u{00B7}   edge zones {} wide",
         capitalized(&crate::format::plural(&schedule.framing_member)),
         framing,
+        on_center(imperial),
         schedule.deck_description,
         crate::format::plan_length_label(schedule.edge_width_m, imperial)
     );
@@ -343,7 +336,7 @@ fn infeasible_box(canvas: &mut Canvas, schedule: &Schedule, column: Area, y: f64
     y - used - 3.0
 }
 
-/// A spacing cell: the lead value in bold, the SI twin beneath when imperial leads.
+/// A spacing cell in bold, in the report's units.
 fn spacing_cell(canvas: &mut Canvas, x: f64, top: f64, row: Option<&ZoneRow>, imperial: bool) {
     let Some(row) = row else {
         canvas.text(x, top - 4.5, "\u{2013}", Font::Regular, 11.0, Align::Left);
@@ -351,22 +344,10 @@ fn spacing_cell(canvas: &mut Canvas, x: f64, top: f64, row: Option<&ZoneRow>, im
     };
     match row.spacing_mm {
         None => canvas.text(x, top - 4.5, "NONE", Font::Bold, 11.0, Align::Left),
-        Some(mm) if imperial => {
-            let inches = format!("{} in", trimmed(mm_to_in(mm), places::SPACING_IN));
-            canvas.text(x, top - 4.3, &inches, Font::Bold, 11.0, Align::Left);
-            canvas.text(
-                x,
-                top - 7.4,
-                &format!("({} mm)", fixed(mm, places::SPACING_MM)),
-                Font::Regular,
-                7.0,
-                Align::Left,
-            );
-        }
         Some(mm) => canvas.text(
             x,
             top - 4.5,
-            &spacing_label(Some(mm), false),
+            &spacing_label(Some(mm), imperial),
             Font::Bold,
             11.0,
             Align::Left,
@@ -384,7 +365,11 @@ fn spacing_table(
     canvas.text_grey(
         column.x,
         y - 2.8,
-        "SPACING ALONG EACH SUPPORT, CENTRE TO CENTRE",
+        &format!(
+            "SPACING ALONG EACH SUPPORT, {} TO {}",
+            center_word(imperial).to_uppercase(),
+            center_word(imperial).to_uppercase()
+        ),
         Font::Bold,
         8.0,
         Align::Left,
@@ -417,7 +402,7 @@ fn spacing_table(
     canvas.text(nails_x, header_base, "nails", Font::Bold, 8.0, Align::Right);
     y -= 4.4;
     canvas.line([column.x, y], [column.right(), y], 0.35, 0.0, Stroke::Solid);
-    let row_h = if imperial { 9.0 } else { 7.0 };
+    let row_h = 7.0;
     for line in zone_lines(schedule) {
         let top = y;
         let style = zone_style(line.label);
@@ -450,15 +435,7 @@ fn spacing_table(
         y -= row_h;
         canvas.line([column.x, y], [column.right(), y], 0.12, 0.5, Stroke::Solid);
     }
-    let mass = if imperial {
-        format!(
-            "{} lb ({} kg)",
-            fixed(schedule.total_nail_mass_kg / 0.453_592_37, places::MASS_KG),
-            fixed(schedule.total_nail_mass_kg, places::MASS_KG)
-        )
-    } else {
-        format!("{} kg", fixed(schedule.total_nail_mass_kg, places::MASS_KG))
-    };
+    let mass = mass_label(schedule.total_nail_mass_kg, imperial);
     y -= 3.6;
     canvas.text(
         column.right(),

@@ -4,17 +4,13 @@
 use super::canvas::{Align, Canvas};
 use super::flow::{Column, Flow, Row, TableLook};
 use super::page::Frame;
-use crate::format::{fixed, m_to_ft, places, spacing_label};
+use crate::format::{feet_inches, fixed, places, spacing_label};
 use crate::{Schedule, Units};
 
-/// A plan or slope length in the lead unit, the SI twin in brackets when imperial leads.
+/// A plan or slope length in the report's units: feet-inches, or metres.
 fn length(m: f64, imperial: bool) -> String {
     if imperial {
-        format!(
-            "{} ({})",
-            fixed(m_to_ft(m), places::LENGTH_FT),
-            fixed(m, places::LENGTH_M)
-        )
+        feet_inches(m)
     } else {
         fixed(m, places::LENGTH_M)
     }
@@ -23,7 +19,7 @@ fn length(m: f64, imperial: bool) -> String {
 /// Lays out the line table pages.
 pub(crate) fn line_table(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
     let imperial = schedule.basis.units == Units::Imperial;
-    let unit = if imperial { "ft (m)" } else { "m" };
+    let unit = if imperial { "ft-in" } else { "m" };
     let member = &schedule.framing_member;
     let mut flow = Flow::new(frame);
     flow.title(&format!("{} LINE TABLE", member.to_uppercase()));

@@ -1,0 +1,169 @@
+//! "Inputs as given" and "values used": the design basis shows the keys the user wrote, with the values as
+//! written (units and all), and then the values the tool derived from them, in the report's units. A plan
+//! checker reads the first against the drawings and the second against the method.
+
+use crate::project::{Project, StaggerChoice};
+use deckhold_schedule::format::{
+    plan_length_label, pressure_label, small_length_label, spacing_label, thickness_label,
+};
+use deckhold_schedule::InputRow;
+use deckhold_wind::Footprint;
+use serde_json::Value;
+
+/// Every key the user wrote, as a dotted path (`roof.slope`, `building.footprint.rectangle.length_ft`),
+/// with its value as written. A list of plain values stays on one line; the `project` block (names and
+/// date) is shown in its own table and left out here.
+pub fn as_written_rows(as_written: &Value) -> Vec<InputRow> {
+    let mut rows = Vec::new();
+    if let Value::Object(map) = as_written {
+        for (key, value) in map {
+            if key != "project" {
+                flatten(key, value, &mut rows);
+            }
+        }
+    }
+    rows
+}
+
+fn flatten(path: &str, value: &Value, rows: &mut Vec<InputRow>) {
+    let scalar_list = |items: &[Value]| {
+        items
+            .iter()
+            .all(|item| !item.is_object() && !item.is_array())
+    };
+    match value {
+        Value::Object(map) => {
+            for (key, inner) in map {
+                flatten(&format!("{path}.{key}"), inner, rows);
+            }
+        }
+        Value::Array(items) if !scalar_list(items) => {
+            for (index, inner) in items.iter().enumerate() {
+                flatten(&format!("{path}[{index}]"), inner, rows);
+            }
+        }
+        Value::String(text) => rows.push(InputRow {
+            key: path.to_string(),
+            value: text.clone(),
+        }),
+        other => rows.push(InputRow {
+            key: path.to_string(),
+            value: other.to_string().replace('"', "").replace(',', ", "),
+        }),
+    }
+}
+
+/// The values the tool used, derived from the inputs (defaults filled in, slopes in degrees), in the
+/// report's units.
+pub fn derived_rows(project: &Project) -> Vec<InputRow> {
+    let us = project.units.is_us();
+    let row = |key: &str, value: String| InputRow {
+        key: key.to_string(),
+        value,
+    };
+    let wind = &project.wind;
+    let mut rows = Vec::new();
+    match &wind.building.footprint {
+        Footprint::Rectangle { length_m, width_m } => {
+            rows.push(row("building length", plan_length_label(*length_m, us)));
+            rows.push(row("building width", plan_length_label(*width_m, us)));
+        }
+        Footprint::Polygon { vertices_m } => {
+            rows.push(row(
+                "building outline",
+                format!("{} corners", vertices_m.len()),
+            ));
+        }
+    }
+    rows.push(row(
+        "eave height",
+        plan_length_label(wind.building.eave_height_m, us),
+    ));
+    rows.push(row("roof slope", format!("{:.1} deg", wind.roof.slope_deg)));
+    rows.push(row(
+        "eave overhang",
+        plan_length_label(wind.roof.eave_overhang_mm / 1000.0, us),
+    ));
+    rows.push(row(
+        "rake overhang",
+        plan_length_label(wind.roof.rake_overhang_mm / 1000.0, us),
+    ));
+    rows.push(row(
+        "roof dead load",
+        pressure_label(wind.roof.dead_load_kpa, us),
+    ));
+    let framing = &project.framing;
+    rows.push(row(
+        "framing spacing",
+        format!("{} o.c.", spacing_label(Some(framing.spacing_mm), us)),
+    ));
+    rows.push(row(
+        "member face x depth",
+        format!(
+            "{} x {}",
+            small_length_label(framing.member_width_mm, us),
+            small_length_label(framing.member_depth_mm, us)
+        ),
+    ));
+    rows.push(row("toe-nailed", framing.toe_nailed.to_string()));
+    let deck = &project.deck;
+    rows.push(row(
+        "deck thickness",
+        thickness_label(deck.thickness_mm, us),
+    ));
+    rows.push(row(
+        "panel size",
+        format!(
+            "{} x {}",
+            plan_length_label(deck.panel_width_mm / 1000.0, us),
+            plan_length_label(deck.panel_length_mm / 1000.0, us)
+        ),
+    ));
+    let stagger = match deck.stagger {
+        StaggerChoice::Half => "half a panel".to_string(),
+        StaggerChoice::None => "none".to_string(),
+        StaggerChoice::OffsetMm(offset_mm) => plan_length_label(offset_mm / 1000.0, us),
+    };
+    rows.push(row("end-joint stagger", stagger));
+    rows.push(row(
+        "layer between deck and framing",
+        small_length_label(deck.between_mm, us),
+    ));
+    rows.push(row("wet service", deck.wet_service.to_string()));
+    rows.push(row("treated framing", deck.treated.to_string()));
+    rows.push(row("candidate nails", project.nails.join(", ")));
+    rows
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn keys_and_values_are_kept_as_written() {
+        let value: Value = serde_json::from_str(
+            r#"{"project": {"name": "x"}, "roof": {"slope": "6:12", "overhang_in": 18},
+                "building": {"footprint": {"polygon_ft": [[0, 0], [40, 0]]}}, "nails": ["8d-common", "10d-common"]}"#,
+        )
+        .expect("JSON");
+        let rows = as_written_rows(&value);
+        let text: Vec<String> = rows
+            .iter()
+            .map(|row| format!("{} = {}", row.key, row.value))
+            .collect();
+        assert!(text.contains(&"roof.slope = 6:12".to_string()), "{text:?}");
+        assert!(
+            text.contains(&"roof.overhang_in = 18".to_string()),
+            "{text:?}"
+        );
+        assert!(
+            text.contains(&"building.footprint.polygon_ft[0] = [0, 0]".to_string()),
+            "{text:?}"
+        );
+        assert!(
+            text.contains(&"nails = [8d-common, 10d-common]".to_string()),
+            "{text:?}"
+        );
+        assert!(!text.iter().any(|line| line.starts_with("project")));
+    }
+}
