@@ -59,6 +59,8 @@ pub enum Command {
     Catalog(CatalogArgs),
     /// Write a complete example project file to start from.
     Init(InitArgs),
+    /// Print the limits every input is held to, each with its reason or source.
+    Limits,
 }
 
 #[derive(Debug, Args)]

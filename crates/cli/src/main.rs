@@ -33,6 +33,7 @@ fn main() -> ExitCode {
         Command::Capacity(args) => commands::capacity::run(&args, units),
         Command::Catalog(args) => commands::catalog::run(&args),
         Command::Init(args) => commands::init::run(&args),
+        Command::Limits => commands::limits::run(),
     };
     let result = result.and_then(|outcome| console::flush_out().map(|()| outcome));
     match result {

@@ -458,6 +458,19 @@ pub const ALL: &[Limit] = &[
     FASTENER_WITHDRAWAL_N_PER_MM,
 ];
 
+/// The table as Markdown: what `deckhold limits` prints and docs/project-format.md carries.
+pub fn markdown_table() -> String {
+    let mut text = String::from("| applies to | range | reason or source |\n|---|---|---|\n");
+    for limit in ALL {
+        text.push_str(&format!(
+            "| `{}` | {limit} | {} |\n",
+            limit.key,
+            limit.reason.replace('|', "/")
+        ));
+    }
+    text
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

@@ -7,8 +7,13 @@ use thiserror::Error;
 pub enum ProjectError {
     #[error("project file is not valid JSON: {0}")]
     Json(String),
-    #[error("{path}: unknown key (allowed here: {allowed})")]
-    UnknownKey { path: String, allowed: String },
+    #[error("{path}: unknown key{suggestion} (allowed here: {allowed})")]
+    UnknownKey {
+        path: String,
+        /// `; did you mean "length_m"?` when an allowed key is near, else empty.
+        suggestion: String,
+        allowed: String,
+    },
     #[error("{path}: missing (required)")]
     Missing { path: String },
     #[error("{path}: expected {expected}")]

@@ -79,13 +79,23 @@ fn read_info(root: &ObjectReader) -> Result<ProjectInfo, ProjectError> {
         });
     };
     let text = |key: &str| -> Result<String, ProjectError> {
-        Ok(block.string(key)?.unwrap_or_default().to_string())
+        let text = block.string(key)?.unwrap_or_default();
+        let limit = if key == "notes" {
+            limits::NOTES_CHARS
+        } else {
+            limits::TEXT_CHARS
+        };
+        limit.check_count(&block.key_path(key), text.chars().count())?;
+        Ok(text.to_string())
     };
     let date = block.string("date")?.unwrap_or(DEFAULT_DATE).to_string();
     if !is_iso_date(&date) {
         return Err(ProjectError::Invalid {
             path: "project.date".to_string(),
-            message: format!("'{date}' is not a date in the form YYYY-MM-DD"),
+            message: format!(
+                "'{}' is not a calendar date in the form YYYY-MM-DD",
+                crate::reader::escape_text(&date)
+            ),
         });
     }
     let info = ProjectInfo {
@@ -105,8 +115,26 @@ fn is_iso_date(text: &str) -> bool {
     if parts.len() != 3 || parts[0].len() != 4 || parts[1].len() != 2 || parts[2].len() != 2 {
         return false;
     }
+    if !parts
+        .iter()
+        .all(|part| part.bytes().all(|b| b.is_ascii_digit()))
+    {
+        return false;
+    }
     let numbers: Option<Vec<u32>> = parts.iter().map(|part| part.parse().ok()).collect();
-    matches!(numbers.as_deref(), Some([_, month, day]) if (1..=12).contains(month) && (1..=31).contains(day))
+    let Some([year, month, day]) = numbers.as_deref() else {
+        return false;
+    };
+    // Gregorian calendar: days per month, February 29 in leap years only.
+    let leap = (year % 4 == 0 && year % 100 != 0) || year % 400 == 0;
+    let days = match month {
+        1 | 3 | 5 | 7 | 8 | 10 | 12 => 31,
+        4 | 6 | 9 | 11 => 30,
+        2 if leap => 29,
+        2 => 28,
+        _ => return false,
+    };
+    (1..=days).contains(day)
 }
 
 fn read_building(block: &ObjectReader) -> Result<Building, ProjectError> {
@@ -356,6 +384,7 @@ fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectErro
             expected: "a list of { code_zone, points, source }".to_string(),
         });
     };
+    limits::OVERRIDES_COUNT.check_count("coefficient_overrides", items.len())?;
     items
         .iter()
         .enumerate()
@@ -380,6 +409,7 @@ fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectErro
                     expected: "a list of { area_m2, coefficient }".to_string(),
                 });
             };
+            limits::CURVE_POINTS.check_count(&format!("{path}.points"), raw_points.len())?;
             if raw_points.is_empty() {
                 return Err(ProjectError::Missing {
                     path: format!("{path}.points[0]"),
@@ -559,6 +589,7 @@ fn read_nails(root: &ObjectReader, stated: &[Nail]) -> Result<Vec<String>, Proje
             path: "nails[0]".to_string(),
         });
     }
+    limits::NAILS_COUNT.check_count("nails", items.len())?;
     items
         .iter()
         .enumerate()

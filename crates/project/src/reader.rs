@@ -3,7 +3,7 @@
 
 use crate::error::ProjectError;
 use crate::units::Quantity;
-use deckhold_core::limits::Limit;
+use deckhold_core::limits::{self, Limit};
 use serde_json::{Map, Value};
 use std::cell::RefCell;
 use std::collections::BTreeSet;
@@ -14,6 +14,8 @@ pub struct ObjectReader<'a> {
     path: String,
     map: &'a Map<String, Value>,
     used: RefCell<BTreeSet<&'a str>>,
+    /// Every key the parser asked for here, present or not: the keys allowed at this place.
+    asked: RefCell<BTreeSet<String>>,
 }
 
 impl<'a> ObjectReader<'a> {
@@ -24,6 +26,7 @@ impl<'a> ObjectReader<'a> {
                 path: path.to_string(),
                 map,
                 used: RefCell::new(BTreeSet::new()),
+                asked: RefCell::new(BTreeSet::new()),
             }),
             _ => Err(ProjectError::WrongType {
                 path: display_path(path),
@@ -43,19 +46,55 @@ impl<'a> ObjectReader<'a> {
 
     /// The raw value of `key`, marking it as read.
     pub fn get(&self, key: &str) -> Option<&'a Value> {
+        self.asked.borrow_mut().insert(key.to_string());
         let (stored_key, value) = self.map.get_key_value(key)?;
         self.used.borrow_mut().insert(stored_key.as_str());
         Some(value)
     }
 
     pub fn has(&self, key: &str) -> bool {
+        self.asked.borrow_mut().insert(key.to_string());
         self.map.contains_key(key)
     }
 
     pub fn require(&self, key: &str) -> Result<&'a Value, ProjectError> {
-        self.get(key).ok_or_else(|| ProjectError::Missing {
-            path: self.key_path(key),
-        })
+        self.get(key).ok_or_else(|| self.missing(key))
+    }
+
+    /// `key` is required and absent: if a key nobody asked for is near it, that key is a misspelling of
+    /// it and is named (`roof.slop_deg: unknown key; did you mean "slope_deg"?`), else `key` is missing.
+    pub fn missing(&self, key: &str) -> ProjectError {
+        let asked = self.asked.borrow();
+        let typo = self
+            .map
+            .keys()
+            .filter(|written| !asked.contains(written.as_str()))
+            .find(|written| is_near(written, key));
+        match typo {
+            Some(written) => self.unknown_key(written),
+            None => ProjectError::Missing {
+                path: self.key_path(key),
+            },
+        }
+    }
+
+    fn unknown_key(&self, written: &str) -> ProjectError {
+        let asked = self.asked.borrow();
+        let nearest = asked
+            .iter()
+            .filter(|allowed| is_near(written, allowed))
+            .max_by(|a, b| {
+                strsim::jaro_winkler(written, a).total_cmp(&strsim::jaro_winkler(written, b))
+            });
+        ProjectError::UnknownKey {
+            path: self.key_path(&escape_text(written)),
+            suggestion: nearest.map_or(String::new(), |key| format!("; did you mean \"{key}\"?")),
+            allowed: if asked.is_empty() {
+                "none".to_string()
+            } else {
+                asked.iter().cloned().collect::<Vec<_>>().join(", ")
+            },
+        }
     }
 
     /// A nested object, if present.
@@ -67,15 +106,16 @@ impl<'a> ObjectReader<'a> {
     }
 
     pub fn require_object(&self, key: &str) -> Result<ObjectReader<'a>, ProjectError> {
-        self.object(key)?.ok_or_else(|| ProjectError::Missing {
-            path: self.key_path(key),
-        })
+        self.object(key)?.ok_or_else(|| self.missing(key))
     }
 
     pub fn string(&self, key: &str) -> Result<Option<&'a str>, ProjectError> {
         match self.get(key) {
             None => Ok(None),
-            Some(Value::String(text)) => Ok(Some(text.as_str())),
+            Some(Value::String(text)) => {
+                limits::NOTES_CHARS.check_count(&self.key_path(key), text.chars().count())?;
+                Ok(Some(text.as_str()))
+            }
             Some(_) => Err(self.wrong_type(key, "a string")),
         }
     }
@@ -176,9 +216,7 @@ impl<'a> ObjectReader<'a> {
         limit: &Limit,
     ) -> Result<f64, ProjectError> {
         self.quantity(stem, quantity, limit)?
-            .ok_or_else(|| ProjectError::Missing {
-                path: self.key_path(&format!("{stem}_{}", quantity.si_suffix())),
-            })
+            .ok_or_else(|| self.missing(&format!("{stem}_{}", quantity.si_suffix())))
     }
 
     fn raw_number(&self, key: &str) -> Result<f64, ProjectError> {
@@ -193,21 +231,35 @@ impl<'a> ObjectReader<'a> {
         }
     }
 
-    /// Call when done: any key that was never read is an error (misspelt or unsupported).
+    /// Call when done: any key that was never read is an error (misspelt or unsupported), named with the
+    /// nearest allowed key and every key allowed here.
     pub fn finish(&self) -> Result<(), ProjectError> {
         let used = self.used.borrow();
-        if let Some(unknown) = self.map.keys().find(|key| !used.contains(key.as_str())) {
-            return Err(ProjectError::UnknownKey {
-                path: self.key_path(unknown),
-                allowed: if used.is_empty() {
-                    "none".to_string()
-                } else {
-                    used.iter().copied().collect::<Vec<_>>().join(", ")
-                },
-            });
+        match self.map.keys().find(|key| !used.contains(key.as_str())) {
+            Some(unknown) => Err(self.unknown_key(unknown)),
+            None => Ok(()),
         }
-        Ok(())
     }
+}
+
+/// Near enough to be a misspelling: a couple of edits, or the same word with small differences.
+pub fn is_near(written: &str, allowed: &str) -> bool {
+    written != allowed
+        && (strsim::levenshtein(written, allowed) <= 2
+            || strsim::jaro_winkler(written, allowed) >= 0.9)
+}
+
+/// User text as it may be shown in a message: control characters (terminal escapes) written as `\u{1b}`.
+pub fn escape_text(text: &str) -> String {
+    text.chars()
+        .flat_map(|c| {
+            if c.is_control() {
+                c.escape_unicode().collect::<Vec<_>>()
+            } else {
+                vec![c]
+            }
+        })
+        .collect()
 }
 
 fn display_path(path: &str) -> String {

@@ -5,6 +5,7 @@ pub mod catalog;
 pub mod check;
 pub mod compare;
 pub mod init;
+pub mod limits;
 pub mod retrofit;
 pub mod run;
 pub mod zones;
@@ -21,8 +22,7 @@ pub fn load_project(path: Option<&Path>, units: Option<Units>) -> Result<Project
     let mut project = match path {
         None => parse_project(DEMO_PROJECT_JSON).context("the built-in demo project")?,
         Some(path) => {
-            let text = std::fs::read_to_string(path)
-                .with_context(|| format!("cannot read the project file {}", path.display()))?;
+            let text = read_bounded(path)?;
             parse_project(&text).with_context(|| format!("in {}", path.display()))?
         }
     };
@@ -30,6 +30,34 @@ pub fn load_project(path: Option<&Path>, units: Option<Units>) -> Result<Project
         project.units = units;
     }
     Ok(project)
+}
+
+/// Reads a project file as text, stopping at the file-size limit: a huge file or an endless stream
+/// (`/dev/zero`) is refused at once instead of filling memory.
+pub fn read_bounded(path: &Path) -> Result<String> {
+    use std::io::Read;
+    let limit = deckhold_core::limits::FILE_SIZE;
+    let max_bytes = limit.max_count();
+    let file = std::fs::File::open(path)
+        .with_context(|| format!("cannot read the project file {}", path.display()))?;
+    let mut bytes = Vec::new();
+    file.take(max_bytes as u64 + 1)
+        .read_to_end(&mut bytes)
+        .with_context(|| format!("cannot read the project file {}", path.display()))?;
+    if bytes.len() > max_bytes {
+        anyhow::bail!(
+            "the project file {} is larger than {max_bytes} bytes, the limit for a project file ({})",
+            path.display(),
+            limit.reason
+        );
+    }
+    String::from_utf8(bytes).map_err(|error| {
+        anyhow::anyhow!(
+            "the project file {} is not UTF-8 text (invalid byte at offset {})",
+            path.display(),
+            error.utf8_error().valid_up_to()
+        )
+    })
 }
 
 /// The cautions printed under every table.

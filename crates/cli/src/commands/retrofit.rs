@@ -21,13 +21,13 @@ pub fn run(
     let retrofit = plan_retrofit(project, wind, pattern, added_id)
         .with_context(|| format!("the retrofit with `{added_id}` could not be sized"))?;
     if as_json {
-        println!(
+        outln!(
             "{}",
             serde_json::to_string_pretty(&to_json(project, &retrofit))?
         );
     } else {
-        print!("{}", console_text(project, &retrofit));
-        print!("{}", caution_lines());
+        out!("{}", console_text(project, &retrofit));
+        out!("{}", caution_lines());
     }
     Ok(if retrofit.passes() {
         Outcome::Works
