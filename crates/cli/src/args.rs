@@ -15,7 +15,8 @@ use std::path::PathBuf;
     about,
     long_about,
     after_help = "Exit status: 0 done, every zone works; 1 the design does not work (a plan check fails, or no \
-                  practical spacing works in some zone); 2 the input was refused.\n\
+                  practical spacing works in some zone); 2 the input was refused. For batch: 0 every roof ok, \
+                  1 some roof fails, 2 some row refused.\n\
                   Without PROJECT, run, zones and compare use the built-in demo project (invented)."
 )]
 pub struct Cli {
@@ -47,6 +48,8 @@ impl UnitsArg {
 pub enum Command {
     /// Run the whole job: zones, nail resistance, spacing; write the CSV and PDF schedule.
     Run(RunArgs),
+    /// Run many roofs: each row of a CSV file sets keys of a base project; writes summary.csv.
+    Batch(BatchArgs),
     /// Show the roof's wind zones and their net design uplift.
     Zones(ZonesArgs),
     /// Plan-check an existing or proposed nailing pattern (exit 1 when any zone fails).
@@ -72,6 +75,32 @@ pub struct RunArgs {
     pub out: Option<PathBuf>,
     /// Print the schedule as JSON instead of a table.
     #[arg(long)]
+    pub json: bool,
+    /// Print how long each stage took, to stderr.
+    #[arg(long)]
+    pub timings: bool,
+}
+
+#[derive(Debug, Args)]
+pub struct BatchArgs {
+    /// The roofs (CSV): an `id` column, and columns named by project-file key paths (`roof.slope`,
+    /// `framing.spacing_in`, `nails` as `a;b;c`, ...) whose cells replace the base project's value.
+    pub roofs: PathBuf,
+    /// The base project file (JSON) every row starts from.
+    #[arg(long)]
+    pub base: PathBuf,
+    /// Folder for summary.csv (and, with --pdf, a folder per roof). Without it, summary.csv goes to
+    /// standard output.
+    #[arg(long)]
+    pub out: Option<PathBuf>,
+    /// Also write each worked roof's schedule.csv, rafter-lines.csv and schedule.pdf into OUT/ID/.
+    #[arg(long, requires = "out")]
+    pub pdf: bool,
+    /// Roofs worked at once (default: the number of cores).
+    #[arg(long, value_parser = clap::value_parser!(u16).range(1..=64))]
+    pub jobs: Option<u16>,
+    /// Print the counts (ok, fails, refused) as JSON on standard output.
+    #[arg(long, requires = "out")]
     pub json: bool,
     /// Print how long each stage took, to stderr.
     #[arg(long)]
@@ -214,9 +243,13 @@ pub struct CatalogArgs {
 
 #[derive(Debug, Args)]
 pub struct InitArgs {
-    /// Where to write the example project (default: project.json). An existing file is not overwritten.
+    /// Where to write the example (default: project.json, or roofs.csv with --batch). An existing file
+    /// is not overwritten.
     pub path: Option<PathBuf>,
     /// Write the US-basis example (ASCE 7-22 with NDS) instead of the Canadian one.
-    #[arg(long)]
+    #[arg(long, conflicts_with = "batch")]
     pub us: bool,
+    /// Write an example batch file (roofs.csv) for `deckhold batch` instead of a project.
+    #[arg(long)]
+    pub batch: bool,
 }

@@ -6,6 +6,7 @@
 mod args;
 #[macro_use]
 mod console;
+mod batch;
 mod commands;
 mod output;
 mod table;
@@ -20,6 +21,8 @@ use args::{Cli, Command};
 pub enum Outcome {
     Works,
     DoesNotWork,
+    /// Some of the input was refused, and the output says where (a batch row); exit 2 without an error.
+    PartlyRefused,
 }
 
 fn main() -> ExitCode {
@@ -27,6 +30,7 @@ fn main() -> ExitCode {
     let units = cli.units.map(args::UnitsArg::units);
     let result = match cli.command {
         Command::Run(args) => commands::run::run(&args, units),
+        Command::Batch(args) => commands::batch::run(&args),
         Command::Zones(args) => commands::zones::run(&args, units),
         Command::Check(args) => commands::check::run(&args, units),
         Command::Compare(args) => commands::compare::run(&args, units),
@@ -39,6 +43,7 @@ fn main() -> ExitCode {
     match result {
         Ok(Outcome::Works) => ExitCode::SUCCESS,
         Ok(Outcome::DoesNotWork) => ExitCode::from(1),
+        Ok(Outcome::PartlyRefused) => ExitCode::from(2),
         // The reader of our output went away (`deckhold zones | head -1`): stop quietly, as the shell's
         // own tools do, with the status a pipe-killed process would have (128 + SIGPIPE).
         Err(error) if console::is_broken_pipe(&error) => ExitCode::from(141),

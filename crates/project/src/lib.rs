@@ -5,6 +5,7 @@
 //! [`deckhold_schedule::Schedule`]. No file or terminal I/O here: the binary reads and writes files.
 
 pub mod basis;
+pub mod batch;
 pub mod demo;
 pub mod error;
 pub mod fasteners;

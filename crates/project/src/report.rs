@@ -58,9 +58,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     };
 
     let zone_pressures = zone_pressures(wind, plan);
-    let zones = plan
-        .map(|plan| zone_rows(wind, plan, outcome))
-        .unwrap_or_default();
+    let zones = zone_rows_of(job);
     let lines = plan.map(|plan| line_rows(wind, plan)).unwrap_or_default();
 
     let mut warnings = wind.warnings.clone();
@@ -276,6 +274,16 @@ fn zone_pressures(wind: &WindAnalysis, plan: Option<&DeckPlan>) -> Vec<ZonePress
             })
         })
         .collect()
+}
+
+/// The crew's per-zone rows of the job's chosen nail, worst zones first (empty when it was not planned).
+pub fn zone_rows_of(job: &Job) -> Vec<ZoneRow> {
+    let outcome = job.chosen();
+    outcome
+        .plan
+        .as_ref()
+        .map(|plan| zone_rows(&job.wind, plan, outcome))
+        .unwrap_or_default()
 }
 
 fn zone_rows(wind: &WindAnalysis, plan: &DeckPlan, outcome: &NailOutcome) -> Vec<ZoneRow> {

@@ -7,6 +7,7 @@
 
 mod csv_lines;
 mod csv_schedule;
+mod csv_summary;
 mod error;
 mod finite;
 pub mod format;
@@ -17,6 +18,10 @@ pub mod sample;
 
 pub use csv_lines::{rafter_lines_csv, LINES_HEADER, LINES_HEADER_US};
 pub use csv_schedule::{schedule_csv, NO_SPACING, SCHEDULE_HEADER, SCHEDULE_HEADER_US};
+pub use csv_summary::{
+    summary_header, summary_header_csv, summary_record, RoofStatus, RoofSummary, SpacingCell,
+    SUMMARY_ROLES, SUMMARY_ZONES,
+};
 pub use error::ScheduleError;
 pub use model::*;
 pub use pdf::{schedule_pdf, PdfOptions};

@@ -1,5 +1,6 @@
 //! One module per subcommand, plus what they share (reading the project file, the caution lines).
 
+pub mod batch;
 pub mod capacity;
 pub mod catalog;
 pub mod check;
