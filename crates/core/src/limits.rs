@@ -191,6 +191,36 @@ pub const OUTLINE_CORNERS: Limit = limit(
     "a rectilinear house outline has 4 to a few dozen corners; bounds the zoning work (common practice, no source)",
 );
 
+pub const BATCH_ROWS: Limit = limit(
+    "batch file rows",
+    0.0,
+    1_000_000.0,
+    "rows",
+    "bounds the duplicate-id check's memory (about 40 bytes a row); a larger portfolio is split into \
+     several files (common practice, no source)",
+);
+pub const BATCH_COLUMNS: Limit = limit(
+    "batch file columns",
+    1.0,
+    200.0,
+    "columns",
+    "an id and one column per project-file key; the file has fewer keys (common practice, no source)",
+);
+pub const BATCH_FIELD_CHARS: Limit = limit(
+    "batch file field",
+    0.0,
+    2000.0,
+    "characters",
+    "the longest project-file value (project.notes) fits (common practice, no source)",
+);
+pub const ROOF_ID_CHARS: Limit = limit(
+    "batch file id",
+    1.0,
+    64.0,
+    "characters",
+    "names the roof's output folder (common practice, no source)",
+);
+
 // ---- Building and roof geometry.
 
 pub const PLAN_SIZE_M: Limit = limit(
@@ -426,6 +456,10 @@ pub const ALL: &[Limit] = &[
     OVERRIDES_COUNT,
     CURVE_POINTS,
     OUTLINE_CORNERS,
+    BATCH_ROWS,
+    BATCH_COLUMNS,
+    BATCH_FIELD_CHARS,
+    ROOF_ID_CHARS,
     PLAN_SIZE_M,
     OUTLINE_COORDINATE_M,
     EAVE_HEIGHT_M,

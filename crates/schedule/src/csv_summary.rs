@@ -7,20 +7,21 @@
 use crate::csv_schedule::NO_SPACING;
 use crate::format::{fixed, mm_to_in, places};
 use crate::{ScheduleError, ZoneRow};
+use deckhold_core::{SupportRole, ZoneKind};
 use serde::Serialize;
 
-/// The zone labels a schedule can carry, in the crew sheet's order (worst first).
-pub const SUMMARY_ZONES: [&str; 6] = [
-    "corner",
-    "edge",
-    "interior",
-    "overhang-corner",
-    "overhang-edge",
-    "overhang-interior",
+/// The zones a schedule can carry, in the crew sheet's order (worst first).
+pub const SUMMARY_ZONES: [ZoneKind; 6] = [
+    ZoneKind::Corner,
+    ZoneKind::Edge,
+    ZoneKind::Interior,
+    ZoneKind::OverhangCorner,
+    ZoneKind::OverhangEdge,
+    ZoneKind::OverhangInterior,
 ];
 
 /// The support roles of a zone, in the crew sheet's order.
-pub const SUMMARY_ROLES: [&str; 2] = ["panel-edge", "intermediate"];
+pub const SUMMARY_ROLES: [SupportRole; 2] = [SupportRole::PanelEdge, SupportRole::Intermediate];
 
 /// How one roof of a batch ended.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize)]
@@ -122,7 +123,7 @@ pub fn summary_header() -> Vec<String> {
         .collect();
     for zone in SUMMARY_ZONES {
         for role in SUMMARY_ROLES {
-            let stem = format!("{zone}_{role}").replace('-', "_");
+            let stem = format!("{}_{}", zone.as_str(), role.as_str()).replace('-', "_");
             header.push(format!("{stem}_mm"));
             header.push(format!("{stem}_in"));
         }
@@ -221,11 +222,11 @@ pub fn summary_record(roof: &RoofSummary) -> Result<Vec<u8>, ScheduleError> {
 mod tests {
     use super::*;
 
-    fn zone(label: &str, role: &str, spacing_mm: Option<f64>) -> ZoneRow {
+    fn zone(label: ZoneKind, role: SupportRole, spacing_mm: Option<f64>) -> ZoneRow {
         ZoneRow {
-            label: label.to_string(),
+            label,
             code_zone: String::new(),
-            support_role: role.to_string(),
+            support_role: role,
             nail_id: "n".to_string(),
             nail_description: String::new(),
             spacing_mm,
@@ -243,11 +244,11 @@ mod tests {
     #[test]
     fn the_grid_keeps_the_most_severe_reading_of_a_zone_and_role() {
         let grid = RoofSummary::spacing_grid(&[
-            zone("edge", "panel-edge", Some(150.0)),
-            zone("edge", "panel-edge", Some(100.0)),
-            zone("edge", "intermediate", Some(150.0)),
-            zone("edge", "intermediate", None),
-            zone("edge", "intermediate", Some(300.0)),
+            zone(ZoneKind::Edge, SupportRole::PanelEdge, Some(150.0)),
+            zone(ZoneKind::Edge, SupportRole::PanelEdge, Some(100.0)),
+            zone(ZoneKind::Edge, SupportRole::Intermediate, Some(150.0)),
+            zone(ZoneKind::Edge, SupportRole::Intermediate, None),
+            zone(ZoneKind::Edge, SupportRole::Intermediate, Some(300.0)),
         ]);
         assert_eq!(
             grid[1][0],

@@ -1,33 +1,33 @@
 //! Reading a batch file a chunk of rows at a time, so memory does not grow with the number of rows.
 
 use anyhow::{bail, Context, Result};
-use std::collections::HashMap;
+use std::collections::hash_map::{Entry, HashMap};
 use std::hash::{DefaultHasher, Hash, Hasher};
 use std::io::Read;
 
-use deckhold_project::batch::Columns;
+use deckhold_project::batch::{Columns, ID_COLUMN};
 
 /// Rows read and worked at once: enough to keep every core busy, small enough that a chunk's rows and
 /// summaries take a few megabytes.
 pub const CHUNK_ROWS: usize = 2048;
 
-/// Most rows one batch file may hold; a larger portfolio is split into several files. Bounds the memory
-/// the duplicate-id check takes (about 40 bytes a row).
-pub const MAX_ROWS: u64 = 1_000_000;
+use deckhold_core::limits::{BATCH_FIELD_CHARS, BATCH_ROWS};
 
 /// One row as read: its spreadsheet row number (the header is row 1) and its fields.
 #[derive(Debug)]
 pub struct OwnedRow {
     pub number: u64,
     pub record: csv::StringRecord,
-    /// Set when the row's id repeats an earlier row's: the row number of the first.
-    pub repeats_row: Option<u64>,
+    /// Why the row is refused before it is worked (a repeated id, an overlong field): the column's name
+    /// and the message.
+    pub problem: Option<(String, String)>,
 }
 
 /// The batch file being read.
 pub struct RowReader<R: Read> {
     reader: csv::Reader<R>,
     pub columns: Columns,
+    header: csv::StringRecord,
     rows_read: u64,
     chunk_rows: usize,
     /// A 128-bit hash of each id seen, with its row number: ids are only compared, never printed back, so
@@ -71,6 +71,7 @@ impl<R: Read> RowReader<R> {
         Ok(RowReader {
             reader,
             columns,
+            header,
             rows_read: 0,
             chunk_rows: chunk_rows.max(1),
             seen_ids: HashMap::new(),
@@ -80,6 +81,40 @@ impl<R: Read> RowReader<R> {
     /// Bytes read so far, for the progress bar.
     pub fn byte_offset(&self) -> u64 {
         self.reader.position().byte()
+    }
+
+    /// A field longer than any project-file value, or an id an earlier row already used.
+    fn problem_of(&mut self, record: &csv::StringRecord, number: u64) -> Option<(String, String)> {
+        if let Some(index) = record
+            .iter()
+            .position(|field| field.chars().count() > BATCH_FIELD_CHARS.max_count())
+        {
+            let column = self
+                .header
+                .get(index)
+                .map_or_else(|| format!("{}", index + 1), str::to_string);
+            return Some((
+                column,
+                format!(
+                    "the field is longer than {} characters",
+                    BATCH_FIELD_CHARS.max
+                ),
+            ));
+        }
+        let id = record.get(self.columns.id_index).unwrap_or("").trim();
+        if id.is_empty() {
+            return None;
+        }
+        match self.seen_ids.entry(id_hash(id)) {
+            Entry::Occupied(first) => Some((
+                ID_COLUMN.to_string(),
+                format!("the id '{id}' is already used by row {}", first.get()),
+            )),
+            Entry::Vacant(slot) => {
+                slot.insert(number);
+                None
+            }
+        }
     }
 
     /// The next chunk of rows (empty at the end of the file).
@@ -94,26 +129,18 @@ impl<R: Read> RowReader<R> {
                 break;
             }
             self.rows_read += 1;
-            if self.rows_read > MAX_ROWS {
-                bail!("the batch file has more than {MAX_ROWS} rows; split it into several files");
+            if self.rows_read > BATCH_ROWS.max as u64 {
+                bail!(
+                    "the batch file has more than {} rows; split it into several files",
+                    BATCH_ROWS.max
+                );
             }
             let number = self.rows_read + 1;
-            let id = record.get(self.columns.id_index).unwrap_or("").trim();
-            let repeats_row = if id.is_empty() {
-                None
-            } else {
-                match self.seen_ids.entry(id_hash(id)) {
-                    std::collections::hash_map::Entry::Occupied(first) => Some(*first.get()),
-                    std::collections::hash_map::Entry::Vacant(slot) => {
-                        slot.insert(number);
-                        None
-                    }
-                }
-            };
+            let problem = self.problem_of(&record, number);
             chunk.push(OwnedRow {
                 number,
                 record,
-                repeats_row,
+                problem,
             });
         }
         Ok(chunk)
@@ -136,13 +163,22 @@ mod tests {
             [2, 3, 4],
             "rows in order across the chunk boundary"
         );
-        assert_eq!(
-            second[0].repeats_row,
-            Some(2),
-            "a repeat found across chunks"
-        );
-        assert_eq!(first[1].repeats_row, None);
+        let (column, message) = second[0].problem.clone().expect("a repeat across chunks");
+        assert_eq!(column, "id");
+        assert_eq!(message, "the id 'a' is already used by row 2");
+        assert_eq!(first[1].problem, None);
         assert!(reader.next_chunk().expect("end").is_empty());
+    }
+
+    #[test]
+    fn an_overlong_field_refuses_its_row_only() {
+        let text = format!("id,project.notes\na,{}\nb,short\n", "x".repeat(2001));
+        let mut reader = RowReader::new(text.as_bytes(), CHUNK_ROWS).expect("header");
+        let rows = reader.next_chunk().expect("rows");
+        let (column, message) = rows[0].problem.clone().expect("too long");
+        assert_eq!(column, "project.notes");
+        assert!(message.contains("longer than 2000"), "{message}");
+        assert_eq!(rows[1].problem, None);
     }
 
     #[test]

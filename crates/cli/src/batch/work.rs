@@ -53,13 +53,8 @@ pub fn work_row(context: &BatchContext, owned: &OwnedRow) -> Result<RowResult> {
         cells: &cells,
     };
     let id = row.id(context.columns);
-    let project = match owned.repeats_row {
-        Some(first) => Err(refused(
-            id,
-            row.number,
-            Some(deckhold_project::batch::ID_COLUMN),
-            &format!("the id '{id}' is already used by row {first}"),
-        )),
+    let project = match &owned.problem {
+        Some((column, message)) => Err(refused(id, row.number, Some(column), message)),
         None => row_project(context.base, context.columns, &row),
     };
     lap(0);

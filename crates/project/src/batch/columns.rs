@@ -5,14 +5,10 @@ use super::BatchError;
 /// Name of the column that names each roof.
 pub const ID_COLUMN: &str = "id";
 
-/// Longest roof id accepted, characters: it becomes a folder name.
-pub const ID_MAX_CHARS: usize = 64;
+use deckhold_core::limits::{BATCH_COLUMNS, ROOF_ID_CHARS};
 
 /// Names in the output folder that a roof's folder may not take.
 pub const RESERVED_IDS: [&str; 1] = ["summary.csv"];
-
-/// Most columns a batch file may have: the project file has fewer keys than this.
-pub const MAX_COLUMNS: usize = 200;
 
 /// One override column: where it sits in a row and the key path it sets.
 #[derive(Debug, Clone, PartialEq, Eq)]
@@ -39,12 +35,9 @@ impl Columns {
     /// twice, or a name is not a key path (empty, or with an empty part between dots).
     pub fn from_header<'h>(header: impl IntoIterator<Item = &'h str>) -> Result<Self, BatchError> {
         let names: Vec<&str> = header.into_iter().map(str::trim).collect();
-        if names.len() > MAX_COLUMNS {
-            return Err(BatchError::Header(format!(
-                "{} columns; at most {MAX_COLUMNS} are accepted",
-                names.len()
-            )));
-        }
+        BATCH_COLUMNS
+            .check_count("the header", names.len())
+            .map_err(|error| BatchError::Header(error.to_string()))?;
         let mut id_index = None;
         let mut overrides = Vec::with_capacity(names.len());
         for (index, name) in names.iter().enumerate() {
@@ -90,13 +83,13 @@ impl Columns {
 }
 
 /// Checks a roof id: it names the roof's output folder, so only letters, digits, `.`, `_` and `-`, not
-/// starting with `.`, at most [`ID_MAX_CHARS`], none of [`RESERVED_IDS`].
+/// starting with `.`, at most [`ROOF_ID_CHARS`], none of [`RESERVED_IDS`].
 pub fn check_id(id: &str) -> Result<(), String> {
     if id.is_empty() {
         return Err("the id is empty".to_string());
     }
-    if id.chars().count() > ID_MAX_CHARS {
-        return Err(format!("the id is longer than {ID_MAX_CHARS} characters"));
+    if let Err(error) = ROOF_ID_CHARS.check_count("the id", id.chars().count()) {
+        return Err(error.to_string());
     }
     if RESERVED_IDS.contains(&id) {
         return Err(format!(
