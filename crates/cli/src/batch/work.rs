@@ -54,12 +54,12 @@ pub fn work_row(context: &BatchContext, owned: &OwnedRow) -> Result<RowResult> {
     };
     let id = row.id(context.columns);
     let project = match &owned.problem {
-        Some((column, message)) => Err(refused(id, row.number, Some(column), message)),
+        Some((column, message)) => Err(Box::new(refused(id, row.number, Some(column), message))),
         None => row_project(context.base, context.columns, &row),
     };
     lap(0);
     let summary = match project {
-        Err(refusal) => refusal,
+        Err(refusal) => *refusal,
         Ok(project) => match run_job(&project) {
             Err(error) => {
                 lap(1);

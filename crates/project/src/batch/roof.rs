@@ -40,9 +40,14 @@ pub fn refused(id: &str, row_number: u64, column: Option<&str>, message: &str) -
 
 /// The row as a validated project: the base with the row's cells set, read by the normal reader.
 /// Err: the refused row's summary.
-pub fn row_project(base: &Value, columns: &Columns, row: &Row) -> Result<Project, RoofSummary> {
-    let refuse =
-        |column: Option<&str>, message: &str| refused(row.id(columns), row.number, column, message);
+pub fn row_project(
+    base: &Value,
+    columns: &Columns,
+    row: &Row,
+) -> Result<Project, Box<RoofSummary>> {
+    let refuse = |column: Option<&str>, message: &str| {
+        Box::new(refused(row.id(columns), row.number, column, message))
+    };
     if row.cells.len() != columns.width {
         return Err(refuse(
             None,
