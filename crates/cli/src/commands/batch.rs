@@ -109,7 +109,7 @@ pub fn run(args: &BatchArgs) -> Result<Outcome> {
             started.elapsed(),
             counts.total(),
             threads,
-        );
+        )?;
     }
     Ok(if counts.refused > 0 {
         Outcome::PartlyRefused
