@@ -230,6 +230,8 @@ pub enum CatalogKind {
     Nails,
     Species,
     Panels,
+    /// The built-in wind coefficient rows (figure, zone, curve, status).
+    Coefficients,
 }
 
 #[derive(Debug, Args)]

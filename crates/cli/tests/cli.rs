@@ -394,6 +394,31 @@ fn catalog_lists_the_required_nails() {
 }
 
 #[test]
+fn catalog_lists_coefficient_rows_with_their_status() {
+    // Regression listing of the built-in data: every row says checked, from memory or severe-of-two.
+    let output = deckhold()
+        .args(["catalog", "coefficients", "--json"])
+        .output()
+        .expect("runs");
+    assert!(output.status.success());
+    let rows: serde_json::Value = serde_json::from_slice(&output.stdout).expect("json");
+    let rows = rows.as_array().expect("array");
+    assert_eq!(rows.len(), 30);
+    assert!(rows.iter().all(|row| matches!(
+        row["status"].as_str(),
+        Some("checked" | "from memory" | "severe-of-two")
+    )));
+    deckhold()
+        .args(["catalog", "coefficients"])
+        .assert()
+        .success()
+        .stdout(
+            predicate::str::contains("Figure 30.3-2D")
+                .and(predicate::str::contains("severe-of-two")),
+        );
+}
+
+#[test]
 fn init_writes_a_project_that_runs_and_never_overwrites() {
     let folder = tempfile::tempdir().expect("temp dir");
     let path = folder.path().join("project.json");

@@ -131,6 +131,47 @@ impl Table {
     }
 }
 
+/// One built-in coefficient row, for listings (`deckhold catalog coefficients`).
+#[derive(Debug, Clone, PartialEq, Serialize)]
+pub struct CoefficientRow {
+    pub edition: String,
+    pub set: String,
+    pub figure: String,
+    pub code_zone: String,
+    pub region: String,
+    pub points: Vec<CurvePoint>,
+    pub status: CoefficientStatus,
+    pub source: String,
+}
+
+/// Every built-in coefficient row of both editions, in data order.
+pub fn coefficient_rows() -> Result<Vec<CoefficientRow>, WindError> {
+    let mut rows = Vec::new();
+    for edition in [Edition::Nbc2020, Edition::Asce722] {
+        let data = table(edition)?;
+        for curve in &data.curves {
+            rows.push(CoefficientRow {
+                edition: data.edition.clone(),
+                set: curve.set.clone(),
+                figure: curve.figure.clone(),
+                code_zone: curve.code_zone.clone(),
+                region: curve.region.clone(),
+                points: curve
+                    .points
+                    .iter()
+                    .map(|p| CurvePoint {
+                        area_m2: p.area_m2,
+                        coefficient: p.coefficient,
+                    })
+                    .collect(),
+                status: curve.status,
+                source: curve.confidence.clone(),
+            });
+        }
+    }
+    Ok(rows)
+}
+
 /// External coefficient of one zone as a function of effective area; overhangs add the soffit curve.
 #[derive(Debug, Clone, PartialEq, Serialize)]
 pub struct ZoneCurve {
@@ -328,6 +369,16 @@ mod tests {
             let expected = 0.75 * interpolate(&low, area) + 0.25 * interpolate(&high, area);
             assert_relative_eq!(interpolate(&mixed, area), expected, max_relative = 1e-12);
         }
+    }
+
+    #[test]
+    fn listing_counts_rows_by_status() {
+        // Regression counts of the built-in data (docs/sources.md): 20 from memory, 10 severe-of-two.
+        let rows = coefficient_rows().expect("rows");
+        let count = |status| rows.iter().filter(|r| r.status == status).count();
+        assert_eq!(count(CoefficientStatus::FromMemory), 20);
+        assert_eq!(count(CoefficientStatus::SevereOfTwo), 10);
+        assert_eq!(count(CoefficientStatus::Checked), 0);
     }
 
     #[test]

@@ -23,7 +23,7 @@ mod zones;
 
 pub use analysis::{analyze, RoofPlane, WindAnalysis, Zone};
 pub use basis::{Factor, PressureBasis};
-pub use coefficients::ZoneCurve;
+pub use coefficients::{coefficient_rows, CoefficientRow, ZoneCurve};
 pub use deckhold_core::{RoofShape, ZoneKind};
 pub use edges::{EdgeKind, PlaneEdge};
 pub use error::WindError;

@@ -82,6 +82,41 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
             }
             out!("{}", table.render());
         }
+        CatalogKind::Coefficients => coefficients(args.json)?,
     }
     Ok(Outcome::Works)
+}
+
+/// The built-in coefficient rows with their status; areas in m² (the data's unit).
+fn coefficients(json: bool) -> Result<()> {
+    let rows = deckhold_wind::coefficient_rows()?;
+    if json {
+        outln!("{}", serde_json::to_string_pretty(&rows)?);
+        return Ok(());
+    }
+    let mut table = Table::new(&[
+        "edition",
+        "set",
+        "zone",
+        "curve (m² : coefficient)",
+        "status",
+        "figure",
+    ]);
+    for row in &rows {
+        let curve: Vec<String> = row
+            .points
+            .iter()
+            .map(|p| format!("{:.3}: {:.2}", p.area_m2, p.coefficient))
+            .collect();
+        table.row(vec![
+            row.edition.clone(),
+            row.set.clone(),
+            row.code_zone.clone(),
+            curve.join(", "),
+            row.status.to_string(),
+            row.figure.clone(),
+        ]);
+    }
+    out!("{}", table.render());
+    Ok(())
 }
