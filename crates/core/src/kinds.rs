@@ -81,6 +81,41 @@ impl ZoneKind {
     }
 }
 
+/// What one edge of a roof plane is on the roof. The framing is set out from these: a rake edge has a
+/// gable-end wall under it one rake overhang in, an eave edge the eave wall one eave overhang in, and a
+/// hip or valley edge carries a hip or valley rafter.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum EdgeKind {
+    /// A level outer edge where the deck ends over (or past) a wall: the low edge of a sloped plane,
+    /// the high edge of a monoslope, every outer edge of a flat roof except its rakes.
+    Eave,
+    /// An outer edge running up the slope at a gable end (on a flat rectangle: the two ends across
+    /// the ridge direction, which take the rake overhang).
+    Rake,
+    /// The level line where two planes meet at the top.
+    Ridge,
+    /// A sloping line where two planes meet over an outside corner.
+    Hip,
+    /// A sloping line where two planes meet over an inside corner.
+    Valley,
+}
+
+words!(EdgeKind {
+    Eave => "eave",
+    Rake => "rake",
+    Ridge => "ridge",
+    Hip => "hip",
+    Valley => "valley",
+});
+
+impl EdgeKind {
+    /// An edge where the roof ends (eave or rake), not a line shared with another plane.
+    pub fn is_outer(self) -> bool {
+        matches!(self, EdgeKind::Eave | EdgeKind::Rake)
+    }
+}
+
 /// What a framing line is to the panels of one course.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
 #[serde(rename_all = "kebab-case")]

@@ -23,7 +23,7 @@ pub enum SpacingError {
     SingularBeam { spans_m: Vec<f64> },
     /// A panel is too short to reach from one framing line to the next.
     #[error(
-        "panel.length_mm: a {length_mm} mm panel starting at {from_m:.3} m on plane {plane_index} \
+        "deck.panel_length_mm: a {length_mm} mm panel starting at {from_m:.3} m on plane {plane_index} \
          reaches no framing line (framing.spacing_mm {spacing_mm}); use longer panels or closer framing"
     )]
     PanelTooShort {

@@ -537,7 +537,8 @@ fn validate(
     }
     if panel.length_mm < framing.spacing_mm {
         return Err(SpacingError::OutOfRange {
-            field: "panel.length_mm".to_string(),
+            // Named by the project file's keys: this is the refusal the user sees.
+            field: "deck.panel_length_mm".to_string(),
             value: panel.length_mm,
             allowed: format!("at least framing.spacing_mm ({} mm)", framing.spacing_mm),
         });

@@ -10,46 +10,8 @@ use serde::{Deserialize, Serialize};
 
 use crate::geometry::Point;
 
-/// What one edge of a roof plane is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum EdgeKind {
-    /// A level outer edge where the deck ends over (or past) a wall: the low edge of a sloped plane,
-    /// the high edge of a monoslope, every outer edge of a flat roof except its rakes.
-    Eave,
-    /// An outer edge running up the slope at a gable end (on a flat rectangle: the two ends across
-    /// the ridge direction, which take the rake overhang).
-    Rake,
-    /// The level line where two planes meet at the top.
-    Ridge,
-    /// A sloping line where two planes meet over an outside corner.
-    Hip,
-    /// A sloping line where two planes meet over an inside corner.
-    Valley,
-}
-
-impl EdgeKind {
-    pub fn as_str(self) -> &'static str {
-        match self {
-            EdgeKind::Eave => "eave",
-            EdgeKind::Rake => "rake",
-            EdgeKind::Ridge => "ridge",
-            EdgeKind::Hip => "hip",
-            EdgeKind::Valley => "valley",
-        }
-    }
-
-    /// An edge where the roof ends (eave or rake), not a line shared with another plane.
-    pub fn is_outer(self) -> bool {
-        matches!(self, EdgeKind::Eave | EdgeKind::Rake)
-    }
-}
-
-impl std::fmt::Display for EdgeKind {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(self.as_str())
-    }
-}
+/// What one edge of a roof plane is: the shared vocabulary, re-exported here beside [`PlaneEdge`].
+pub use deckhold_core::EdgeKind;
 
 /// One straight edge of a roof plane in plan, m. The edges of a plane go round its polygon in
 /// order, counter-clockwise, `to_m` of one edge being `from_m` of the next.
