@@ -567,22 +567,38 @@ fn footnotes(
         ),
     };
     let members = crate::format::plural(member);
-    let text = [
-        format!(
-            "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
+    let mut text: Vec<(String, Font)> = Vec::new();
+    if let Some(warning) = super::crew_notes::closer_intermediate_warning(schedule) {
+        text.push((warning, Font::Bold));
+    }
+    text.extend([
+        (
+            format!(
+                "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
+            ),
+            Font::Regular,
         ),
-        numbering,
-        format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
-    ];
-    for paragraph in text {
-        let lines = wrap(&paragraph, Font::Regular, 7.5, column.w);
+        (super::crew_notes::laying_sentence(schedule), Font::Regular),
+    ]);
+    if let Some(sentence) = super::crew_notes::numbering_sentence(schedule) {
+        text.push((sentence, Font::Regular));
+    }
+    text.extend([
+        (numbering, Font::Regular),
+        (
+            format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
+            Font::Regular,
+        ),
+    ]);
+    for (paragraph, font) in text {
+        let lines = wrap(&paragraph, font, 7.5, column.w);
         let h = lines.len() as f64 * line_height_mm(7.5);
         if y - h < column.y {
             return y;
         }
         for line in lines {
             y -= line_height_mm(7.5);
-            canvas.text(column.x, y + 0.8, &line, Font::Regular, 7.5, Align::Left);
+            canvas.text(column.x, y + 0.8, &line, font, 7.5, Align::Left);
         }
         y -= 1.0;
     }

@@ -6,6 +6,7 @@
 //! draws from its own counter is replaced with the one from the options.
 
 mod canvas;
+mod crew_notes;
 mod crew_sheet;
 mod design_basis;
 mod drawing;
