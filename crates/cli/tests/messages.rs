@@ -174,3 +174,28 @@ fn reading_stops_at_the_file_size_limit() {
     assert_eq!(output.status.code(), Some(2), "{message}");
     assert!(message.contains("larger than 1048576 bytes"), "{message}");
 }
+
+#[test]
+fn a_key_written_twice_is_refused_naming_it_and_both_positions() {
+    let text = "{\n  \"basis\": \"nbc2020-o86\",\n  \"basis\": \"asce7-22-nds2018-asd\"\n}";
+    let (code, message) = zones_on(text.as_bytes());
+    assert_eq!(code, Some(2), "{message}");
+    assert!(
+        message.contains("basis: written twice (line 2, column 3 and line 3, column 3)"),
+        "{message}"
+    );
+}
+
+#[test]
+fn a_misspelt_word_species_or_nail_is_named_with_the_near_one() {
+    let mut project = demo();
+    project["roof"]["shape"] = json!("gabel");
+    let message = refused(&project);
+    assert!(message.contains("roof.shape"), "{message}");
+    assert!(message.contains("did you mean \"gable\"?"), "{message}");
+    let mut project = demo();
+    project["framing"]["species"] = json!("sfp");
+    let message = refused(&project);
+    assert!(message.contains("framing.species"), "{message}");
+    assert!(message.contains("spf"), "{message}");
+}

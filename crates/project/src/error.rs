@@ -14,6 +14,12 @@ pub enum ProjectError {
         suggestion: String,
         allowed: String,
     },
+    #[error("{path}: written twice ({first} and {second}); give each key once")]
+    DuplicateKey {
+        path: String,
+        first: String,
+        second: String,
+    },
     #[error("{path}: missing (required)")]
     Missing { path: String },
     #[error("{path}: expected {expected}")]

@@ -7,6 +7,7 @@
 pub mod basis;
 pub mod batch;
 pub mod demo;
+pub mod duplicate_keys;
 pub mod error;
 pub mod fasteners;
 pub mod inputs;

@@ -25,6 +25,7 @@ pub const DEFAULT_DATE: &str = "2026-01-01";
 pub fn parse_project(text: &str) -> Result<Project, ProjectError> {
     let value: Value =
         serde_json::from_str(text).map_err(|error| ProjectError::Json(error.to_string()))?;
+    crate::duplicate_keys::check_duplicate_keys(text)?;
     project_from_value(&value)
 }
 

@@ -151,16 +151,24 @@ impl<'a> ObjectReader<'a> {
             .iter()
             .find(|(name, _)| *name == word)
             .map(|(_, value)| Some(*value))
-            .ok_or_else(|| ProjectError::Invalid {
-                path: self.key_path(key),
-                message: format!(
-                    "'{word}' is not one of {}",
-                    choices
-                        .iter()
-                        .map(|(name, _)| *name)
-                        .collect::<Vec<_>>()
-                        .join(", ")
-                ),
+            .ok_or_else(|| {
+                let nearest = choices
+                    .iter()
+                    .map(|(name, _)| *name)
+                    .find(|name| is_near(word, name));
+                ProjectError::Invalid {
+                    path: self.key_path(key),
+                    message: format!(
+                        "'{}' is not one of {}{}",
+                        escape_text(word),
+                        choices
+                            .iter()
+                            .map(|(name, _)| *name)
+                            .collect::<Vec<_>>()
+                            .join(", "),
+                        nearest.map_or(String::new(), |name| format!("; did you mean \"{name}\"?"))
+                    ),
+                }
             })
     }
 
