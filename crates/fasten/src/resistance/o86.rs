@@ -208,6 +208,17 @@ mod tests {
     }
 
     #[test]
+    fn p_rw_applies_j_a_and_j_b() {
+        // CSA O86:19 12.9.5.2 (from memory): both factors multiply: 0.6 x 6.0 x 40 x 1 x 0.9 x 0.8 = 103.68 N.
+        let reduced = O86Withdrawal {
+            j_a: 0.9,
+            j_b: 0.8,
+            ..terms(40.0, 1)
+        };
+        assert_relative_eq!(reduced.factored_n(), 103.68, max_relative = 1e-12);
+    }
+
+    #[test]
     fn p_rw_counts_every_nail() {
         // CSA O86:19 12.9.5.2 (from memory): P_rw = phi y_w L_p n_F (J factors 1): 0.6 x 6.0 x 40 x 3 = 432 N.
         assert_relative_eq!(terms(40.0, 3).factored_n(), 432.0, max_relative = 1e-12);

@@ -247,6 +247,15 @@ fn a_generic_ring_nail_is_credited_as_smooth() {
     let ring = resist(&base(Method::NdsAsd, "8d-ring", "spf", 45.0));
     let smooth = resist(&base(Method::NdsAsd, "8d-common", "spf", 45.0));
     assert_relative_eq!(ring.withdrawal_n, smooth.withdrawal_n);
+    // The smooth nail itself is not warned about.
+    assert!(
+        !smooth
+            .warnings
+            .iter()
+            .any(|w| w.contains("credited as a smooth nail")),
+        "{:?}",
+        smooth.warnings
+    );
     assert!(ring
         .warnings
         .iter()
@@ -363,6 +372,14 @@ fn penetration_below_the_minimum_is_refused() {
     assert!(matches!(error, FastenError::PenetrationBelowMinimum { .. }));
     // Just above the minimum it is accepted at the full value: 0.6 x 6.395 x 16.3 = 62.5 N (hand calculation
     // with y_w from o86_common_63_in_spf_by_hand).
+    // Exactly at the minimum, 5 x 3.25 = 16.25 mm, it is still accepted.
+    assert!(nail_resistance(&base(
+        Method::O86LimitStates,
+        "common-63x3.25",
+        "spf",
+        16.25
+    ))
+    .is_ok_and(|r| r.withdrawal_n > 0.0));
     let accepted = nail_resistance(&base(Method::O86LimitStates, "common-63x3.25", "spf", 16.3))
         .expect("16.3 mm is above 5 d_F");
     assert_relative_eq!(
