@@ -144,6 +144,9 @@ pub struct CheckArgs {
     /// the existing ones, per zone and support role, so existing plus added carry the uplift.
     #[arg(long)]
     pub add: Option<String>,
+    /// Folder for the plan-check report: check.csv and check.pdf (a sign-off page, then the detail).
+    #[arg(long)]
+    pub out: Option<PathBuf>,
     #[arg(long)]
     pub json: bool,
 }

@@ -18,11 +18,13 @@ use std::io::Write;
 use std::path::{Path, PathBuf};
 
 /// Every name a run may write in the output folder (the set is a subset of these).
-pub const SET_NAMES: [&str; 4] = [
+pub const SET_NAMES: [&str; 6] = [
     "schedule.csv",
     "rafter-lines.csv",
     "schedule.pdf",
     "schedule.json",
+    "check.csv",
+    "check.pdf",
 ];
 /// The folder beside the outputs where generations live.
 pub const STATE_DIR: &str = ".deckhold";

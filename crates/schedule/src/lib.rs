@@ -24,4 +24,4 @@ pub use csv_summary::{
 };
 pub use error::ScheduleError;
 pub use model::*;
-pub use pdf::{schedule_pdf, PdfOptions};
+pub use pdf::{report_pdf, schedule_pdf, Block, Part, PdfOptions, Report};

@@ -18,12 +18,23 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
     let wind =
         deckhold_wind::analyze(&project.wind).context("the wind zones could not be computed")?;
     if let Some(added_id) = &args.add {
-        return super::retrofit::run(&project, &wind, &pattern, added_id, args.json);
+        return super::retrofit::run(
+            &project,
+            &wind,
+            &pattern,
+            added_id,
+            args.json,
+            args.out.as_deref(),
+        );
     }
     let checked =
         check_pattern(&project, &wind, &pattern).context("the pattern could not be checked")?;
     let units = project.units;
     let passes = checked.passes();
+    if let Some(folder) = &args.out {
+        let report = super::check_report::from_check(&project, &pattern, &checked);
+        super::check_report::write_report(&report, folder)?;
+    }
     if args.json {
         let rows: Vec<serde_json::Value> = checked
             .rows

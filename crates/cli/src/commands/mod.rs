@@ -4,6 +4,7 @@ pub mod batch;
 pub mod capacity;
 pub mod catalog;
 pub mod check;
+pub mod check_report;
 pub mod compare;
 pub mod init;
 pub mod limits;

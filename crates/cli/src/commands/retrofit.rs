@@ -17,9 +17,14 @@ pub fn run(
     pattern: &ExistingPattern,
     added_id: &str,
     as_json: bool,
+    out: Option<&std::path::Path>,
 ) -> Result<Outcome> {
     let retrofit = plan_retrofit(project, wind, pattern, added_id)
         .with_context(|| format!("the retrofit with `{added_id}` could not be sized"))?;
+    if let Some(folder) = out {
+        let report = super::check_report::from_retrofit(project, pattern, &retrofit);
+        super::check_report::write_report(&report, folder)?;
+    }
     if as_json {
         outln!(
             "{}",

@@ -15,7 +15,10 @@ mod geometry;
 mod labels;
 mod line_table;
 mod page;
+mod report;
 mod text;
+
+pub use report::{report_pdf, Block, Part, Report};
 
 use printpdf::date::{Date, Offset, OffsetDateTime, Time};
 use printpdf::{Mm, PdfDocument, PdfPage, PdfParseErrorSeverity, PdfSaveOptions};
@@ -133,14 +136,14 @@ fn set_trailer_id(mut bytes: Vec<u8>, id: &str) -> Result<Vec<u8>, ScheduleError
 /// One finished page body before the frame goes on.
 struct Sheet<'f> {
     frame: &'f Frame,
-    title: &'static str,
+    title: String,
     body: Canvas,
 }
 
 /// The PDF report of `schedule`.
 pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>, ScheduleError> {
     finite::check_all(schedule)?;
-    let date = parse_date(&options.creation_date)?;
+    parse_date(&options.creation_date)?;
     check_document_id(&options.document_id)?;
 
     // Every page carries the cautions; a schedule without any still gets the standard ones.
@@ -160,17 +163,17 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
 
     let mut sheets = vec![Sheet {
         frame: &landscape,
-        title: "Crew sheet",
+        title: "Crew sheet".to_string(),
         body: crew,
     }];
     sheets.extend(basis_pages.into_iter().map(|body| Sheet {
         frame: &portrait,
-        title: "Design basis",
+        title: "Design basis".to_string(),
         body,
     }));
     sheets.extend(table_pages.into_iter().map(|body| Sheet {
         frame: &portrait,
-        title: "Rafter-line table",
+        title: "Rafter-line table".to_string(),
         body,
     }));
 
@@ -180,6 +183,36 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
         date: schedule.project.date.clone(),
         basis_id: schedule.basis.id.clone(),
     };
+    document_bytes(
+        sheets,
+        &title,
+        &DocumentInfo {
+            title: format!("Roof sheathing nailing schedule: {}", schedule.project.name),
+            author: schedule.project.prepared_by.clone(),
+            subject: format!("{}; {}", schedule.project.site, schedule.basis.title),
+        },
+        options,
+    )
+}
+
+/// The document's metadata.
+struct DocumentInfo {
+    title: String,
+    author: String,
+    subject: String,
+}
+
+/// Frames every sheet (cautions, title block, page n of N) and writes the document, dated and with
+/// the id from `options` so the same input gives the same bytes.
+fn document_bytes(
+    sheets: Vec<Sheet>,
+    title: &TitleInfo,
+    document: &DocumentInfo,
+    options: &PdfOptions,
+) -> Result<Vec<u8>, ScheduleError> {
+    let about = document;
+    let date = parse_date(&options.creation_date)?;
+    check_document_id(&options.document_id)?;
     let page_count = sheets.len();
     let pages: Vec<PdfPage> = sheets
         .into_iter()
@@ -188,7 +221,7 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
             let mut canvas = sheet.body;
             sheet
                 .frame
-                .draw(&mut canvas, &title, sheet.title, index + 1, page_count);
+                .draw(&mut canvas, title, &sheet.title, index + 1, page_count);
             let paper = sheet.frame.paper;
             PdfPage::new(
                 Mm(paper.width_mm as f32),
@@ -198,18 +231,15 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
         })
         .collect();
 
-    let mut document = PdfDocument::new(&format!(
-        "Roof sheathing nailing schedule: {}",
-        schedule.project.name
-    ));
+    let mut document = PdfDocument::new(&about.title);
     let info = &mut document.metadata.info;
     info.creation_date = date;
     info.modification_date = date;
     info.metadata_date = date;
-    info.author = schedule.project.prepared_by.clone();
+    info.author = about.author.clone();
     info.creator = "deckhold".to_string();
     info.producer = "deckhold-schedule with printpdf".to_string();
-    info.subject = format!("{}; {}", schedule.project.site, schedule.basis.title);
+    info.subject = about.subject.clone();
     info.identifier = options.document_id.clone();
     document.with_pages(pages);
 

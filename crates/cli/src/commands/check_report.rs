@@ -1,0 +1,393 @@
+//! `check --out DIR`: the plan-check report a reviewer files: `check.csv` (per zone and support role, then
+//! per framing line) and `check.pdf` (a sign-off page, then the detail; cautions on every page).
+
+use deckhold_deck::spacing::DeckPlan;
+use deckhold_project::basis::BasisStandards;
+use deckhold_project::{ExistingPattern, PatternCheck, Project, Retrofit, COMBINATION_RULE};
+use deckhold_schedule::format::{force_label, spacing_label};
+use deckhold_schedule::{Block, Part, Report};
+
+/// One zone and role of the report, whether a plain check or a retrofit.
+pub struct ReportRow {
+    pub zone: String,
+    pub code_zone: String,
+    pub role: String,
+    pub existing_mm: f64,
+    pub added_mm: Option<f64>,
+    pub what_to_add: String,
+    pub utilization: f64,
+    pub line: u32,
+    pub passes: bool,
+    pub notes: String,
+}
+
+/// What the report is about.
+pub struct CheckReport<'a> {
+    pub project: &'a Project,
+    pub pattern: &'a ExistingPattern,
+    pub rows: Vec<ReportRow>,
+    pub plan: &'a DeckPlan,
+    /// Lines describing the fasteners and their resistances.
+    pub fastener_lines: Vec<String>,
+    pub warnings: Vec<String>,
+    pub added_id: Option<String>,
+}
+
+impl CheckReport<'_> {
+    fn passes(&self) -> bool {
+        self.rows.iter().all(|row| row.passes)
+    }
+}
+
+/// The report of a plain plan check.
+pub fn from_check<'a>(
+    project: &'a Project,
+    pattern: &'a ExistingPattern,
+    checked: &'a PatternCheck,
+) -> CheckReport<'a> {
+    let is_us = project.units.is_us();
+    CheckReport {
+        project,
+        pattern,
+        rows: checked
+            .rows
+            .iter()
+            .map(|row| ReportRow {
+                zone: row.label.to_string(),
+                code_zone: row.code_zone.clone(),
+                role: row.support_role.to_string(),
+                existing_mm: row.given_spacing_mm,
+                added_mm: None,
+                what_to_add: row
+                    .added_nails_per_gap
+                    .map(|added| format!("{added} more `{}` between each pair", checked.nail.id))
+                    .unwrap_or_default(),
+                utilization: row.utilization,
+                line: row.governing_line,
+                passes: row.passes,
+                notes: row.notes.join("; "),
+            })
+            .collect(),
+        plan: &checked.plan,
+        fastener_lines: vec![format!(
+            "Existing: {} ({}), {} per fastener ({}), credit {:.2}",
+            checked.nail.id,
+            checked.nail.description,
+            force_label(checked.resistance.governing_n, is_us),
+            checked.resistance.governing_mode.as_str(),
+            pattern.credit
+        )],
+        warnings: checked.resistance.warnings.clone(),
+        added_id: None,
+    }
+}
+
+/// The report of a retrofit (`--add`).
+pub fn from_retrofit<'a>(
+    project: &'a Project,
+    pattern: &'a ExistingPattern,
+    retrofit: &'a Retrofit,
+) -> CheckReport<'a> {
+    let is_us = project.units.is_us();
+    CheckReport {
+        project,
+        pattern,
+        rows: retrofit
+            .rows
+            .iter()
+            .map(|row| ReportRow {
+                zone: row.label.to_string(),
+                code_zone: row.code_zone.clone(),
+                role: row.support_role.to_string(),
+                existing_mm: row.existing_spacing_mm,
+                added_mm: row.added_spacing_mm,
+                what_to_add: match row.placement {
+                    Some(placement) => format!(
+                        "`{}`: {}",
+                        retrofit.added.id,
+                        placement.describe(|mm| spacing_label(Some(mm), is_us))
+                    ),
+                    None if row.passes => "nothing".to_string(),
+                    None => String::new(),
+                },
+                utilization: row.utilization,
+                line: row.governing_line,
+                passes: row.passes,
+                notes: row.notes.join("; "),
+            })
+            .collect(),
+        plan: &retrofit.plan,
+        fastener_lines: vec![
+            format!(
+                "Existing: {} ({}), {} per fastener ({}), credit {:.2}: {} counted",
+                retrofit.existing.id,
+                retrofit.existing.description,
+                force_label(retrofit.existing_resistance.governing_n, is_us),
+                retrofit.existing_resistance.governing_mode.as_str(),
+                retrofit.credit,
+                force_label(
+                    retrofit.existing_resistance.governing_n * retrofit.credit,
+                    is_us
+                )
+            ),
+            format!(
+                "Added: {} ({}), {} per fastener ({}); source: {}",
+                retrofit.added.id,
+                retrofit.added.description,
+                force_label(retrofit.added_resistance.governing_n, is_us),
+                retrofit.added_resistance.governing_mode.as_str(),
+                retrofit.added.provenance()
+            ),
+            format!(
+                "Closest spacing between any two fasteners: {}",
+                spacing_label(Some(retrofit.min_neighbour_mm), is_us)
+            ),
+            format!("Combination: {COMBINATION_RULE}"),
+        ],
+        warnings: retrofit
+            .existing_resistance
+            .warnings
+            .iter()
+            .chain(&retrofit.added_resistance.warnings)
+            .cloned()
+            .collect(),
+        added_id: Some(retrofit.added.id.clone()),
+    }
+}
+
+/// A CSV field, quoted when it holds a comma, quote or line break.
+fn field(text: &str) -> String {
+    if text.contains([',', '"', '\n']) {
+        format!("\"{}\"", text.replace('"', "\"\""))
+    } else {
+        text.to_string()
+    }
+}
+
+/// `check.csv`: the zone rows (`section` = zone), then one row per stretch of every framing line
+/// (`section` = line) with the pattern that applies there.
+pub fn check_csv(report: &CheckReport) -> Vec<u8> {
+    let mut text = String::from(
+        "section,zone,code_zone,support_role,line,from_m,to_m,reaction_width_mm,existing_spacing_mm,\
+         added_spacing_mm,utilization,pass,what_to_add,notes\n",
+    );
+    for row in &report.rows {
+        text.push_str(&format!(
+            "zone,{},{},{},{},,,,{:.1},{},{:.3},{},{},{}\n",
+            row.zone,
+            field(&row.code_zone),
+            row.role,
+            row.line,
+            row.existing_mm,
+            row.added_mm
+                .map(|mm| format!("{mm:.1}"))
+                .unwrap_or_default(),
+            row.utilization,
+            row.passes,
+            field(&row.what_to_add),
+            field(&row.notes)
+        ));
+    }
+    let zones = &report.project_zones();
+    for line in &report.plan.lines {
+        for segment in &line.segments {
+            let zone = zones.get(segment.zone_index).cloned().unwrap_or_default();
+            let role = segment.support_role.to_string();
+            let row = report
+                .rows
+                .iter()
+                .find(|row| row.zone == zone && row.role == role);
+            text.push_str(&format!(
+                "line,{zone},,{role},{},{:.3},{:.3},{:.1},{},{},,,,\n",
+                line.number,
+                segment.from_m,
+                segment.to_m,
+                segment.reaction_width_mm,
+                row.map(|row| format!("{:.1}", row.existing_mm))
+                    .unwrap_or_default(),
+                row.and_then(|row| row.added_mm)
+                    .map(|mm| format!("{mm:.1}"))
+                    .unwrap_or_default(),
+            ));
+        }
+    }
+    text.into_bytes()
+}
+
+impl CheckReport<'_> {
+    /// Zone labels by zone index, from the wind analysis of the plan.
+    fn project_zones(&self) -> Vec<String> {
+        deckhold_wind::analyze(&self.project.wind)
+            .map(|wind| {
+                wind.zones
+                    .iter()
+                    .map(|zone| zone.label.to_string())
+                    .collect()
+            })
+            .unwrap_or_default()
+    }
+}
+
+/// The PDF report: page 1 for sign-off, then the detail.
+pub fn check_report(report: &CheckReport) -> Report {
+    let project = report.project;
+    let is_us = project.units.is_us();
+    let spacing = |mm: f64| format!("{} o.c.", spacing_label(Some(mm), is_us));
+    let basis = project.basis.info();
+    let mut pattern_lines = vec![format!(
+        "{}: {} at panel edges, {} at intermediate supports (all zones)",
+        report.pattern.nail_id,
+        spacing(report.pattern.all_zones.edge_spacing_mm),
+        spacing(report.pattern.all_zones.intermediate_spacing_mm)
+    )];
+    for (zone, zone_spacing) in &report.pattern.by_zone {
+        pattern_lines.push(format!(
+            "{zone}: {} at panel edges, {} at intermediate supports",
+            spacing(zone_spacing.edge_spacing_mm),
+            spacing(zone_spacing.intermediate_spacing_mm)
+        ));
+    }
+    pattern_lines.push(format!(
+        "credit for the existing fasteners' condition: {:.2}",
+        report.pattern.credit
+    ));
+    let verdict = match (&report.added_id, report.passes()) {
+        (None, true) => "RESULT: the pattern in place PASSES in every zone.".to_string(),
+        (None, false) => "RESULT: the pattern in place FAILS: see the zones marked FAILS.".to_string(),
+        (Some(added), true) => format!(
+            "RESULT: with `{added}` added as listed, existing plus added fasteners PASS in every zone."
+        ),
+        (Some(added), false) => {
+            format!("RESULT: even with `{added}` added, some zone FAILS: see below.")
+        }
+    };
+    let zone_rows: Vec<Vec<String>> = report
+        .rows
+        .iter()
+        .map(|row| {
+            vec![
+                format!("{} ({})", row.zone, row.code_zone),
+                row.role.clone(),
+                spacing(row.existing_mm),
+                row.added_mm.map(spacing).unwrap_or_else(|| "-".to_string()),
+                format!("{:.2}", row.utilization),
+                if row.passes { "pass" } else { "FAILS" }.to_string(),
+                row.what_to_add.clone(),
+            ]
+        })
+        .collect();
+    let sign_off = Part {
+        sheet: "Plan check: sign-off".to_string(),
+        blocks: vec![
+            Block::Heading(format!("Plan check of the roof sheathing fastening: {}", project.info.name)),
+            Block::Paragraph(format!(
+                "Site: {}. Owner: {}. Prepared by: {}. Date: {}.",
+                project.info.site, project.info.owner, project.info.prepared_by, project.info.date
+            )),
+            Block::Paragraph(format!("Design basis: {} ({}).", basis.title, basis.id)),
+            Block::Heading("Pattern given".to_string()),
+            Block::Bullets(pattern_lines),
+            Block::Bullets(report.fastener_lines.clone()),
+            Block::Strong(verdict),
+            Block::Table {
+                columns: vec![
+                    ("zone".to_string(), 0.17),
+                    ("support".to_string(), 0.12),
+                    ("existing".to_string(), 0.11),
+                    ("added".to_string(), 0.1),
+                    ("util.".to_string(), 0.07),
+                    ("result".to_string(), 0.08),
+                    ("what to add, where".to_string(), 0.35),
+                ],
+                rows: zone_rows,
+            },
+            Block::Heading("Review".to_string()),
+            Block::Paragraph(
+                "Reviewed by: ______________________   Licence / seal: ______________   Date: ___________"
+                    .to_string(),
+            ),
+            Block::Paragraph("Accepted  [ ]     Accepted with comments  [ ]     Not accepted  [ ]".to_string()),
+        ],
+    };
+    let mut detail_blocks = vec![Block::Heading("Why each zone passes or fails".to_string())];
+    let notes: Vec<String> = report
+        .rows
+        .iter()
+        .filter(|row| !row.notes.is_empty())
+        .map(|row| format!("{} {}: {}", row.zone, row.role, row.notes))
+        .collect();
+    detail_blocks.push(if notes.is_empty() {
+        Block::Paragraph(
+            "Every zone and support role works; utilization is at its worst framing line."
+                .to_string(),
+        )
+    } else {
+        Block::Bullets(notes)
+    });
+    if !report.warnings.is_empty() {
+        detail_blocks.push(Block::Heading("Warnings from the resistance".to_string()));
+        detail_blocks.push(Block::Bullets(report.warnings.clone()));
+    }
+    detail_blocks.push(Block::Heading(
+        "Worst framing line per zone and support".to_string(),
+    ));
+    detail_blocks.push(Block::Table {
+        columns: vec![
+            ("zone".to_string(), 0.3),
+            ("support".to_string(), 0.2),
+            ("line".to_string(), 0.15),
+            ("utilization".to_string(), 0.35),
+        ],
+        rows: report
+            .rows
+            .iter()
+            .map(|row| {
+                vec![
+                    row.zone.clone(),
+                    row.role.clone(),
+                    row.line.to_string(),
+                    format!("{:.2}", row.utilization),
+                ]
+            })
+            .collect(),
+    });
+    detail_blocks.push(Block::Paragraph(
+        "check.csv lists every stretch of every framing line with its reaction width and the pattern that \
+         applies there."
+            .to_string(),
+    ));
+    Report {
+        title: format!("Plan check: {}", project.info.name),
+        project: project.info.name.clone(),
+        site: project.info.site.clone(),
+        date: project.info.date.clone(),
+        basis_id: basis.id.clone(),
+        prepared_by: project.info.prepared_by.clone(),
+        units: project.units,
+        cautions: deckhold_schedule::standard_cautions(),
+        parts: vec![
+            sign_off,
+            Part {
+                sheet: "Plan check: detail".to_string(),
+                blocks: detail_blocks,
+            },
+        ],
+    }
+}
+
+/// Writes check.csv and check.pdf into `folder` as one output set.
+pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::Result<()> {
+    use anyhow::Context;
+    let options = deckhold_schedule::PdfOptions {
+        creation_date: report.project.info.date.clone(),
+        document_id: "deckhold-plan-check".to_string(),
+    };
+    let pdf = deckhold_schedule::report_pdf(&check_report(report), &options)
+        .context("the plan-check PDF could not be drawn")?;
+    let files = [("check.csv", check_csv(report)), ("check.pdf", pdf)];
+    let written = crate::output::write_all_atomically(folder, &files)?;
+    for path in written {
+        eprintln!("wrote {}", path.display());
+    }
+    Ok(())
+}
