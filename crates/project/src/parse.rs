@@ -249,6 +249,7 @@ fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
     let dead_load_kpa = block
         .quantity("dead_load", Quantity::PressureKpa, &limits::DEAD_LOAD_KPA)?
         .unwrap_or(0.0);
+    let gable_walls = read_gable_walls(block)?;
     block.finish()?;
     Ok(Roof {
         shape,
@@ -257,7 +258,36 @@ fn read_roof(block: &ObjectReader) -> Result<Roof, ProjectError> {
         eave_overhang_mm,
         rake_overhang_mm,
         dead_load_kpa,
+        gable_walls,
     })
+}
+
+/// `roof.gable_walls`: wall numbers of a polygon footprint (wall i runs from corner i to i + 1).
+fn read_gable_walls(block: &ObjectReader) -> Result<Vec<usize>, ProjectError> {
+    let Some(value) = block.get("gable_walls") else {
+        return Ok(Vec::new());
+    };
+    let path = block.key_path("gable_walls");
+    let Some(items) = value.as_array() else {
+        return Err(ProjectError::WrongType {
+            path,
+            expected: "a list of wall numbers (wall i runs from polygon corner i to corner i + 1)"
+                .to_string(),
+        });
+    };
+    items
+        .iter()
+        .enumerate()
+        .map(|(index, item)| {
+            item.as_u64()
+                .filter(|n| *n < 200)
+                .map(|n| n as usize)
+                .ok_or_else(|| ProjectError::WrongType {
+                    path: format!("{path}[{index}]"),
+                    expected: "a wall number 0..199".to_string(),
+                })
+        })
+        .collect()
 }
 
 /// "5:12" (rise:run, the framer's way) to degrees.

@@ -131,7 +131,10 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
             across_ridge_m / 2.0 * tan
         }
         (Plan::Rectangle { across_ridge_m, .. }, _) => across_ridge_m * tan,
-        (Plan::Polygon { .. }, _) => 0.0,
+        (Plan::Polygon { .. }, _) => local
+            .pitched
+            .as_ref()
+            .map_or(0.0, |pitched| pitched.wall_to_top_run_m * tan),
     };
     let least_m = plan.least_dimension_m();
     let (basis, mean_roof_height_m) = match &input.site {
@@ -181,6 +184,9 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
                 .to_string(),
         );
     }
+    if let Some(pitched) = &local.pitched {
+        warnings.extend(pitched_warnings(&plan, &local, pitched, &basis));
+    }
     if basis.strips.hips {
         warnings.push("hip roof: edge bands along the hips are approximated by bands of the edge width each side of the hip line".to_string());
     }
@@ -190,13 +196,17 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
     let planes = local
         .planes
         .iter()
-        .map(|(polygon, down)| {
+        .enumerate()
+        .map(|(index, (polygon, down))| {
             let polygon_m = plan.polygon_to_plan(polygon);
-            let edges = plane_edges(&plan, roof, &polygon_m);
+            let edges = match local.pitched.as_ref().and_then(|p| p.planes.get(index)) {
+                Some(pitched) => pitched.edges(),
+                None => plane_edges(&plan, roof, &polygon_m),
+            };
             RoofPlane {
                 polygon_m,
                 slope_deg: roof.slope_deg,
-                downslope_m: plan.to_plan(*down),
+                downslope_m: plan.vector_to_plan(*down),
                 edges,
             }
         })
@@ -224,8 +234,8 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
     })
 }
 
-/// The edges of one plane (plan polygon): rectangles are classified in their local frame (the swap
-/// to plan is its own inverse); a polygon footprint carries a flat roof whose every edge is an eave.
+/// The edges of one plane (plan polygon): rectangles are classified in their local frame; a flat roof
+/// on a polygon footprint has only eaves (gable and hip roofs on polygons bring their own edges).
 fn plane_edges(plan: &Plan, roof: &crate::types::Roof, polygon_m: &[Point]) -> Vec<PlaneEdge> {
     match plan {
         Plan::Rectangle { across_ridge_m, .. } => {
@@ -235,11 +245,37 @@ fn plane_edges(plan: &Plan, roof: &crate::types::Roof, polygon_m: &[Point]) -> V
                     .then_some(across_ridge_m / 2.0),
             };
             polygon_edges(polygon_m, |a, b| {
-                classify.kind(plan.to_plan(a), plan.to_plan(b))
+                classify.kind(plan.to_local(a), plan.to_local(b))
             })
         }
         Plan::Polygon { .. } => polygon_edges(polygon_m, |_, _| EdgeKind::Eave),
     }
+}
+
+/// What a gable or hip roof on a polygon footprint reads into the rectangle figures of the basis.
+fn pitched_warnings(
+    plan: &Plan,
+    local: &crate::outline::LocalRoof,
+    pitched: &crate::roof::PitchedRoof,
+    basis: &StandardBasis,
+) -> Vec<String> {
+    let mut warnings = vec!["L/T/U roof: corner zones also at the inside (reentrant) wall corners, a square of the edge width a each way; the figures of the basis draw corner zones at outside corners only (conservative reading)".to_string()];
+    let has_valleys = pitched
+        .lines
+        .iter()
+        .any(|line| line.kind == crate::edges::EdgeKind::Valley);
+    if has_valleys && (basis.strips.ridge || basis.strips.hips) {
+        warnings.push("L/T/U roof: edge strips of width a each side of every valley, as along ridges and hips; the figures of the basis draw no valley strip (conservative reading)".to_string());
+    }
+    let walls = crate::outline::gable_wall_numbers(plan, local);
+    if !walls.is_empty() {
+        let list: Vec<String> = walls.iter().map(usize::to_string).collect();
+        warnings.push(format!(
+            "gable walls: {} (wall i runs from footprint corner i to corner i + 1); set roof.gable_walls to choose others",
+            list.join(", ")
+        ));
+    }
+    warnings
 }
 
 fn build_zones(
@@ -248,7 +284,12 @@ fn build_zones(
     basis: &StandardBasis,
 ) -> Result<Vec<(Zone, ZoneCurve)>, WindError> {
     let data = table(basis.edition)?;
-    let pieces = layout(plan, local, basis.strips);
+    let pieces = match (plan, &local.pitched) {
+        (Plan::Polygon { building_m, .. }, Some(pitched)) => {
+            crate::pitched_zones::layout(building_m, pitched, basis.strips)
+        }
+        _ => layout(plan, local, basis.strips),
+    };
     let mut result = Vec::new();
     for overhang in [false, true] {
         for (index, region) in [Region::Interior, Region::Edge, Region::Corner]
@@ -395,6 +436,7 @@ mod tests {
                 eave_overhang_mm: 600.0,
                 rake_overhang_mm: 300.0,
                 dead_load_kpa: 0.4,
+                gable_walls: Vec::new(),
             },
             site,
             overrides: Vec::new(),
@@ -709,14 +751,40 @@ mod tests {
             .expect_err("zero")
             .to_string()
             .starts_with("building.footprint.length_m"));
-        let mut polygon_gable = input(RoofShape::Gable, 20.0, RidgeAlong::Length, asce_site(130.0));
-        polygon_gable.building.footprint = Footprint::Polygon {
-            vertices_m: vec![[0.0, 0.0], [10.0, 0.0], [10.0, 8.0], [0.0, 8.0]],
+        let mut polygon_monoslope = input(
+            RoofShape::Monoslope,
+            2.0,
+            RidgeAlong::Length,
+            asce_site(130.0),
+        );
+        polygon_monoslope.building.footprint = Footprint::Polygon {
+            vertices_m: crate::roof::tests::l_shape(),
         };
-        assert!(analyze(&polygon_gable)
-            .expect_err("gable polygon")
+        assert!(analyze(&polygon_monoslope)
+            .expect_err("monoslope L")
             .to_string()
             .starts_with("roof.shape"));
+        let mut hip_with_gables = input(RoofShape::Hip, 20.0, RidgeAlong::Length, nbc_site(0.5));
+        hip_with_gables.building.footprint = Footprint::Polygon {
+            vertices_m: crate::roof::tests::l_shape(),
+        };
+        hip_with_gables.roof.gable_walls = vec![1];
+        assert!(analyze(&hip_with_gables)
+            .expect_err("hip with gable walls")
+            .to_string()
+            .starts_with("roof.gable_walls"));
+        let mut bad_wall = hip_with_gables.clone();
+        bad_wall.roof.shape = RoofShape::Gable;
+        bad_wall.roof.gable_walls = vec![2];
+        assert!(analyze(&bad_wall)
+            .expect_err("inside wall")
+            .to_string()
+            .starts_with("roof.gable_walls[0]"));
+        bad_wall.roof.gable_walls = vec![1, 9];
+        assert!(analyze(&bad_wall)
+            .expect_err("no such wall")
+            .to_string()
+            .starts_with("roof.gable_walls[1]"));
         let mut slanted = input(RoofShape::Flat, 0.0, RidgeAlong::Length, asce_site(130.0));
         slanted.building.footprint = Footprint::Polygon {
             vertices_m: vec![[0.0, 0.0], [10.0, 0.0], [12.0, 8.0], [0.0, 8.0]],
@@ -772,6 +840,55 @@ mod tests {
             max_relative = 1e-6
         );
         assert_eq!(analysis.planes.len(), 1);
+    }
+
+    #[test]
+    fn a_four_corner_polygon_is_the_rectangle() {
+        for (shape, slope) in [
+            (RoofShape::Gable, 22.0),
+            (RoofShape::Hip, 18.0),
+            (RoofShape::Flat, 0.0),
+        ] {
+            let rectangle = input(shape, slope, RidgeAlong::Length, nbc_site(0.5));
+            let mut polygon = rectangle.clone();
+            // Written clockwise from another corner: the same 14 × 9 m building.
+            polygon.building.footprint = Footprint::Polygon {
+                vertices_m: vec![[14.0, 9.0], [14.0, 0.0], [0.0, 0.0], [0.0, 9.0]],
+            };
+            let a = analyze(&rectangle).expect("rectangle");
+            let b = analyze(&polygon).expect("polygon");
+            assert_eq!(a, b, "{shape:?}");
+        }
+    }
+
+    #[test]
+    fn l_shaped_hip_and_gable_roofs_tile_with_planes() {
+        for shape in [RoofShape::Hip, RoofShape::Gable] {
+            let mut case = input(shape, 25.0, RidgeAlong::Length, nbc_site(0.5));
+            case.building.footprint = Footprint::Polygon {
+                vertices_m: vec![
+                    [0.0, 0.0],
+                    [20.0, 0.0],
+                    [20.0, 8.0],
+                    [8.0, 8.0],
+                    [8.0, 16.0],
+                    [0.0, 16.0],
+                ],
+            };
+            let analysis = analyze(&case).expect("analysis");
+            let outline = area_m2(&analysis.roof_outline_m);
+            assert_relative_eq!(total_zone_area(&analysis), outline, max_relative = 1e-9);
+            let planes: f64 = analysis.planes.iter().map(|p| area_m2(&p.polygon_m)).sum();
+            assert_relative_eq!(planes, outline, max_relative = 1e-9);
+            assert!(analysis.planes.len() >= 4);
+            // Mean roof height: eave 3 m plus half the rise of the 8 m wings (4 m run at 25 deg).
+            assert_relative_eq!(
+                analysis.mean_roof_height_m,
+                3.0 + 4.0 * 25f64.to_radians().tan() / 2.0,
+                max_relative = 1e-9
+            );
+            assert!(analysis.warnings.iter().any(|w| w.contains("reentrant")));
+        }
     }
 
     proptest! {

@@ -13,8 +13,7 @@ mod error;
 mod geometry;
 mod nbc;
 mod outline;
-// Wired into `analyze` by the next change; until then only its tests use it.
-#[allow(dead_code)]
+mod pitched_zones;
 mod roof;
 mod types;
 mod uplift;

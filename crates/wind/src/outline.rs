@@ -2,11 +2,15 @@
 //! roof planes and ridge/hip lines.
 //!
 //! Rectangles are worked in a local frame (u along the ridge, v across it, building on
-//! [0, lu] × [0, lv]); `swap` maps it back to plan (u, v) → (v, u) when the ridge runs along the width.
-//! Polygons are worked in plan directly.
+//! [0, lu] × [0, lv]); `swap` maps it back to plan (u, v) → (v, u) when the ridge runs along the width,
+//! then `origin` moves it into place. A polygon footprint with four corners is a rectangle and takes
+//! the rectangle's path, so the two ways of writing one give the same schedule. Other polygons are
+//! worked in plan directly; gable and hip roofs on them come from [`crate::roof`].
 
 use crate::error::WindError;
 use crate::geometry::{drop_collinear, make_ccw, rectangle, segments_touch, signed_area_m2, Point};
+use crate::roof::wings::{detect_gable_walls, is_convex};
+use crate::roof::{pitched_roof, PitchedRoof};
 use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
 use deckhold_core::limits;
 
@@ -17,9 +21,13 @@ pub(crate) enum Plan {
         along_ridge_m: f64,
         across_ridge_m: f64,
         swap: bool,
+        /// Plan position of the local origin (the building's lowest x and y corner).
+        origin: Point,
     },
     Polygon {
         building_m: Vec<Point>,
+        /// The walls as the user wrote them (corner i to corner i + 1), for `roof.gable_walls`.
+        user_walls_m: Vec<[Point; 2]>,
     },
 }
 
@@ -32,7 +40,7 @@ impl Plan {
                 across_ridge_m,
                 ..
             } => along_ridge_m.min(*across_ridge_m),
-            Plan::Polygon { building_m } => {
+            Plan::Polygon { building_m, .. } => {
                 let (min, max) = bounds(building_m);
                 (max[0] - min[0]).min(max[1] - min[1])
             }
@@ -42,8 +50,29 @@ impl Plan {
     /// Maps a local point to plan coordinates.
     pub(crate) fn to_plan(&self, point: Point) -> Point {
         match self {
-            Plan::Rectangle { swap: true, .. } => [point[1], point[0]],
-            _ => point,
+            Plan::Rectangle { origin, .. } => {
+                let [x, y] = self.vector_to_plan(point);
+                [x + origin[0], y + origin[1]]
+            }
+            Plan::Polygon { .. } => point,
+        }
+    }
+
+    /// Maps a plan point back to the local frame.
+    pub(crate) fn to_local(&self, point: Point) -> Point {
+        match self {
+            Plan::Rectangle { origin, .. } => {
+                self.vector_to_plan([point[0] - origin[0], point[1] - origin[1]])
+            }
+            Plan::Polygon { .. } => point,
+        }
+    }
+
+    /// Maps a local direction to plan (turned, not moved).
+    pub(crate) fn vector_to_plan(&self, vector: Point) -> Point {
+        match self {
+            Plan::Rectangle { swap: true, .. } => [vector[1], vector[0]],
+            _ => vector,
         }
     }
 
@@ -61,6 +90,8 @@ pub(crate) struct LocalRoof {
     pub ridge_lines_m: Vec<[Point; 2]>,
     /// (polygon, downslope unit vector) per roof plane.
     pub planes: Vec<(Vec<Point>, Point)>,
+    /// Gable and hip roofs on a polygon footprint: planes, ridges, hips and valleys.
+    pub pitched: Option<PitchedRoof>,
 }
 
 pub(crate) fn bounds(polygon: &[Point]) -> (Point, Point) {
@@ -82,22 +113,44 @@ pub(crate) fn validate_footprint(
         Footprint::Rectangle { length_m, width_m } => {
             limits::PLAN_SIZE_M.check("building.footprint.length_m", *length_m)?;
             limits::PLAN_SIZE_M.check("building.footprint.width_m", *width_m)?;
-            Ok(match ridge_along {
-                RidgeAlong::Length => Plan::Rectangle {
-                    along_ridge_m: *length_m,
-                    across_ridge_m: *width_m,
-                    swap: false,
-                },
-                RidgeAlong::Width => Plan::Rectangle {
-                    along_ridge_m: *width_m,
-                    across_ridge_m: *length_m,
-                    swap: true,
-                },
+            Ok(rectangle_plan(*length_m, *width_m, ridge_along, [0.0, 0.0]))
+        }
+        Footprint::Polygon { vertices_m } => {
+            let building_m = validate_polygon(vertices_m)?;
+            if building_m.len() == 4 {
+                let (min, max) = bounds(&building_m);
+                return Ok(rectangle_plan(
+                    max[0] - min[0],
+                    max[1] - min[1],
+                    ridge_along,
+                    min,
+                ));
+            }
+            let count = vertices_m.len();
+            Ok(Plan::Polygon {
+                building_m,
+                user_walls_m: (0..count)
+                    .map(|i| [vertices_m[i], vertices_m[(i + 1) % count]])
+                    .collect(),
             })
         }
-        Footprint::Polygon { vertices_m } => Ok(Plan::Polygon {
-            building_m: validate_polygon(vertices_m)?,
-        }),
+    }
+}
+
+fn rectangle_plan(length_m: f64, width_m: f64, ridge_along: RidgeAlong, origin: Point) -> Plan {
+    match ridge_along {
+        RidgeAlong::Length => Plan::Rectangle {
+            along_ridge_m: length_m,
+            across_ridge_m: width_m,
+            swap: false,
+            origin,
+        },
+        RidgeAlong::Width => Plan::Rectangle {
+            along_ridge_m: width_m,
+            across_ridge_m: length_m,
+            swap: true,
+            origin,
+        },
     }
 }
 
@@ -291,14 +344,22 @@ pub(crate) fn local_roof(plan: &Plan, roof: &Roof) -> Result<LocalRoof, WindErro
                 outline_m,
                 ridge_lines_m,
                 planes,
+                pitched: None,
             })
         }
-        Plan::Polygon { building_m } => {
-            if roof.shape != RoofShape::Flat {
-                return Err(WindError::unsupported(
+        Plan::Polygon {
+            building_m,
+            user_walls_m,
+        } => {
+            match roof.shape {
+                RoofShape::Flat => {}
+                RoofShape::Monoslope => return Err(WindError::unsupported(
                     "roof.shape",
-                    "polygon footprints support flat roofs only; gable, hip and monoslope need a rectangle",
-                ));
+                    "a monoslope roof needs a rectangle footprint (or a polygon with four corners)",
+                )),
+                RoofShape::Gable | RoofShape::Hip => {
+                    return pitched_local_roof(building_m, user_walls_m, roof)
+                }
             }
             let outline_m = if eave_m > 0.0 {
                 let outline = make_ccw(offset_rectilinear(building_m, eave_m));
@@ -324,9 +385,132 @@ pub(crate) fn local_roof(plan: &Plan, roof: &Roof) -> Result<LocalRoof, WindErro
                 outline_m: outline_m.clone(),
                 ridge_lines_m: Vec::new(),
                 planes: vec![(outline_m, down)],
+                pitched: None,
             })
         }
     }
+}
+
+/// Most corners of a footprint under a gable or hip roof (the skeleton's cost grows as n⁵).
+const MAX_PITCHED_CORNERS: usize = 40;
+
+/// Gable or hip roof on a polygon footprint.
+fn pitched_local_roof(
+    building_m: &[Point],
+    user_walls_m: &[[Point; 2]],
+    roof: &Roof,
+) -> Result<LocalRoof, WindError> {
+    if building_m.len() > MAX_PITCHED_CORNERS {
+        return Err(WindError::unsupported(
+            POLYGON_FIELD,
+            format!(
+                "a gable or hip roof accepts footprints of 4..{MAX_PITCHED_CORNERS} corners; this one has {}",
+                building_m.len()
+            ),
+        ));
+    }
+    let gables = match roof.shape {
+        RoofShape::Gable if roof.gable_walls.is_empty() => {
+            let found = detect_gable_walls(building_m, roof.ridge_along == RidgeAlong::Length);
+            if !found.contains(&true) {
+                return Err(WindError::unsupported(
+                    "roof.shape",
+                    "gable: no wall of this outline ends a wing; name the gable walls in roof.gable_walls or use a hip roof",
+                ));
+            }
+            found
+        }
+        RoofShape::Gable => user_gable_walls(building_m, user_walls_m, &roof.gable_walls)?,
+        _ => {
+            if !roof.gable_walls.is_empty() {
+                return Err(WindError::range(
+                    "roof.gable_walls",
+                    "applies to gable roofs only; a hip roof has eaves on every wall",
+                ));
+            }
+            vec![false; building_m.len()]
+        }
+    };
+    let pitched = pitched_roof(
+        building_m,
+        &gables,
+        roof.eave_overhang_mm / 1000.0,
+        roof.rake_overhang_mm / 1000.0,
+    )
+    .map_err(|refusal| WindError::unsupported(refusal.field, refusal.detail))?;
+    Ok(LocalRoof {
+        building_m: building_m.to_vec(),
+        outline_m: pitched.outline_m.clone(),
+        ridge_lines_m: pitched
+            .lines
+            .iter()
+            .map(|line| [line.from_m, line.to_m])
+            .collect(),
+        planes: pitched
+            .planes
+            .iter()
+            .map(|plane| (plane.polygon_m.clone(), plane.downslope))
+            .collect(),
+        pitched: Some(pitched),
+    })
+}
+
+/// The user's gable walls (indices into the corners as written) as flags on the cleaned outline.
+fn user_gable_walls(
+    building_m: &[Point],
+    user_walls_m: &[[Point; 2]],
+    indices: &[usize],
+) -> Result<Vec<bool>, WindError> {
+    let count = building_m.len();
+    let mut flags = vec![false; count];
+    for (k, index) in indices.iter().enumerate() {
+        let field = format!("roof.gable_walls[{k}]");
+        let Some([a, b]) = user_walls_m.get(*index) else {
+            return Err(WindError::range(
+                field,
+                format!(
+                    "wall {index} does not exist: the footprint has walls 0..{} (wall i runs from corner i to corner i + 1)",
+                    user_walls_m.len().saturating_sub(1)
+                ),
+            ));
+        };
+        let mid = [(a[0] + b[0]) / 2.0, (a[1] + b[1]) / 2.0];
+        let wall = (0..count).find(|i| {
+            let (p, q) = (building_m[*i], building_m[(i + 1) % count]);
+            segments_touch(p, q, mid, mid)
+        });
+        match wall {
+            Some(i) if is_convex(building_m, i) && is_convex(building_m, (i + 1) % count) => {
+                flags[i] = true;
+            }
+            _ => {
+                return Err(WindError::range(
+                    field,
+                    format!("wall {index} does not end a wing: a gable wall needs an outside corner at both ends"),
+                ))
+            }
+        }
+    }
+    Ok(flags)
+}
+
+/// The walls a gable roof on a polygon has its gables on, numbered as the user wrote the corners.
+pub(crate) fn gable_wall_numbers(plan: &Plan, local: &LocalRoof) -> Vec<usize> {
+    let (Plan::Polygon { user_walls_m, .. }, Some(pitched)) = (plan, &local.pitched) else {
+        return Vec::new();
+    };
+    user_walls_m
+        .iter()
+        .enumerate()
+        .filter(|(_, [a, b])| {
+            let mid = [(a[0] + b[0]) / 2.0, (a[1] + b[1]) / 2.0];
+            pitched
+                .gable_walls_m
+                .iter()
+                .any(|[p, q]| segments_touch(*p, *q, mid, mid))
+        })
+        .map(|(i, _)| i)
+        .collect()
 }
 
 #[cfg(test)]
@@ -343,6 +527,7 @@ mod tests {
             eave_overhang_mm: 600.0,
             rake_overhang_mm: 300.0,
             dead_load_kpa: 0.5,
+            gable_walls: Vec::new(),
         }
     }
 

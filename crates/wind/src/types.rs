@@ -38,6 +38,10 @@ pub struct Roof {
     pub eave_overhang_mm: f64,
     pub rake_overhang_mm: f64,
     pub dead_load_kpa: f64,
+    /// Gable roofs on a polygon footprint: the walls that are gable ends, numbered as the footprint's
+    /// corners are written (wall i runs from corner i to corner i + 1). Empty: found from the
+    /// outline (each wing's narrow end).
+    pub gable_walls: Vec<usize>,
 }
 
 /// NBC 2020 4.1.7.3 terrain for the exposure factor C_e.

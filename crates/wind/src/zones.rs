@@ -44,7 +44,7 @@ pub(crate) fn layout(plan: &Plan, local: &LocalRoof, strips: Strips) -> Vec<Piec
             across_ridge_m,
             ..
         } => rectangle_layout(*along_ridge_m, *across_ridge_m, local, strips),
-        Plan::Polygon { building_m } => polygon_layout(building_m, local, strips.edge_width_m),
+        Plan::Polygon { building_m, .. } => polygon_layout(building_m, local, strips.edge_width_m),
     }
 }
 
@@ -93,7 +93,7 @@ fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<
         .collect()
 }
 
-fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
+pub(crate) fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
     for (normal, offset) in lines {
         let mut next = Vec::with_capacity(pieces.len() * 2);
         for piece in &pieces {
@@ -181,7 +181,7 @@ fn polygon_layout(building: &[Point], local: &LocalRoof, a: f64) -> Vec<Piece> {
 }
 
 /// Region of a point for a counter-clockwise rectilinear wall line.
-fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Region, bool) {
+pub(crate) fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Region, bool) {
     let count = building.len();
     let inside = contains(building, point);
     let q = if inside {
@@ -217,7 +217,7 @@ fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Region, bool) 
     (region, !inside)
 }
 
-fn nearest_on_boundary(point: Point, polygon: &[Point]) -> Point {
+pub(crate) fn nearest_on_boundary(point: Point, polygon: &[Point]) -> Point {
     let count = polygon.len();
     let mut best = polygon[0];
     let mut best_distance = f64::INFINITY;
@@ -256,6 +256,7 @@ mod tests {
             eave_overhang_mm: 600.0,
             rake_overhang_mm: 300.0,
             dead_load_kpa: 0.5,
+            gable_walls: Vec::new(),
         };
         let plan = validate_footprint(&footprint, RidgeAlong::Length).expect("plan");
         let local = local_roof(&plan, &roof).expect("roof");

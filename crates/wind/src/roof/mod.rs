@@ -6,24 +6,15 @@ pub(crate) mod merge;
 pub(crate) mod skeleton;
 pub(crate) mod wings;
 
+use crate::edges::{EdgeKind, PlaneEdge};
 use crate::geometry::{area_m2, centroid, contains, segments_touch, split_by_line, Point};
 use skeleton::{skeleton, EaveLine, SAME_M};
 use wings::{extend_past_gables, offset_edges};
 
-/// What a line bounding a roof plane is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord)]
-pub(crate) enum LineKind {
-    Eave,
-    Rake,
-    Ridge,
-    Hip,
-    Valley,
-}
-
 /// One straight piece of a plane's boundary, in plan.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub(crate) struct BoundLine {
-    pub kind: LineKind,
+    pub kind: EdgeKind,
     pub from_m: Point,
     pub to_m: Point,
 }
@@ -45,6 +36,22 @@ pub(crate) struct PitchedPlane {
     pub downslope: Point,
     /// The plane's boundary, edge by edge, counter-clockwise.
     pub bounds: Vec<BoundLine>,
+}
+
+impl PitchedPlane {
+    /// The plane's sides in polygon order (counter-clockwise), each with its kind.
+    pub(crate) fn edges(&self) -> Vec<PlaneEdge> {
+        let count = self.polygon_m.len();
+        self.bounds
+            .iter()
+            .enumerate()
+            .map(|(index, bound)| PlaneEdge {
+                from_m: self.polygon_m[index],
+                to_m: self.polygon_m[(index + 1) % count],
+                kind: bound.kind,
+            })
+            .collect()
+    }
 }
 
 /// A pitched roof in plan.
@@ -220,12 +227,12 @@ fn bounding_lines(polygon: &[Point], line: &EaveLine) -> Vec<BoundLine> {
             let mid = [(a[0] + b[0]) / 2.0, (a[1] + b[1]) / 2.0];
             let kind = if along_normal.abs() < 1e-9 {
                 if line.run_m(mid).abs() < 1e-7 {
-                    LineKind::Eave
+                    EdgeKind::Eave
                 } else {
-                    LineKind::Ridge
+                    EdgeKind::Ridge
                 }
             } else if (along_normal.abs() - 1.0).abs() < 1e-9 {
-                LineKind::Rake
+                EdgeKind::Rake
             } else {
                 // The neighbour's normal m is n turned a right angle, the one with (n - m)·d = 0.
                 let turned = [[-n[1], n[0]], [n[1], -n[0]]];
@@ -239,13 +246,13 @@ fn bounding_lines(polygon: &[Point], line: &EaveLine) -> Vec<BoundLine> {
                 // Into this plane from the line (counter-clockwise: the inside is on the left).
                 let w = [-d[1], d[0]];
                 if (n[0] - m[0]) * w[0] + (n[1] - m[1]) * w[1] < 0.0 {
-                    LineKind::Hip
+                    EdgeKind::Hip
                 } else {
-                    LineKind::Valley
+                    EdgeKind::Valley
                 }
             };
             let (from_m, to_m) = match kind {
-                LineKind::Hip | LineKind::Valley if line.run_m(a) > line.run_m(b) => (b, a),
+                EdgeKind::Hip | EdgeKind::Valley if line.run_m(a) > line.run_m(b) => (b, a),
                 _ => (a, b),
             };
             BoundLine { kind, from_m, to_m }
@@ -261,7 +268,7 @@ fn roof_lines(planes: &[PitchedPlane]) -> Vec<BoundLine> {
     let same = |p: Point, q: Point| (p[0] - q[0]).abs() + (p[1] - q[1]).abs() < 1e-6;
     let mut pieces: Vec<BoundLine> = Vec::new();
     for bound in planes.iter().flat_map(|p| &p.bounds) {
-        if matches!(bound.kind, LineKind::Eave | LineKind::Rake) {
+        if matches!(bound.kind, EdgeKind::Eave | EdgeKind::Rake) {
             continue;
         }
         let (a, b) = (bound.from_m, bound.to_m);
@@ -281,7 +288,7 @@ fn roof_lines(planes: &[PitchedPlane]) -> Vec<BoundLine> {
         points.push(b);
         for pair in points.windows(2) {
             // Ridges run from their lower-left end, hips and valleys from their low end.
-            let flip = bound.kind == LineKind::Ridge
+            let flip = bound.kind == EdgeKind::Ridge
                 && (pair[1][0], pair[1][1]) < (pair[0][0], pair[0][1]);
             let piece = BoundLine {
                 kind: bound.kind,

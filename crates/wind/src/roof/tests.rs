@@ -5,7 +5,7 @@ use crate::geometry::{make_ccw, rectangle, signed_area_m2};
 use approx::assert_relative_eq;
 use proptest::prelude::*;
 
-fn total_length(roof: &PitchedRoof, kind: LineKind) -> f64 {
+fn total_length(roof: &PitchedRoof, kind: EdgeKind) -> f64 {
     roof.lines
         .iter()
         .filter(|l| l.kind == kind)
@@ -50,16 +50,16 @@ fn hip_rectangle_by_hand() {
     let roof = pitched_roof(&rectangle(0.0, 0.0, 12.0, 8.0), &[false; 4], 0.0, 0.0).expect("roof");
     assert_eq!(roof.planes.len(), 4);
     assert_relative_eq!(
-        total_length(&roof, LineKind::Hip),
+        total_length(&roof, EdgeKind::Hip),
         4.0 * 4.0 * 2f64.sqrt(),
         max_relative = 1e-9
     );
     assert_relative_eq!(
-        total_length(&roof, LineKind::Ridge),
+        total_length(&roof, EdgeKind::Ridge),
         4.0,
         max_relative = 1e-9
     );
-    assert_relative_eq!(total_length(&roof, LineKind::Valley), 0.0);
+    assert_relative_eq!(total_length(&roof, EdgeKind::Valley), 0.0);
     assert_relative_eq!(roof.wall_to_top_run_m, 4.0);
 }
 
@@ -75,17 +75,17 @@ fn hip_l_shape_by_hand() {
     let roof = pitched_roof(&l_shape(), &[false; 6], 0.5, 0.0).expect("roof");
     let r = 2.5 * 2f64.sqrt();
     assert_relative_eq!(
-        total_length(&roof, LineKind::Hip),
+        total_length(&roof, EdgeKind::Hip),
         5.0 * r,
         max_relative = 1e-9
     );
     assert_relative_eq!(
-        total_length(&roof, LineKind::Valley),
+        total_length(&roof, EdgeKind::Valley),
         r,
         max_relative = 1e-9
     );
     assert_relative_eq!(
-        total_length(&roof, LineKind::Ridge),
+        total_length(&roof, EdgeKind::Ridge),
         12.0,
         max_relative = 1e-9
     );
@@ -103,14 +103,14 @@ fn cross_gable_t_by_hand() {
     // the main wing, 14 m of stem ridge from y = 18 to y = 4. No overhangs.
     let gables = wings::detect_gable_walls(&t_shape(), true);
     let roof = pitched_roof(&t_shape(), &gables, 0.0, 0.0).expect("roof");
-    assert_relative_eq!(total_length(&roof, LineKind::Hip), 0.0);
+    assert_relative_eq!(total_length(&roof, EdgeKind::Hip), 0.0);
     assert_relative_eq!(
-        total_length(&roof, LineKind::Valley),
+        total_length(&roof, EdgeKind::Valley),
         8.0 * 2f64.sqrt(),
         max_relative = 1e-9
     );
     assert_relative_eq!(
-        total_length(&roof, LineKind::Ridge),
+        total_length(&roof, EdgeKind::Ridge),
         34.0,
         max_relative = 1e-9
     );
@@ -135,7 +135,7 @@ fn gable_rectangle_matches_the_two_plane_gable() {
         assert_relative_eq!(area_m2(&plane.polygon_m), 12.6 * 4.6, max_relative = 1e-12);
     }
     assert_relative_eq!(
-        total_length(&roof, LineKind::Ridge),
+        total_length(&roof, EdgeKind::Ridge),
         12.6,
         max_relative = 1e-12
     );
@@ -143,7 +143,7 @@ fn gable_rectangle_matches_the_two_plane_gable() {
         .planes
         .iter()
         .flat_map(|p| &p.bounds)
-        .filter(|b| b.kind == LineKind::Rake)
+        .filter(|b| b.kind == EdgeKind::Rake)
         .count();
     assert_eq!(rakes, 4);
 }
@@ -252,7 +252,7 @@ proptest! {
         // Every hip or valley that reaches the outline reaches it at a corner: a hip at an
         // outside corner, a valley at an inside corner.
         let outline = &roof.outline_m;
-        for line in roof.lines.iter().filter(|l| matches!(l.kind, LineKind::Hip | LineKind::Valley)) {
+        for line in roof.lines.iter().filter(|l| matches!(l.kind, EdgeKind::Hip | EdgeKind::Valley)) {
             for end in [line.from_m, line.to_m] {
                 if !on_outline(outline, end) {
                     continue;
@@ -261,14 +261,14 @@ proptest! {
                 prop_assert!(corner.is_some(), "{:?} ends on an outline edge at {:?}", line.kind, end);
                 if let Some(index) = corner {
                     let convex = wings::is_convex(outline, index);
-                    prop_assert_eq!(convex, line.kind == LineKind::Hip, "{:?} at {:?}", line.kind, end);
+                    prop_assert_eq!(convex, line.kind == EdgeKind::Hip, "{:?} at {:?}", line.kind, end);
                 }
             }
         }
         // On a hip roof every outside corner has a hip and every inside corner a valley.
         if !gable {
             for (index, corner) in outline.iter().enumerate() {
-                let kind = if wings::is_convex(outline, index) { LineKind::Hip } else { LineKind::Valley };
+                let kind = if wings::is_convex(outline, index) { EdgeKind::Hip } else { EdgeKind::Valley };
                 let found = roof.lines.iter().any(|l| l.kind == kind && is_corner(&[*corner], l.from_m).is_some());
                 prop_assert!(found, "no {:?} from corner {:?}", kind, corner);
             }
