@@ -9,6 +9,8 @@ fn every_good_fixture_runs_to_a_schedule_with_cautions() {
         "demo-ca-gable.json",
         "us-hip.json",
         "ca-l-shaped-flat.json",
+        "ca-l-hip-bungalow.json",
+        "us-t-cross-gable.json",
         "ca-existing-pattern.json",
         "ca-no-feasible-nail.json",
         "template-ca.json",

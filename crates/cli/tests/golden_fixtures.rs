@@ -16,6 +16,8 @@ const CASES: &[(&str, &str)] = &[
     ("demo-ca-gable.json", "run"),
     ("us-hip.json", "run"),
     ("ca-l-shaped-flat.json", "run"),
+    ("ca-l-hip-bungalow.json", "run"),
+    ("us-t-cross-gable.json", "run"),
     ("ca-existing-pattern.json", "run"),
     ("ca-existing-pattern.json", "check"),
     ("ca-no-feasible-nail.json", "run"),

@@ -32,7 +32,10 @@ fn the_ranch_retrofit_reports_match_their_goldens() {
         let text = String::from_utf8_lossy(&pdf.stdout);
         assert!(text.contains("Reviewed by"), "{added}: sign-off block");
         assert!(text.contains("qualified person"), "{added}: cautions");
-        assert!(text.contains("common practice, no source"), "{added}: combination rule");
+        assert!(
+            text.contains("common practice, no source"),
+            "{added}: combination rule"
+        );
     }
     goldens.finish();
 }

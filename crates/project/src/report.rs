@@ -11,10 +11,10 @@ use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_schedule::format::{feet_inches, m_to_ft, thickness_label, trimmed};
 use deckhold_schedule::Units;
 use deckhold_schedule::{
-    standard_cautions, BasisInfo, FactorRow, LineRow, NailInfo, PlanLine, PlanView, PlanZone,
-    ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
+    plane_name, standard_cautions, BasisInfo, FactorRow, LineRow, NailInfo, PlanEdge, PlanLine,
+    PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
 };
-use deckhold_wind::{Footprint, WindAnalysis};
+use deckhold_wind::{Footprint, PlaneEdge, WindAnalysis};
 
 /// The report for the job's chosen nail.
 pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
@@ -329,6 +329,7 @@ fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
         .iter()
         .map(|line| LineRow {
             number: line.number,
+            plane: plane_name(line.plane_index),
             position_m: line.position_m,
             length_m: line.length_m,
             segments: line
@@ -350,6 +351,66 @@ fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
         .collect()
 }
 
+/// The planes as the outputs show them: named, measured on the slope, with their bounding lines.
+fn plan_planes(wind: &WindAnalysis) -> Vec<PlanPlane> {
+    wind.planes
+        .iter()
+        .enumerate()
+        .map(|(index, plane)| {
+            let area_plan_m2 = polygon_area_m2(&plane.polygon_m);
+            PlanPlane {
+                name: plane_name(index),
+                polygon_m: plane.polygon_m.clone(),
+                slope_deg: plane.slope_deg,
+                downslope_m: plane.downslope_m,
+                area_plan_m2,
+                area_on_slope_m2: area_plan_m2 / plane.slope_deg.to_radians().cos(),
+                edges: plane.edges.iter().map(plan_edge).collect(),
+            }
+        })
+        .collect()
+}
+
+fn plan_edge(edge: &PlaneEdge) -> PlanEdge {
+    PlanEdge {
+        kind: edge.kind,
+        from_m: edge.from_m,
+        to_m: edge.to_m,
+        length_m: (edge.to_m[0] - edge.from_m[0]).hypot(edge.to_m[1] - edge.from_m[1]),
+    }
+}
+
+/// Ridges, hips and valleys, each shared edge once (a stretch two planes share appears in both).
+fn roof_lines(wind: &WindAnalysis) -> Vec<PlanEdge> {
+    let same = |p: [f64; 2], q: [f64; 2]| (p[0] - q[0]).abs() + (p[1] - q[1]).abs() < 1e-6;
+    let mut lines: Vec<PlanEdge> = Vec::new();
+    for edge in wind.planes.iter().flat_map(|p| &p.edges) {
+        if edge.kind.is_outer() {
+            continue;
+        }
+        let seen = lines.iter().any(|l| {
+            (same(l.from_m, edge.from_m) && same(l.to_m, edge.to_m))
+                || (same(l.from_m, edge.to_m) && same(l.to_m, edge.from_m))
+        });
+        if !seen {
+            lines.push(plan_edge(edge));
+        }
+    }
+    lines
+}
+
+/// Shoelace area of a plan polygon, m².
+fn polygon_area_m2(polygon: &[[f64; 2]]) -> f64 {
+    let count = polygon.len();
+    let twice: f64 = (0..count)
+        .map(|i| {
+            let (a, b) = (polygon[i], polygon[(i + 1) % count]);
+            a[0] * b[1] - b[0] * a[1]
+        })
+        .sum();
+    twice.abs() / 2.0
+}
+
 fn plan_view(wind: &WindAnalysis, courses: &[Course], plan: Option<&DeckPlan>) -> PlanView {
     let mut view = PlanView {
         building_outline_m: wind.building_outline_m.clone(),
@@ -364,6 +425,8 @@ fn plan_view(wind: &WindAnalysis, courses: &[Course], plan: Option<&DeckPlan>) -
                 polygons_m: zone.polygons_m.clone(),
             })
             .collect(),
+        planes: plan_planes(wind),
+        roof_lines: roof_lines(wind),
         ..PlanView::default()
     };
     let Some(plan) = plan else {

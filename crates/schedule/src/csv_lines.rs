@@ -7,8 +7,9 @@ use crate::format::{feet_inches, fixed, places};
 use crate::{finite, Schedule, ScheduleError};
 
 /// Column names of `rafter-lines.csv` in SI, units in the names.
-pub const LINES_HEADER: [&str; 8] = [
+pub const LINES_HEADER: [&str; 9] = [
     "line",
+    "plane",
     "position_m",
     "from_m",
     "to_m",
@@ -19,8 +20,9 @@ pub const LINES_HEADER: [&str; 8] = [
 ];
 
 /// Column names of `rafter-lines.csv` in US customary units.
-pub const LINES_HEADER_US: [&str; 8] = [
+pub const LINES_HEADER_US: [&str; 9] = [
     "line",
+    "plane",
     "position_ft_in",
     "from_ft_in",
     "to_ft_in",
@@ -68,6 +70,7 @@ pub fn rafter_lines_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
             writer
                 .write_record([
                     number.as_str(),
+                    line.plane.as_str(),
                     &position,
                     &length(segment.from_m),
                     &length(segment.to_m),
@@ -99,7 +102,7 @@ mod tests {
         let csv = text(&rafter_lines_csv(&sample_schedule()).expect("writes"));
         assert_eq!(
             csv.lines().next(),
-            Some("line,position_m,from_m,to_m,zone,support_role,spacing_mm,utilization")
+            Some("line,plane,position_m,from_m,to_m,zone,support_role,spacing_mm,utilization")
         );
     }
 
@@ -110,7 +113,7 @@ mod tests {
         assert_eq!(
             csv.lines().next(),
             Some(
-                "line,position_ft_in,from_ft_in,to_ft_in,zone,support_role,spacing_in,utilization"
+                "line,plane,position_ft_in,from_ft_in,to_ft_in,zone,support_role,spacing_in,utilization"
             )
         );
         // Line 2 of the sample sits 0.610 m from line 1: 24.02 in, read as 2'-0".
@@ -118,7 +121,7 @@ mod tests {
             .lines()
             .find(|row| row.starts_with("2,"))
             .expect("line 2");
-        assert!(row.starts_with("2,\"2'-0\"\"\",\"0'-0\"\"\","), "{row}");
+        assert!(row.starts_with("2,P1,\"2'-0\"\"\",\"0'-0\"\"\","), "{row}");
     }
 
     #[test]
@@ -132,10 +135,10 @@ mod tests {
         // overhang-corner panel edge at 50 mm: 3.60 x 0.305 x 50 / 400 = 0.137.
         assert_eq!(
             lines[1],
-            "1,0.000,0.000,0.632,overhang-corner,panel-edge,50,0.137"
+            "1,P1,0.000,0.000,0.632,overhang-corner,panel-edge,50,0.137"
         );
-        assert!(lines[6].starts_with("2,0.610,0.000,0.632,overhang-corner,intermediate,"));
-        assert!(lines.last().expect("rows").starts_with("20,11.590,"));
+        assert!(lines[6].starts_with("2,P1,0.610,0.000,0.632,overhang-corner,intermediate,"));
+        assert!(lines.last().expect("rows").starts_with("20,P1,11.590,"));
     }
 
     #[test]

@@ -5,7 +5,7 @@
 //! so a report can never disagree with the numbers that were checked. All quantities are SI; the writers
 //! add the US twins where [`Units::Imperial`] asks for them.
 
-pub use deckhold_core::{SupportRole, ZoneKind};
+pub use deckhold_core::{EdgeKind, SupportRole, ZoneKind};
 use serde::Serialize;
 
 /// The units every printed output uses: one system per document, so a crew never converts. The basis
@@ -93,6 +93,38 @@ pub struct PlanLine {
     pub end_m: [f64; 2],
 }
 
+/// One side of a roof plane, or one ridge, hip or valley of the roof, in plan.
+#[derive(Debug, Clone, Serialize)]
+pub struct PlanEdge {
+    pub kind: EdgeKind,
+    pub from_m: [f64; 2],
+    pub to_m: [f64; 2],
+    /// Length in plan, m (a hip or valley is longer on the slope).
+    pub length_m: f64,
+}
+
+/// One roof plane: where it is, how big and how steep, and the lines that bound it.
+#[derive(Debug, Clone, Serialize)]
+pub struct PlanPlane {
+    /// `P1`, `P2`, ... as the line table and `rafter-lines.csv` name it.
+    pub name: String,
+    /// Counter-clockwise, overhangs included, m.
+    pub polygon_m: Vec<[f64; 2]>,
+    pub slope_deg: f64,
+    /// Unit plan vector down the slope.
+    pub downslope_m: [f64; 2],
+    pub area_plan_m2: f64,
+    /// The plane's own area, measured on the slope (plan area / cos slope), m².
+    pub area_on_slope_m2: f64,
+    /// The plane's sides in order, each with what it is on the roof.
+    pub edges: Vec<PlanEdge>,
+}
+
+/// The name of plane `index` (0-based) in every output.
+pub fn plane_name(index: usize) -> String {
+    format!("P{}", index + 1)
+}
+
 /// Everything needed to draw the roof plan to scale.
 #[derive(Debug, Clone, Default, Serialize)]
 pub struct PlanView {
@@ -108,6 +140,10 @@ pub struct PlanView {
     pub panel_joints_m: Vec<[[f64; 2]; 2]>,
     /// Course lines (long panel edges), m (may be empty).
     pub course_lines_m: Vec<[[f64; 2]; 2]>,
+    /// The roof planes (may be empty).
+    pub planes: Vec<PlanPlane>,
+    /// Ridges, hips and valleys, each once, with their kinds (may be empty).
+    pub roof_lines: Vec<PlanEdge>,
 }
 
 /// The nail the schedule calls for.
@@ -199,6 +235,8 @@ pub struct SegmentRow {
 #[derive(Debug, Clone, Serialize)]
 pub struct LineRow {
     pub number: u32,
+    /// The plane the line carries (`P1`, ...).
+    pub plane: String,
     /// Plan coordinate of the line (x or y, whichever is constant), m.
     pub position_m: f64,
     /// Length along the slope, m.

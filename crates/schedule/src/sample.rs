@@ -231,6 +231,7 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
             })
             .collect();
         lines.push(LineRow {
+            plane: crate::model::plane_name(0),
             number,
             position_m: x_m,
             length_m: (width_m + 2.0 * overhang_m) / SAMPLE_SLOPE_COS,
@@ -259,6 +260,13 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         rafter_lines: plan_lines,
         panel_joints_m: panel_joints(line_count, framing_m, width_m, overhang_m),
         course_lines_m: course_lines(length_m, width_m, overhang_m),
+        planes: Vec::new(),
+        roof_lines: vec![crate::model::PlanEdge {
+            kind: crate::model::EdgeKind::Ridge,
+            from_m: [-overhang_m, width_m / 2.0],
+            to_m: [length_m + overhang_m, width_m / 2.0],
+            length_m: length_m + 2.0 * overhang_m,
+        }],
     };
 
     let zone_pressures = SAMPLE_ZONES

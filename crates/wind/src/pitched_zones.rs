@@ -58,10 +58,11 @@ pub(crate) fn layout(building: &[Point], roof: &PitchedRoof, strips: Strips) -> 
         inside_corners: &inside_corners,
         ridge_ends: &ridge_ends,
         banded_lines: &banded_lines,
+        wall_region: strips.wall_region,
     };
     let mut result = Vec::new();
     for plane in &roof.planes {
-        let mut groups: Vec<((Region, bool), Vec<Vec<Point>>)> = Vec::new();
+        let mut groups: Vec<(ZoneClass, Vec<Vec<Point>>)> = Vec::new();
         for piece in cut_all(plane.pieces_m.clone(), &lines) {
             let class = context.classify(centroid(&piece));
             match groups.iter_mut().find(|(key, _)| *key == class) {
@@ -89,16 +90,21 @@ pub(crate) fn layout(building: &[Point], roof: &PitchedRoof, strips: Strips) -> 
     result
 }
 
+/// Region and whether the piece is overhang.
+type ZoneClass = (Region, bool);
+
 struct Context<'a> {
     building: &'a [Point],
     a: f64,
     inside_corners: &'a [Point],
     ridge_ends: &'a [Point],
     banded_lines: &'a [&'a BoundLine],
+    /// The region of the strips along the walls (corner where the figure's map says so).
+    wall_region: Region,
 }
 
 impl Context<'_> {
-    fn classify(&self, point: Point) -> (Region, bool) {
+    fn classify(&self, point: Point) -> ZoneClass {
         let (region, overhang) = classify_polygon(point, self.building, self.a);
         let on_walls = if overhang {
             nearest_on_boundary(point, self.building)
@@ -108,7 +114,11 @@ impl Context<'_> {
         let near = |corner: &Point| {
             (on_walls[0] - corner[0]).abs() < self.a && (on_walls[1] - corner[1]).abs() < self.a
         };
-        let region = if self.inside_corners.iter().any(near) || self.ridge_ends.iter().any(near) {
+        let along_wall = region == Region::Edge;
+        let region = if self.inside_corners.iter().any(near)
+            || self.ridge_ends.iter().any(near)
+            || (along_wall && self.wall_region == Region::Corner)
+        {
             Region::Corner
         } else if region == Region::Interior
             && self
@@ -204,6 +214,7 @@ mod tests {
             edge_width_m: 1.0,
             ridge: false,
             hips: true,
+            wall_region: Region::Edge,
         };
         let pieces = layout(&l_shape(), &roof, strips);
         let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
@@ -226,6 +237,7 @@ mod tests {
             edge_width_m: 1.0,
             ridge: true,
             hips: false,
+            wall_region: Region::Edge,
         };
         let pieces = layout(&t_shape(), &roof, strips);
         let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();

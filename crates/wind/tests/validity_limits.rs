@@ -44,6 +44,7 @@ fn input(shape: RoofShape, slope_deg: f64, eave_height_m: f64, site: SiteWind) -
             eave_overhang_mm: 0.0,
             rake_overhang_mm: 0.0,
             dead_load_kpa: 0.4,
+            gable_walls: Vec::new(),
         },
         site,
         overrides: Vec::new(),

@@ -120,6 +120,7 @@ fn summary_json(schedule: &Schedule, layout: &DeckLayout) -> serde_json::Value {
         "nail": schedule.nail.id,
         "feasible": schedule.feasible,
         "edge_width_m": schedule.edge_width_m,
+        "roof": { "planes": schedule.plan.planes, "lines": schedule.plan.roof_lines },
         "zones": zones,
         "total_nail_count": schedule.total_nail_count,
         "total_nail_mass_kg": schedule.total_nail_mass_kg,

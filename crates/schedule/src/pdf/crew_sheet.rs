@@ -2,11 +2,11 @@
 //! zone and support, and a bold warning when a zone has no working spacing.
 
 use super::canvas::{Align, Area, Canvas, Stroke};
-use super::drawing::{draw_plan, role_words, swatch, zone_style, PlanNotes};
+use super::drawing::{draw_plan, role_words, roof_line_style, swatch, zone_style, PlanNotes};
 use super::page::Frame;
 use super::text::{line_height_mm, wrap, Font};
 use crate::format::{center_word, mass_label, on_center, small_length_label, spacing_label};
-use crate::{Schedule, SupportRole, Units, ZoneKind, ZoneRow};
+use crate::{EdgeKind, Schedule, SupportRole, Units, ZoneKind, ZoneRow};
 
 /// Share of the body width given to the drawing.
 const DRAWING_SHARE: f64 = 0.6;
@@ -448,6 +448,17 @@ fn spacing_table(
     y - 3.5
 }
 
+/// A legend row for one kind of roof line, shown when the plan has one.
+fn roof_line_item(
+    plan: &crate::PlanView,
+    kind: EdgeKind,
+    label: &str,
+) -> (bool, f64, f64, Stroke, String) {
+    let (width, grey, stroke) = roof_line_style(kind);
+    let present = plan.roof_lines.iter().any(|line| line.kind == kind);
+    (present, width, grey, stroke, label.to_string())
+}
+
 fn line_legend(
     canvas: &mut Canvas,
     schedule: &Schedule,
@@ -477,12 +488,15 @@ fn line_legend(
             "wall line".to_string(),
         ),
         (
-            !plan.ridge_lines_m.is_empty(),
+            plan.roof_lines.is_empty() && !plan.ridge_lines_m.is_empty(),
             0.4,
             0.0,
             Stroke::DashDot,
             "ridge or hip".to_string(),
         ),
+        roof_line_item(plan, EdgeKind::Ridge, "ridge"),
+        roof_line_item(plan, EdgeKind::Hip, "hip"),
+        roof_line_item(plan, EdgeKind::Valley, "valley"),
         (
             !plan.rafter_lines.is_empty(),
             0.15,

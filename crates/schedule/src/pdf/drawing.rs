@@ -8,7 +8,7 @@ use super::labels::{place_labels, ZoneLabel};
 use super::page::Paper;
 use super::text::{width_mm, Font};
 use crate::format::{plan_length_label, spacing_label, MM_PER_FT};
-use crate::{Schedule, SupportRole, Units, ZoneKind};
+use crate::{EdgeKind, Schedule, SupportRole, Units, ZoneKind};
 
 /// How a zone's fill is marked besides its grey tone.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]
@@ -151,6 +151,17 @@ pub(crate) fn fill_zone(canvas: &mut Canvas, points: &[[f64; 2]], style: ZoneSty
         }
     }
     canvas.restore();
+}
+
+/// How a ridge, hip or valley is drawn: (width mm, grey, stroke). Ridges and hips dash-dot (hips
+/// lighter), valleys dotted and heavier, so a framer tells the three apart at a glance.
+pub(crate) fn roof_line_style(kind: EdgeKind) -> (f64, f64, Stroke) {
+    match kind {
+        EdgeKind::Ridge => (0.5, 0.0, Stroke::DashDot),
+        EdgeKind::Hip => (0.4, 0.35, Stroke::DashDot),
+        EdgeKind::Valley => (0.6, 0.0, Stroke::Dotted),
+        EdgeKind::Eave | EdgeKind::Rake => (0.6, 0.0, Stroke::Solid),
+    }
 }
 
 /// A legend swatch: the zone's fill and hatch in a small framed box.
@@ -325,13 +336,26 @@ pub(crate) fn draw_plan(
             Stroke::Solid,
         );
     }
-    for [from, to] in &plan.ridge_lines_m {
+    if plan.roof_lines.is_empty() {
+        for [from, to] in &plan.ridge_lines_m {
+            let (width, grey, stroke) = roof_line_style(EdgeKind::Ridge);
+            canvas.line(
+                transform.page(*from),
+                transform.page(*to),
+                width,
+                grey,
+                stroke,
+            );
+        }
+    }
+    for line in &plan.roof_lines {
+        let (width, grey, stroke) = roof_line_style(line.kind);
         canvas.line(
-            transform.page(*from),
-            transform.page(*to),
-            0.4,
-            0.0,
-            Stroke::DashDot,
+            transform.page(line.from_m),
+            transform.page(line.to_m),
+            width,
+            grey,
+            stroke,
         );
     }
     if plan.building_outline_m.len() >= 3 {
