@@ -164,7 +164,7 @@ mod tests {
     #[test]
     fn us_common_nails_match_nds_table_l4() {
         // NDS 2018 Table L4 / ASTM F1667 common wire nails (from memory, NDS 2018); 8d 2-1/2 x 0.131
-        // also in FEMA P-55 (2011) Example 9.1 and the AWC solved example E2.1a (via xcfem/xc).
+        // also in FEMA P-55 (2011) Example 9.1.
         assert_dims("6d-common", 2.0, 0.113, 0.266);
         assert_dims("8d-common", 2.5, 0.131, 0.281);
         assert_dims("10d-common", 3.0, 0.148, 0.312);
@@ -229,7 +229,7 @@ mod tests {
 
     #[test]
     fn species_densities_match_their_tables() {
-        // NDS 2018 Table 12.3.3A via the xcfem/xc transcription (checked): DF-L 0.50, Hem-Fir 0.43,
+        // NDS 2018 Table 12.3.3A (from memory, NDS 2018): DF-L 0.50, Hem-Fir 0.43,
         // SPF 0.42, Northern 0.35, Southern Pine 0.55.
         let nds = |id: &str| {
             species(id)

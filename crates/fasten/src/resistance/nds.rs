@@ -281,9 +281,9 @@ mod tests {
     }
 
     #[test]
-    fn smooth_20d_in_spruce_matches_engineeringtoolbox() {
-        // engineeringtoolbox.com 'Nails and Spikes - Withdrawal Force' (checked): 20d, D = 0.203 in,
-        // G = 0.45, F = 1380 G^(5/2) D = 38 lb/in.
+    fn smooth_20d_in_spruce_follows_the_nds_equation_by_hand() {
+        // NDS 2018 12.2.3.1 Eq. 12.2-3 by hand (the published check of the equation is the FPL-093 test):
+        // 20d, D = 0.203 in, G = 0.45: W = 1380 (0.45)^2.5 (0.203) = 38.0 lb/in.
         let w = reference_withdrawal_lbf_per_in(NdsWithdrawalEquation::SmoothCarbon, 0.45, 0.203);
         assert_relative_eq!(w, 38.0, max_relative = 0.01);
     }

@@ -123,10 +123,23 @@ pub(crate) fn crew_sheet(
     if !schedule.feasible || schedule.zones.iter().any(|row| row.spacing_mm.is_none()) {
         y = infeasible_box(&mut canvas, schedule, column, y);
     }
-    y = spacing_table(&mut canvas, schedule, column, y, imperial);
-    y = line_legend(&mut canvas, schedule, column, y, &notes);
-    y = footnotes(&mut canvas, schedule, column, y, &notes, line_table_page);
-    sign_off(&mut canvas, schedule, column, y);
+    // The sign-off block is always drawn: the notes above give way to it, never the other way round.
+    let above_sign_off = Area {
+        y: column.y + SIGN_OFF_H_MM + 1.0,
+        h: column.h - SIGN_OFF_H_MM - 1.0,
+        ..column
+    };
+    y = spacing_table(&mut canvas, schedule, above_sign_off, y, imperial);
+    y = line_legend(&mut canvas, schedule, above_sign_off, y, &notes);
+    footnotes(
+        &mut canvas,
+        schedule,
+        above_sign_off,
+        y,
+        &notes,
+        line_table_page,
+    );
+    sign_off(&mut canvas, schedule, column);
     (canvas, notes)
 }
 
@@ -134,12 +147,9 @@ pub(crate) fn crew_sheet(
 const SIGN_OFF_H_MM: f64 = 17.0;
 
 /// Who prepared the schedule, and blanks for the reviewer's name, seal and date, at the foot of the
-/// column: a schedule goes to the roof only after that review where the law requires one. Left out when
-/// the column is full.
-fn sign_off(canvas: &mut Canvas, schedule: &Schedule, column: Area, y: f64) {
-    if y - SIGN_OFF_H_MM < column.y {
-        return;
-    }
+/// column: a schedule goes to the roof only after that review where the law requires one. The column's
+/// other blocks stop above it, so it is on every crew sheet.
+fn sign_off(canvas: &mut Canvas, schedule: &Schedule, column: Area) {
     let rule = |canvas: &mut Canvas, from_x: f64, baseline: f64| {
         canvas.line(
             [from_x, baseline - 0.8],
@@ -556,6 +566,9 @@ fn line_legend(
     y - rows as f64 * row_h - 2.5
 }
 
+/// Size of the crew sheet's notes, pt.
+const NOTE_PT: f64 = 7.0;
+
 fn footnotes(
     canvas: &mut Canvas,
     schedule: &Schedule,
@@ -581,15 +594,14 @@ fn footnotes(
         ),
     };
     let members = crate::format::plural(member);
+    // Most important first: a full column drops the notes at the end, never the sign-off block below.
     let mut text: Vec<(String, Font)> = Vec::new();
     if let Some(warning) = super::crew_notes::closer_intermediate_warning(schedule) {
         text.push((warning, Font::Bold));
     }
     text.extend([
         (
-            format!(
-                "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
-            ),
+            format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
             Font::Regular,
         ),
         (super::crew_notes::laying_sentence(schedule), Font::Regular),
@@ -598,21 +610,23 @@ fn footnotes(
         text.push((sentence, Font::Regular));
     }
     text.extend([
-        (numbering, Font::Regular),
         (
-            format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
+            format!(
+                "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
+            ),
             Font::Regular,
         ),
+        (numbering, Font::Regular),
     ]);
     for (paragraph, font) in text {
-        let lines = wrap(&paragraph, font, 7.5, column.w);
-        let h = lines.len() as f64 * line_height_mm(7.5);
+        let lines = wrap(&paragraph, font, NOTE_PT, column.w);
+        let h = lines.len() as f64 * line_height_mm(NOTE_PT);
         if y - h < column.y {
             return y;
         }
         for line in lines {
-            y -= line_height_mm(7.5);
-            canvas.text(column.x, y + 0.8, &line, font, 7.5, Align::Left);
+            y -= line_height_mm(NOTE_PT);
+            canvas.text(column.x, y + 0.8, &line, font, NOTE_PT, Align::Left);
         }
         y -= 1.0;
     }
