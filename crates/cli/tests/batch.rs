@@ -5,17 +5,15 @@
 //! it are checked in the library tests. Regenerate it only for a change that explains the difference:
 //! `deckhold batch fixtures/batch/roofs.csv --base fixtures/demo-ca-gable.json > tests/golden/batch-summary.csv`.
 
-use assert_cmd::Command;
 use std::path::PathBuf;
+
+mod support;
+use support::deckhold;
 
 fn repo(path: &str) -> PathBuf {
     PathBuf::from(env!("CARGO_MANIFEST_DIR"))
         .join("../..")
         .join(path)
-}
-
-fn deckhold() -> Command {
-    Command::cargo_bin("deckhold").expect("the deckhold binary is built")
 }
 
 fn batch_of(roofs: &PathBuf, jobs: &str) -> std::process::Output {

@@ -1,19 +1,10 @@
 //! The binary end to end: exit codes, outputs, refusals. Numbers are checked in the library tests; here
 //! the concern is that each command runs, writes what it says, and refuses bad input with exit status 2.
 
-use assert_cmd::Command;
 use predicates::prelude::*;
-use std::path::PathBuf;
 
-fn fixture(name: &str) -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-        .join("../../fixtures")
-        .join(name)
-}
-
-fn deckhold() -> Command {
-    Command::cargo_bin("deckhold").expect("the deckhold binary is built")
-}
+mod support;
+use support::{deckhold, fixture};
 
 fn json_of(output: &[u8]) -> serde_json::Value {
     serde_json::from_slice(output).expect("stdout is JSON")

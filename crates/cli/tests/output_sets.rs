@@ -8,16 +8,13 @@ use std::path::{Path, PathBuf};
 use std::process::{Command, Stdio};
 use std::time::{Duration, Instant};
 
+mod support;
+use support::fixture;
+
 const SET: [&str; 3] = ["schedule.csv", "rafter-lines.csv", "schedule.pdf"];
 
 fn binary() -> PathBuf {
     PathBuf::from(env!("CARGO_BIN_EXE_deckhold"))
-}
-
-fn fixture(name: &str) -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-        .join("../../fixtures")
-        .join(name)
 }
 
 fn run_into(project: Option<&Path>, out: &Path) -> Command {

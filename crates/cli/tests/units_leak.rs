@@ -5,18 +5,10 @@
 //! name in inches in brackets beside its metric size, the way Canadian suppliers sell nails. Each
 //! document also keeps one spelling: "center" in US output, "centre" in SI.
 
-use assert_cmd::Command;
-use std::path::{Path, PathBuf};
+use std::path::Path;
 
-fn fixture(name: &str) -> PathBuf {
-    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
-        .join("../../fixtures")
-        .join(name)
-}
-
-fn deckhold() -> Command {
-    Command::cargo_bin("deckhold").expect("the deckhold binary is built")
-}
+mod support;
+use support::{deckhold, fixture};
 
 fn is_word_char(c: char) -> bool {
     c.is_ascii_alphanumeric()

@@ -194,15 +194,8 @@ mod tests {
     use crate::roof::pitched_roof;
     use crate::roof::tests::{l_shape, t_shape};
     use crate::roof::wings::detect_gable_walls;
+    use crate::zones::tests::area_of;
     use approx::assert_relative_eq;
-
-    fn area_of(pieces: &[Piece], region: Region, overhang: bool) -> f64 {
-        pieces
-            .iter()
-            .filter(|p| p.region == region && p.overhang == overhang)
-            .map(|p| area_m2(&p.polygon_m))
-            .sum()
-    }
 
     #[test]
     fn hip_l_zones_tile_and_count_every_corner() {

@@ -238,7 +238,7 @@ pub(crate) fn nearest_on_boundary(point: Point, polygon: &[Point]) -> Point {
 }
 
 #[cfg(test)]
-mod tests {
+pub(crate) mod tests {
     use super::*;
     use crate::outline::{local_roof, validate_footprint};
     use crate::types::{Footprint, RidgeAlong, Roof, RoofShape};
@@ -264,7 +264,7 @@ mod tests {
         (local, pieces)
     }
 
-    fn area_of(pieces: &[Piece], region: Region, overhang: bool) -> f64 {
+    pub(crate) fn area_of(pieces: &[Piece], region: Region, overhang: bool) -> f64 {
         pieces
             .iter()
             .filter(|p| p.region == region && p.overhang == overhang)
