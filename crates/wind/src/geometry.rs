@@ -130,6 +130,14 @@ pub fn drop_collinear(polygon: &[Point], tolerance_m: f64) -> Vec<Point> {
 }
 
 /// Axis-aligned rectangle, counter-clockwise.
+/// The point of the segment `start`-`end` nearest to `point`.
+pub fn nearest_on_segment(point: Point, start: Point, end: Point) -> Point {
+    let (dx, dy) = (end[0] - start[0], end[1] - start[1]);
+    let t = (((point[0] - start[0]) * dx + (point[1] - start[1]) * dy) / (dx * dx + dy * dy))
+        .clamp(0.0, 1.0);
+    [start[0] + t * dx, start[1] + t * dy]
+}
+
 pub fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<Point> {
     vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
 }

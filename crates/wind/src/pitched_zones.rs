@@ -15,11 +15,13 @@
 //! Overhang parts take the zone of the nearest point of the wall line, as on rectangles.
 
 use crate::edges::EdgeKind;
-use crate::geometry::{centroid, signed_area_m2, Point};
+use crate::geometry::{centroid, nearest_on_segment, signed_area_m2, Point};
 use crate::roof::merge::union;
 use crate::roof::wings::is_convex;
 use crate::roof::{BoundLine, PitchedRoof};
-use crate::zones::{classify_polygon, cut_all, nearest_on_boundary, Piece, Region, Strips};
+use crate::zones::{
+    classify_polygon, cut_all, in_corner_square, nearest_on_boundary, Piece, Region, Strips,
+};
 
 /// Cuts every plane of `roof` into classified pieces, one polygon per plane, zone and overhang.
 pub(crate) fn layout(building: &[Point], roof: &PitchedRoof, strips: Strips) -> Vec<Piece> {
@@ -111,9 +113,7 @@ impl Context<'_> {
         } else {
             point
         };
-        let near = |corner: &Point| {
-            (on_walls[0] - corner[0]).abs() < self.a && (on_walls[1] - corner[1]).abs() < self.a
-        };
+        let near = |corner: &Point| in_corner_square(on_walls, *corner, self.a);
         let along_wall = region == Region::Edge;
         let region = if self.inside_corners.iter().any(near)
             || self.ridge_ends.iter().any(near)
@@ -149,11 +149,8 @@ fn unit_normal(line: &BoundLine) -> (Point, f64) {
 }
 
 fn distance_to_segment(point: Point, line: &BoundLine) -> f64 {
-    let (a, b) = (line.from_m, line.to_m);
-    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
-    let t =
-        (((point[0] - a[0]) * dx + (point[1] - a[1]) * dy) / (dx * dx + dy * dy)).clamp(0.0, 1.0);
-    (a[0] + t * dx - point[0]).hypot(a[1] + t * dy - point[1])
+    let foot = nearest_on_segment(point, line.from_m, line.to_m);
+    (foot[0] - point[0]).hypot(foot[1] - point[1])
 }
 
 /// Where ridges reach a gable wall: each ridge end lying on a rake, moved onto the wall under it.

@@ -2,7 +2,7 @@
 //! overhang parts of the roof outside the wall line. The pieces are cut from the roof outline, so the
 //! zones tile it exactly.
 
-use crate::geometry::{area_m2, centroid, contains, split_by_line, Point};
+use crate::geometry::{area_m2, centroid, contains, nearest_on_segment, split_by_line, Point};
 use crate::outline::{bounds, LocalRoof, Plan};
 
 /// Which kind of roof area a point lies in, before the standard names it.
@@ -195,7 +195,7 @@ pub(crate) fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Reg
         let next = building[(index + 1) % count];
         let cross =
             (here[0] - prev[0]) * (next[1] - here[1]) - (here[1] - prev[1]) * (next[0] - here[0]);
-        cross > 0.0 && (q[0] - here[0]).abs() < a && (q[1] - here[1]).abs() < a
+        cross > 0.0 && in_corner_square(q, here, a)
     });
     let edge = (0..count).any(|index| {
         let start = building[index];
@@ -217,17 +217,18 @@ pub(crate) fn classify_polygon(point: Point, building: &[Point], a: f64) -> (Reg
     (region, !inside)
 }
 
+/// Whether `point` lies in the corner zone of a wall corner: the square of half-side `a` around it
+/// (clipped to the roof by the caller's classification), as the figures draw corner zones.
+pub(crate) fn in_corner_square(point: Point, corner: Point, a: f64) -> bool {
+    (point[0] - corner[0]).abs() < a && (point[1] - corner[1]).abs() < a
+}
+
 pub(crate) fn nearest_on_boundary(point: Point, polygon: &[Point]) -> Point {
     let count = polygon.len();
     let mut best = polygon[0];
     let mut best_distance = f64::INFINITY;
     for index in 0..count {
-        let start = polygon[index];
-        let end = polygon[(index + 1) % count];
-        let (dx, dy) = (end[0] - start[0], end[1] - start[1]);
-        let t = (((point[0] - start[0]) * dx + (point[1] - start[1]) * dy) / (dx * dx + dy * dy))
-            .clamp(0.0, 1.0);
-        let candidate = [start[0] + t * dx, start[1] + t * dy];
+        let candidate = nearest_on_segment(point, polygon[index], polygon[(index + 1) % count]);
         let distance = (candidate[0] - point[0]).hypot(candidate[1] - point[1]);
         if distance < best_distance {
             best_distance = distance;
