@@ -1,39 +1,83 @@
-//! Writing result files as a set: all or nothing. The layout is documented in docs/output-sets.md.
+//! Writing result files as sets: all or nothing per set. The layout is documented in docs/output-sets.md.
 //!
-//! On Unix the files of one run live in a generation directory `DIR/.deckhold/gen-<id>/`; the symbolic link
-//! `DIR/.deckhold/current` names the generation in force, and each visible name (`DIR/schedule.csv`, ...)
-//! is a link to `.deckhold/current/<name>`. A new set is written whole into a fresh generation directory,
-//! synced, then made visible by renaming one new link over `current`: a single atomic step. So after a kill
-//! at any instant every visible name shows the previous set or the new one, never a mix. Runs take an
-//! exclusive lock on `DIR/.deckhold/lock` while they write and swap, so concurrent runs each leave a whole
-//! set, and a run removes what killed runs left behind (`gen-*`, `next-*`, `link-*`) under that lock.
+//! Each command owns one set of names in the output folder ([`OutputSet`]): `run` the schedule files,
+//! `check` the plan-check report, `compare` the comparison. A command replaces only its own set, so a
+//! `check --out` into a folder holding a `run --out` schedule leaves the schedule as it was.
+//!
+//! On Unix the files of one set live in a generation directory `DIR/.deckhold/<set>/gen-<id>/`; the
+//! symbolic link `DIR/.deckhold/<set>/current` names the generation in force, and each visible name
+//! (`DIR/schedule.csv`, ...) is a link to `.deckhold/<set>/current/<name>`. A new set is written whole into
+//! a fresh generation directory, synced, then made visible by renaming one new link over the set's
+//! `current`: a single atomic step. So after a kill at any instant every visible name of a set shows the
+//! previous set or the new one, never a mix. Runs take an exclusive lock on `DIR/.deckhold/lock` while they
+//! write and swap, so concurrent runs each leave a whole set, and a run removes what killed runs of its own
+//! set left behind (`gen-*`, `next-*`, `link-*`) under that lock.
 //!
 //! Nothing is followed that deckhold did not create: an entry found where deckhold writes must be either
 //! absent, a regular file (an older output, replaced by a link), or exactly the link deckhold makes; anything
-//! else is refused with a message. Files the tool does not name are never touched.
+//! else is refused with a message. Files the tool does not name, and the names of the other sets, are never
+//! touched.
 
 use anyhow::{bail, Context, Result};
 use std::fs;
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
-/// Every name a run may write in the output folder (the set is a subset of these).
-pub const SET_NAMES: [&str; 6] = [
-    "schedule.csv",
-    "rafter-lines.csv",
-    "schedule.pdf",
-    "schedule.json",
-    "check.csv",
-    "check.pdf",
-];
+/// The sets of files a command writes into an output folder; each replaces only its own names.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum OutputSet {
+    /// `run --out` (and each roof's folder of `batch --pdf`): the sheathing fastening schedule.
+    Schedule,
+    /// `check --out`: the plan-check report.
+    Check,
+    /// `compare --out`: the nails side by side.
+    Compare,
+}
+
+impl OutputSet {
+    /// Every set, for checks that their names never overlap.
+    pub const ALL: [OutputSet; 3] = [OutputSet::Schedule, OutputSet::Check, OutputSet::Compare];
+
+    /// The set's folder under `.deckhold/`.
+    pub fn key(self) -> &'static str {
+        match self {
+            OutputSet::Schedule => "schedule",
+            OutputSet::Check => "check",
+            OutputSet::Compare => "compare",
+        }
+    }
+
+    /// Every name the set may write (one write is a subset: `schedule.json` only with `--json`).
+    pub fn names(self) -> &'static [&'static str] {
+        match self {
+            OutputSet::Schedule => &[
+                "schedule.csv",
+                "rafter-lines.csv",
+                "schedule.pdf",
+                "schedule.json",
+            ],
+            OutputSet::Check => &["check.csv", "check.pdf"],
+            OutputSet::Compare => &["compare.csv", "compare.pdf"],
+        }
+    }
+}
+
 /// The folder beside the outputs where generations live.
 pub const STATE_DIR: &str = ".deckhold";
 
-/// Writes every `(file name, bytes)` into `folder` as one set and returns the visible paths.
-pub fn write_all_atomically(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+/// Writes every `(file name, bytes)` of `set` into `folder` as one set and returns the visible paths.
+/// Names of other sets in the folder are left as they are.
+pub fn write_all_atomically(
+    folder: &Path,
+    set: OutputSet,
+    files: &[(&str, Vec<u8>)],
+) -> Result<Vec<PathBuf>> {
     for (name, _) in files {
-        if !SET_NAMES.contains(name) {
-            bail!("internal: {name} is not one of the output set's names");
+        if !set.names().contains(name) {
+            bail!(
+                "internal: {name} is not one of the {} set's names",
+                set.key()
+            );
         }
     }
     fs::create_dir_all(folder)
@@ -44,7 +88,7 @@ pub fn write_all_atomically(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<
     {
         bail!("{} is not a folder: give --out a folder", folder.display());
     }
-    platform::write_set(folder, files)
+    platform::write_set(folder, set, files)
 }
 
 /// Writes one new file, refusing to overwrite an existing one.
@@ -80,7 +124,7 @@ fn unique_suffix() -> String {
 
 #[cfg(unix)]
 mod platform {
-    use super::{unique_suffix, write_new_file, SET_NAMES, STATE_DIR};
+    use super::{unique_suffix, write_new_file, OutputSet, STATE_DIR};
     use anyhow::{bail, Context, Result};
     use rustix::fs::{flock, FlockOperation};
     use std::fs;
@@ -91,11 +135,23 @@ mod platform {
     const CURRENT: &str = "current";
 
     /// The link target of a visible name: always the same, so the links never change once made.
-    fn visible_target(name: &str) -> PathBuf {
+    fn visible_target(set: OutputSet, name: &str) -> PathBuf {
+        Path::new(STATE_DIR)
+            .join(set.key())
+            .join(CURRENT)
+            .join(name)
+    }
+
+    /// The link target an earlier deckhold made, when every command shared one `.deckhold/current`.
+    fn legacy_target(name: &str) -> PathBuf {
         Path::new(STATE_DIR).join(CURRENT).join(name)
     }
 
-    pub fn write_set(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+    pub fn write_set(
+        folder: &Path,
+        set: OutputSet,
+        files: &[(&str, Vec<u8>)],
+    ) -> Result<Vec<PathBuf>> {
         let state = folder.join(STATE_DIR);
         ensure_state_dir(&state)?;
         let lock_path = state.join("lock");
@@ -110,14 +166,16 @@ mod platform {
             .with_context(|| format!("cannot lock {}", lock_path.display()))?;
         // From here on no other deckhold run writes in this folder until the lock is dropped.
         for (name, _) in files {
-            check_visible_name(folder, name)?;
+            check_visible_name(folder, set, name)?;
         }
-        let current = state.join(CURRENT);
+        let set_state = state.join(set.key());
+        ensure_state_dir(&set_state)?;
+        let current = set_state.join(CURRENT);
         let previous = current_generation(&current)?;
-        remove_leftovers(&state, previous.as_deref())?;
+        remove_leftovers(&set_state, previous.as_deref())?;
 
         let generation = format!("gen-{}", unique_suffix());
-        let generation_path = state.join(&generation);
+        let generation_path = set_state.join(&generation);
         fs::create_dir(&generation_path)
             .with_context(|| format!("cannot create {}", generation_path.display()))?;
         for (name, bytes) in files {
@@ -126,20 +184,20 @@ mod platform {
         sync_dir(&generation_path)?;
 
         // The one step that makes the new set visible.
-        let next = state.join(format!("next-{}", unique_suffix()));
+        let next = set_state.join(format!("next-{}", unique_suffix()));
         symlink(&generation, &next).with_context(|| format!("cannot create {}", next.display()))?;
         fs::rename(&next, &current)
             .with_context(|| format!("cannot swap in the new set at {}", current.display()))?;
-        sync_dir(&state)?;
+        sync_dir(&set_state)?;
 
         let mut written = Vec::new();
-        for name in SET_NAMES {
+        for name in set.names() {
             let path = folder.join(name);
-            let in_set = files.iter().any(|(file, _)| *file == name);
+            let in_set = files.iter().any(|(file, _)| file == name);
             if in_set {
-                make_visible_link(folder, &state, name)?;
+                make_visible_link(folder, &set_state, set, name)?;
                 written.push(path);
-            } else if is_our_link(&path, name)? {
+            } else if is_our_link(&path, set, name)? {
                 // A name of an earlier set that this one lacks (schedule.json without --json).
                 fs::remove_file(&path)
                     .with_context(|| format!("cannot remove {}", path.display()))?;
@@ -147,8 +205,9 @@ mod platform {
         }
         sync_dir(folder)?;
         if let Some(previous) = previous {
-            remove_entry(&state.join(previous))?;
+            remove_entry(&set_state.join(previous))?;
         }
+        remove_legacy_state(folder, &state)?;
         drop(lock);
         Ok(written)
     }
@@ -173,13 +232,13 @@ mod platform {
     }
 
     /// A visible name must be absent, a regular file (an earlier output) or the link deckhold makes.
-    fn check_visible_name(folder: &Path, name: &str) -> Result<()> {
+    fn check_visible_name(folder: &Path, set: OutputSet, name: &str) -> Result<()> {
         let path = folder.join(name);
         match fs::symlink_metadata(&path) {
             Err(error) if error.kind() == ErrorKind::NotFound => Ok(()),
             Err(error) => Err(error).with_context(|| format!("cannot read {}", path.display())),
             Ok(meta) if meta.file_type().is_file() => Ok(()),
-            Ok(_) if is_our_link(&path, name)? => Ok(()),
+            Ok(_) if is_our_link(&path, set, name)? => Ok(()),
             Ok(meta) if meta.file_type().is_symlink() => bail!(
                 "{} is a link deckhold did not make; it is never followed: remove it or choose another --out",
                 path.display()
@@ -192,9 +251,10 @@ mod platform {
         }
     }
 
-    fn is_our_link(path: &Path, name: &str) -> Result<bool> {
+    /// Whether `path` is the link deckhold makes for `name`, in this layout or the earlier shared one.
+    fn is_our_link(path: &Path, set: OutputSet, name: &str) -> Result<bool> {
         match fs::read_link(path) {
-            Ok(target) => Ok(target == visible_target(name)),
+            Ok(target) => Ok(target == visible_target(set, name) || target == legacy_target(name)),
             Err(error) if matches!(error.kind(), ErrorKind::NotFound | ErrorKind::InvalidInput) => {
                 Ok(false)
             }
@@ -230,12 +290,12 @@ mod platform {
         text.starts_with("gen-") && !text.contains('/') && text != "gen-"
     }
 
-    /// Removes what runs killed part-way left in the state folder: generations not in force, unused links.
-    fn remove_leftovers(state: &Path, keep: Option<&str>) -> Result<()> {
-        let entries =
-            fs::read_dir(state).with_context(|| format!("cannot list {}", state.display()))?;
+    /// Removes what runs killed part-way left in a set's folder: generations not in force, unused links.
+    fn remove_leftovers(set_state: &Path, keep: Option<&str>) -> Result<()> {
+        let entries = fs::read_dir(set_state)
+            .with_context(|| format!("cannot list {}", set_state.display()))?;
         for entry in entries {
-            let entry = entry.with_context(|| format!("cannot list {}", state.display()))?;
+            let entry = entry.with_context(|| format!("cannot list {}", set_state.display()))?;
             let name = entry.file_name();
             let Some(name) = name.to_str() else { continue };
             let stale = (is_generation_name(name) && Some(name) != keep)
@@ -246,6 +306,34 @@ mod platform {
             }
         }
         Ok(())
+    }
+
+    /// An earlier deckhold kept one shared `.deckhold/current` for every command. Once no visible name
+    /// links through it any more (each set rewritten in this layout), its generations and links go;
+    /// until then they stay, so the names of a set not yet rewritten keep showing their files.
+    fn remove_legacy_state(folder: &Path, state: &Path) -> Result<()> {
+        let current = state.join(CURRENT);
+        if fs::symlink_metadata(&current).is_err() {
+            return Ok(());
+        }
+        for set in OutputSet::ALL {
+            for name in set.names() {
+                if let Ok(target) = fs::read_link(folder.join(name)) {
+                    if target == legacy_target(name) {
+                        return Ok(());
+                    }
+                }
+            }
+        }
+        // A `current` that is not deckhold's link is not ours to remove.
+        let Ok(keep) = current_generation(&current) else {
+            return Ok(());
+        };
+        remove_entry(&current)?;
+        if let Some(keep) = keep {
+            remove_entry(&state.join(keep))?;
+        }
+        remove_leftovers(state, None)
     }
 
     /// Removes a file, link or folder without following links (a link is removed, not its target).
@@ -263,15 +351,20 @@ mod platform {
     }
 
     /// Puts deckhold's link at a visible name (replacing an earlier output file in one rename).
-    fn make_visible_link(folder: &Path, state: &Path, name: &str) -> Result<()> {
+    fn make_visible_link(
+        folder: &Path,
+        set_state: &Path,
+        set: OutputSet,
+        name: &str,
+    ) -> Result<()> {
         let path = folder.join(name);
-        if is_our_link(&path, name)? {
+        if fs::read_link(&path).is_ok_and(|target| target == visible_target(set, name)) {
             return Ok(());
         }
-        // The link's text is relative to the output folder; it is made in the state folder (where a run
+        // The link's text is relative to the output folder; it is made in the set's folder (where a run
         // killed here leaves it for the next run to remove) and renamed to its name in one step.
-        let staged = state.join(format!("link-{}", unique_suffix()));
-        symlink(visible_target(name), &staged)
+        let staged = set_state.join(format!("link-{}", unique_suffix()));
+        symlink(visible_target(set, name), &staged)
             .with_context(|| format!("cannot create {}", staged.display()))?;
         fs::rename(&staged, &path).with_context(|| format!("cannot create {}", path.display()))
     }
@@ -288,12 +381,16 @@ mod platform {
     //! Fallback where symbolic links and locks are not available in the same way: each file is written to a
     //! unique temporary and renamed into place. Each file is whole, but a kill between renames can leave
     //! files of two runs side by side (documented in docs/output-sets.md).
-    use super::{unique_suffix, write_new_file};
+    use super::{unique_suffix, write_new_file, OutputSet};
     use anyhow::{Context, Result};
     use std::fs;
     use std::path::{Path, PathBuf};
 
-    pub fn write_set(folder: &Path, files: &[(&str, Vec<u8>)]) -> Result<Vec<PathBuf>> {
+    pub fn write_set(
+        folder: &Path,
+        _set: OutputSet,
+        files: &[(&str, Vec<u8>)],
+    ) -> Result<Vec<PathBuf>> {
         let mut staged = Vec::new();
         for (name, bytes) in files {
             let temporary = folder.join(format!(".{name}.{}.partial", unique_suffix()));
@@ -312,5 +409,26 @@ mod platform {
             written.push(path);
         }
         Ok(written)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::OutputSet;
+
+    #[test]
+    fn no_name_belongs_to_two_sets() {
+        let mut names: Vec<&str> = OutputSet::ALL
+            .iter()
+            .flat_map(|set| set.names().iter().copied())
+            .collect();
+        let count = names.len();
+        names.sort_unstable();
+        names.dedup();
+        assert_eq!(names.len(), count, "{names:?}");
+        let mut keys: Vec<&str> = OutputSet::ALL.iter().map(|set| set.key()).collect();
+        keys.sort_unstable();
+        keys.dedup();
+        assert_eq!(keys.len(), OutputSet::ALL.len());
     }
 }

@@ -49,20 +49,16 @@ fn reference_set(project: Option<&Path>, folder: &Path) -> Vec<Option<Vec<u8>>> 
     set
 }
 
-/// Names in the state folder that are neither the lock, the current link nor the current generation.
+/// Names in the schedule set's state folder that are neither the current link nor the current generation.
 fn leftovers(out: &Path) -> Vec<String> {
-    let state = out.join(".deckhold");
+    let state = out.join(".deckhold").join("schedule");
     let current = fs::read_link(state.join("current")).ok();
     fs::read_dir(&state)
         .map(|entries| {
             entries
                 .filter_map(Result::ok)
                 .map(|entry| entry.file_name().to_string_lossy().to_string())
-                .filter(|name| {
-                    name != "lock"
-                        && name != "current"
-                        && Some(Path::new(name)) != current.as_deref()
-                })
+                .filter(|name| name != "current" && Some(Path::new(name)) != current.as_deref())
                 .collect()
         })
         .unwrap_or_default()
@@ -199,4 +195,104 @@ fn an_earlier_plain_file_is_replaced_and_a_planted_state_link_is_refused() {
         0,
         "nothing written through it"
     );
+}
+
+const CHECK_SET: [&str; 2] = ["check.csv", "check.pdf"];
+
+/// `check --out` of the retrofit fixture into `out`.
+fn check_into(out: &Path) -> Command {
+    let mut command = Command::new(binary());
+    command
+        .arg("check")
+        .arg(fixture("us-retrofit-1970s.json"))
+        .arg("--add")
+        .arg("rsrs-01")
+        .arg("--out")
+        .arg(out)
+        .stdout(Stdio::null())
+        .stderr(Stdio::null());
+    command
+}
+
+fn read_names(out: &Path, names: &[&str]) -> Vec<Option<Vec<u8>>> {
+    names
+        .iter()
+        .map(|name| fs::read(out.join(name)).ok())
+        .collect()
+}
+
+#[test]
+fn a_check_report_written_after_a_schedule_leaves_the_schedule_alone() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("job");
+    let schedule = reference_set(None, &out);
+    assert!(check_into(&out).status().expect("runs").success());
+    assert_eq!(read_set(&out), schedule, "the schedule set is untouched");
+    let report = read_names(&out, &CHECK_SET);
+    assert!(report.iter().all(Option::is_some), "the check set is whole");
+    // And again: a second check replaces only its own set.
+    assert!(check_into(&out).status().expect("runs").success());
+    assert_eq!(read_set(&out), schedule);
+    assert_eq!(read_names(&out, &CHECK_SET), report);
+}
+
+#[test]
+fn a_schedule_written_after_a_check_report_leaves_the_report_alone() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("job");
+    assert!(check_into(&out).status().expect("runs").success());
+    let report = read_names(&out, &CHECK_SET);
+    assert!(report.iter().all(Option::is_some), "the check set is whole");
+    let schedule = reference_set(None, &out);
+    assert_eq!(
+        read_names(&out, &CHECK_SET),
+        report,
+        "the check set is untouched"
+    );
+    assert_eq!(read_set(&out), schedule);
+    assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+}
+
+/// A folder an earlier deckhold wrote (one shared `.deckhold/current` for every command): a check keeps
+/// the schedule's old links working; once every set is rewritten, the old state goes.
+#[test]
+fn a_folder_of_the_earlier_shared_layout_is_taken_over_set_by_set() {
+    use std::os::unix::fs::symlink;
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("earlier");
+    let generation = out.join(".deckhold").join("gen-1-2-3");
+    fs::create_dir_all(&generation).expect("generation");
+    for name in SET.iter().chain(&CHECK_SET) {
+        fs::write(generation.join(name), format!("earlier {name}")).expect("file");
+        symlink(
+            Path::new(".deckhold").join("current").join(name),
+            out.join(name),
+        )
+        .expect("link");
+    }
+    symlink("gen-1-2-3", out.join(".deckhold").join("current")).expect("current");
+
+    assert!(check_into(&out).status().expect("runs").success());
+    assert_eq!(
+        fs::read(out.join("schedule.csv")).expect("still readable"),
+        b"earlier schedule.csv",
+        "the earlier schedule is left as it was"
+    );
+    assert_ne!(
+        fs::read(out.join("check.csv")).expect("new report"),
+        b"earlier check.csv"
+    );
+    assert!(
+        out.join(".deckhold").join("current").exists(),
+        "still in use"
+    );
+
+    let schedule = reference_set(None, &out);
+    assert_eq!(read_set(&out), schedule);
+    assert!(
+        fs::symlink_metadata(out.join(".deckhold").join("current")).is_err(),
+        "the earlier shared state is removed once nothing links through it"
+    );
+    assert!(!generation.exists());
+    assert!(read_names(&out, &CHECK_SET).iter().all(Option::is_some));
 }

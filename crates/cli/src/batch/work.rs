@@ -6,7 +6,7 @@ use std::path::Path;
 use std::time::{Duration, Instant};
 
 use super::rows::OwnedRow;
-use crate::output::write_all_atomically;
+use crate::output::{write_all_atomically, OutputSet};
 use deckhold_project::batch::{job_refusal, refused, row_project, summarize, Columns, Row};
 use deckhold_project::{run_job, schedule_for};
 use deckhold_schedule::{
@@ -97,7 +97,7 @@ fn write_roof_files(folder: &Path, schedule: &deckhold_schedule::Schedule) -> Re
         ("rafter-lines.csv", rafter_lines_csv(schedule)?),
         ("schedule.pdf", schedule_pdf(schedule, &options)?),
     ];
-    write_all_atomically(folder, &files)?;
+    write_all_atomically(folder, OutputSet::Schedule, &files)?;
     Ok(())
 }
 

@@ -385,7 +385,8 @@ pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::R
     let pdf = deckhold_schedule::report_pdf(&check_report(report), &options)
         .context("the plan-check PDF could not be drawn")?;
     let files = [("check.csv", check_csv(report)), ("check.pdf", pdf)];
-    let written = crate::output::write_all_atomically(folder, &files)?;
+    let written =
+        crate::output::write_all_atomically(folder, crate::output::OutputSet::Check, &files)?;
     for path in written {
         eprintln!("wrote {}", path.display());
     }

@@ -6,7 +6,7 @@ use std::time::Instant;
 
 use super::{caution_lines, load_project, spacing_text};
 use crate::args::RunArgs;
-use crate::output::write_all_atomically;
+use crate::output::{write_all_atomically, OutputSet};
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_deck::layout::DeckLayout;
@@ -51,7 +51,7 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
         if args.json {
             files.push(("schedule.json", serde_json::to_vec_pretty(&schedule)?));
         }
-        written = write_all_atomically(folder, &files)?;
+        written = write_all_atomically(folder, OutputSet::Schedule, &files)?;
         lap("write files");
     }
 
