@@ -131,6 +131,34 @@ words!(SupportRole {
     Intermediate => "intermediate",
 });
 
+/// What a framing line is: the member the deck lands on. The crew sheet names it beside the line's
+/// number, and identical lines are grouped only within one kind.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum LineKind {
+    /// A common rafter, truss or joist at the framing spacing.
+    Common,
+    /// The member over a wall parallel to the framing (a gable-end wall, an inside wall of an L).
+    EndWall,
+    /// A hip rafter, from an outside corner to the ridge.
+    Hip,
+    /// A valley rafter, from an inside corner to the ridge.
+    Valley,
+    /// A jack rafter: from the eave wall up to a hip or valley.
+    Jack,
+    /// Blocking between members where the user asks for it.
+    Blocking,
+}
+
+words!(LineKind {
+    Common => "common",
+    EndWall => "end-wall",
+    Hip => "hip",
+    Valley => "valley",
+    Jack => "jack",
+    Blocking => "blocking",
+});
+
 /// The roof's shape, as the wind standards' figures distinguish it.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
 pub enum RoofShape {

@@ -9,5 +9,5 @@ pub mod kinds;
 pub mod limits;
 pub mod units;
 
-pub use kinds::{Basis, EdgeKind, RoofShape, SupportRole, ZoneKind};
+pub use kinds::{Basis, EdgeKind, LineKind, RoofShape, SupportRole, ZoneKind};
 pub use limits::{Limit, OutOfRange};

@@ -61,43 +61,6 @@ pub struct FramingInput {
     pub walls_m: Vec<[[f64; 2]; 2]>,
 }
 
-/// What a framing line is.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, PartialOrd, Ord, Serialize, Deserialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum LineKind {
-    /// A common rafter, truss or joist at the framing spacing.
-    Common,
-    /// The member over a wall parallel to the framing (a gable-end wall, an inside wall of an L).
-    EndWall,
-    /// A hip rafter, from an outside corner to the ridge.
-    Hip,
-    /// A valley rafter, from an inside corner to the ridge.
-    Valley,
-    /// A jack rafter: from the eave wall up to a hip or valley.
-    Jack,
-    /// Blocking between members where the user asks for it.
-    Blocking,
-}
-
-impl LineKind {
-    pub fn as_str(self) -> &'static str {
-        match self {
-            LineKind::Common => "common",
-            LineKind::EndWall => "end-wall",
-            LineKind::Hip => "hip",
-            LineKind::Valley => "valley",
-            LineKind::Jack => "jack",
-            LineKind::Blocking => "blocking",
-        }
-    }
-}
-
-impl std::fmt::Display for LineKind {
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(self.as_str())
-    }
-}
-
 /// The deck panels.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct PanelInput {
@@ -124,7 +87,7 @@ pub enum Stagger {
 }
 
 /// What a framing line is to the panels of one course (the shared vocabulary).
-pub use deckhold_core::SupportRole;
+pub use deckhold_core::{LineKind, SupportRole};
 
 /// One panel strip bearing on a line: a continuous beam over the lines it crosses.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]

@@ -12,7 +12,7 @@ use serde::Serialize;
 
 pub use crate::error::SpacingError;
 use crate::error::{check_positive, check_range};
-use crate::layout::{Axis, DeckLayout, SupportRole};
+use crate::layout::{Axis, DeckLayout, LineKind, SupportRole};
 
 /// Spacing limits a basis imposes on roof sheathing nails.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -163,6 +163,8 @@ pub struct Segment {
 pub struct RafterLine {
     pub number: u32,
     pub plane_index: usize,
+    /// What the member is (common, end-wall, jack, ...), from the layout.
+    pub kind: LineKind,
     pub axis: Axis,
     pub position_m: f64,
     /// Length along the slope, m.
@@ -382,6 +384,7 @@ fn plan_or_check(
         lines.push(RafterLine {
             number: line.number,
             plane_index: line.plane_index,
+            kind: line.kind,
             axis: line.axis,
             position_m: line.position_m,
             length_m: line.length_m,

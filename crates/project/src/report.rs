@@ -330,6 +330,7 @@ fn line_rows(wind: &WindAnalysis, plan: &DeckPlan) -> Vec<LineRow> {
         .map(|line| LineRow {
             number: line.number,
             plane: plane_name(line.plane_index),
+            kind: line.kind,
             position_m: line.position_m,
             length_m: line.length_m,
             segments: line

@@ -11,6 +11,7 @@ mod csv_summary;
 mod error;
 mod finite;
 pub mod format;
+pub mod line_groups;
 pub mod model;
 mod pdf;
 #[doc(hidden)]

@@ -5,7 +5,7 @@
 //! so a report can never disagree with the numbers that were checked. All quantities are SI; the writers
 //! add the US twins where [`Units::Imperial`] asks for them.
 
-pub use deckhold_core::{EdgeKind, SupportRole, ZoneKind};
+pub use deckhold_core::{EdgeKind, LineKind, SupportRole, ZoneKind};
 use serde::Serialize;
 
 /// The units every printed output uses: one system per document, so a crew never converts. The basis
@@ -237,6 +237,8 @@ pub struct LineRow {
     pub number: u32,
     /// The plane the line carries (`P1`, ...).
     pub plane: String,
+    /// What the member is: common, end-wall, hip, jack, valley or blocking.
+    pub kind: LineKind,
     /// Plan coordinate of the line (x or y, whichever is constant), m.
     pub position_m: f64,
     /// Length along the slope, m.

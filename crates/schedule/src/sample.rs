@@ -232,6 +232,11 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
             .collect();
         lines.push(LineRow {
             plane: crate::model::plane_name(0),
+            kind: if number == 1 || number == line_count {
+                LineKind::EndWall
+            } else {
+                LineKind::Common
+            },
             number,
             position_m: x_m,
             length_m: (width_m + 2.0 * overhang_m) / SAMPLE_SLOPE_COS,
