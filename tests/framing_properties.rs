@@ -11,6 +11,7 @@
 use deckhold_deck::layout::{DeckLayout, LineKind};
 use deckhold_project::job::deck_layout;
 use deckhold_project::{parse_project, DEMO_PROJECT_JSON};
+use deckhold_tests::outlines::{distance_to_segment, inside};
 use deckhold_wind::{RoofPlane, WindAnalysis};
 use proptest::prelude::*;
 use serde_json::{json, Value};
@@ -89,31 +90,11 @@ fn lay_out(roof: &Roof) -> Option<(WindAnalysis, DeckLayout, f64)> {
     Some((wind, layout, project.deck.min_piece_mm))
 }
 
-fn distance_to_segment(p: [f64; 2], a: [f64; 2], b: [f64; 2]) -> f64 {
-    let (dx, dy) = (b[0] - a[0], b[1] - a[1]);
-    let t = (((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy)).clamp(0.0, 1.0);
-    (p[0] - a[0] - t * dx).hypot(p[1] - a[1] - t * dy)
-}
-
 fn on_boundary(plane: &RoofPlane, p: [f64; 2]) -> bool {
     plane
         .edges
         .iter()
         .any(|edge| distance_to_segment(p, edge.from_m, edge.to_m) < 1e-5)
-}
-
-fn inside(polygon: &[[f64; 2]], p: [f64; 2]) -> bool {
-    let mut crossings = 0;
-    for (i, a) in polygon.iter().enumerate() {
-        let b = polygon[(i + 1) % polygon.len()];
-        if (a[1] > p[1]) != (b[1] > p[1]) {
-            let x = a[0] + (p[1] - a[1]) / (b[1] - a[1]) * (b[0] - a[0]);
-            if x > p[0] {
-                crossings += 1;
-            }
-        }
-    }
-    crossings % 2 == 1
 }
 
 proptest! {

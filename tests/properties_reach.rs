@@ -8,18 +8,10 @@
 use deckhold_project::{parse_project, project_from_value, run_job_with_nails, schedule_for, Job};
 use deckhold_schedule::{rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions};
 use deckhold_tests::fixture_text;
+use deckhold_tests::reach::{cases, config, run_counted, REACHED};
 use proptest::prelude::*;
-use proptest::test_runner::{Config, TestCaseError, TestRunner};
+use proptest::test_runner::{TestCaseError, TestRunner};
 use serde_json::Value;
-use std::cell::Cell;
-
-/// The case count: `PROPTEST_CASES` when set, else `default`.
-fn cases(default: u32) -> u32 {
-    std::env::var("PROPTEST_CASES")
-        .ok()
-        .and_then(|text| text.parse().ok())
-        .unwrap_or(default)
-}
 
 /// Valid projects the mutations start from, with the one nail each is compared on: Canadian gable, US hip,
 /// Canadian L-shaped flat roof.
@@ -32,47 +24,6 @@ const BASES: &[(&str, &str)] = &[
 fn base_value(index: usize) -> Value {
     serde_json::from_str(&fixture_text(BASES[index % BASES.len()].0)).expect("fixture JSON")
 }
-
-/// Runs `cases` cases of `body`, which returns whether the case reached the job; prints the share and
-/// fails below one half.
-fn run_counted<S: Strategy>(
-    name: &str,
-    cases: u32,
-    counted: &str,
-    strategy: S,
-    body: impl Fn(S::Value) -> Result<bool, TestCaseError>,
-) {
-    let (tried, reached) = (Cell::new(0u32), Cell::new(0u32));
-    let mut runner = TestRunner::new(config(cases));
-    let result = runner.run(&strategy, |case| {
-        let got_there = body(case)?;
-        tried.set(tried.get() + 1);
-        reached.set(reached.get() + u32::from(got_there));
-        Ok(())
-    });
-    if let Err(error) = result {
-        panic!("{name}: {error}");
-    }
-    let (tried, reached) = (tried.get(), reached.get());
-    println!(
-        "{name}: {reached} of {tried} cases {counted} ({:.0} %)",
-        100.0 * f64::from(reached) / f64::from(tried.max(1))
-    );
-    assert!(
-        2 * reached >= tried,
-        "{name}: only {reached} of {tried} cases {counted}; the mutations are refused too often"
-    );
-}
-
-fn config(cases: u32) -> Config {
-    Config {
-        cases,
-        failure_persistence: None,
-        ..Config::default()
-    }
-}
-
-const REACHED: &str = "reached the job";
 
 /// The places of the numbers in a project file that a user sets one at a time: every number outside an
 /// array, and each array of numbers (a polygon or a nail list) as a whole.

@@ -2,6 +2,8 @@
 //! machinery (also used by `crates/cli/tests/golden_fixtures.rs`).
 
 pub mod golden;
+pub mod outlines;
+pub mod reach;
 
 pub use golden::{golden_path, Goldens};
 
