@@ -1,5 +1,7 @@
 //! `rafter-lines.csv`: one row per segment of every rafter line, lines in the order of
-//! [`Schedule::lines`], segments from the low end up. A pure table, like `schedule.csv`, in the
+//! [`Schedule::lines`], segments from the low end up. Each row names the member's kind (common,
+//! end-wall, hip, valley, jack, blocking) beside its `position_m`, so a checker can tell the wall
+//! member from the common rafter next to it. A pure table, like `schedule.csv`, in the
 //! schedule's units: metres in SI, feet-inches to the nearest 1/8 in on the US basis.
 
 use crate::csv_schedule::spacing_cell;
@@ -7,9 +9,10 @@ use crate::format::{feet_inches, fixed, places};
 use crate::{finite, Schedule, ScheduleError};
 
 /// Column names of `rafter-lines.csv` in SI, units in the names.
-pub const LINES_HEADER: [&str; 9] = [
+pub const LINES_HEADER: [&str; 10] = [
     "line",
     "plane",
+    "kind",
     "position_m",
     "from_m",
     "to_m",
@@ -20,9 +23,10 @@ pub const LINES_HEADER: [&str; 9] = [
 ];
 
 /// Column names of `rafter-lines.csv` in US customary units.
-pub const LINES_HEADER_US: [&str; 9] = [
+pub const LINES_HEADER_US: [&str; 10] = [
     "line",
     "plane",
+    "kind",
     "position_ft_in",
     "from_ft_in",
     "to_ft_in",
@@ -71,6 +75,7 @@ pub fn rafter_lines_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
                 .write_record([
                     number.as_str(),
                     line.plane.as_str(),
+                    line.kind.as_str(),
                     &position,
                     &length(segment.from_m),
                     &length(segment.to_m),
@@ -102,7 +107,7 @@ mod tests {
         let csv = text(&rafter_lines_csv(&sample_schedule()).expect("writes"));
         assert_eq!(
             csv.lines().next(),
-            Some("line,plane,position_m,from_m,to_m,zone,support_role,spacing_mm,utilization")
+            Some("line,plane,kind,position_m,from_m,to_m,zone,support_role,spacing_mm,utilization")
         );
     }
 
@@ -113,7 +118,7 @@ mod tests {
         assert_eq!(
             csv.lines().next(),
             Some(
-                "line,plane,position_ft_in,from_ft_in,to_ft_in,zone,support_role,spacing_in,utilization"
+                "line,plane,kind,position_ft_in,from_ft_in,to_ft_in,zone,support_role,spacing_in,utilization"
             )
         );
         // Line 2 of the sample sits 0.610 m from line 1: 24.02 in, read as 2'-0".
@@ -121,7 +126,10 @@ mod tests {
             .lines()
             .find(|row| row.starts_with("2,"))
             .expect("line 2");
-        assert!(row.starts_with("2,P1,\"2'-0\"\"\",\"0'-0\"\"\","), "{row}");
+        assert!(
+            row.starts_with("2,P1,common,\"2'-0\"\"\",\"0'-0\"\"\","),
+            "{row}"
+        );
     }
 
     #[test]
@@ -135,10 +143,13 @@ mod tests {
         // overhang-corner panel edge at 50 mm: 3.60 x 0.305 x 50 / 400 = 0.137.
         assert_eq!(
             lines[1],
-            "1,P1,0.000,0.000,0.632,overhang-corner,panel-edge,50,0.137"
+            "1,P1,end-wall,0.000,0.000,0.632,overhang-corner,panel-edge,50,0.137"
         );
-        assert!(lines[6].starts_with("2,P1,0.610,0.000,0.632,overhang-corner,intermediate,"));
-        assert!(lines.last().expect("rows").starts_with("20,P1,11.590,"));
+        assert!(lines[6].starts_with("2,P1,common,0.610,0.000,0.632,overhang-corner,intermediate,"));
+        assert!(lines
+            .last()
+            .expect("rows")
+            .starts_with("20,P1,end-wall,11.590,"));
     }
 
     #[test]
