@@ -246,7 +246,9 @@ pub fn layout_deck(
         let grid = grid_lines(plane, &frame, framing)?;
         let width_m = panel.width_mm / 1000.0;
         let slope_length_m = frame.slope_length_m();
-        let course_count = ((slope_length_m / width_m) - 1e-9).ceil().max(1.0) as usize;
+        // A remainder under 1 mm is measuring noise, not a course: the last course takes it (panels
+        // are laid with gaps of a few millimetres anyway).
+        let course_count = ((slope_length_m - MIN_PIECE_M) / width_m).ceil().max(1.0) as usize;
         let layer = CourseLayer {
             plane_index,
             frame: &frame,
@@ -267,7 +269,11 @@ pub fn layout_deck(
                 plane_index,
                 index,
                 from_m: index as f64 * width_m,
-                to_m: ((index + 1) as f64 * width_m).min(slope_length_m),
+                to_m: if index + 1 == course_count {
+                    slope_length_m
+                } else {
+                    (index + 1) as f64 * width_m
+                },
                 joints_m: laid.joints_m,
                 adjustments: laid.adjustments,
             });
