@@ -23,19 +23,48 @@ fn the_ranch_retrofit_reports_match_their_goldens() {
         assert_eq!(output.status.code(), Some(0), "{added}: every zone passes");
         let csv = std::fs::read_to_string(out.join("check.csv")).expect("check.csv");
         goldens.check(&format!("us-retrofit-1970s/check-add-{added}.csv"), &csv);
+        // Page 1 alone is what a reviewer signs off: project, basis, the pattern given, pass/fail and
+        // utilization per zone, what to add where, the review block, the cautions; titled as a
+        // plan-check report, not as the schedule.
         let pdf = Command::new("pdftotext")
-            .arg("-layout")
+            .args(["-layout", "-f", "1", "-l", "1"])
             .arg(out.join("check.pdf"))
             .arg("-")
             .output()
             .expect("`pdftotext` is missing: install poppler-utils");
         let text = String::from_utf8_lossy(&pdf.stdout);
-        assert!(text.contains("Reviewed by"), "{added}: sign-off block");
-        assert!(text.contains("qualified person"), "{added}: cautions");
+        for expected in [
+            "Larkspur Court ranch re-roof",
+            "ASCE 7-22",
+            "Pattern given",
+            "6d-common: 6 in o.c. at panel edges, 12 in o.c. at intermediate supports",
+            "util.",
+            "what to add, where",
+            "set 3 in from",
+            "PASS in every zone",
+            "Reviewed by",
+            "qualified person",
+            "common practice, no source",
+            "Plan-check report",
+            "page 1 of 2",
+        ] {
+            assert!(
+                text.contains(expected),
+                "{added}: page 1 lacks {expected:?}:\n{text}"
+            );
+        }
         assert!(
-            text.contains("common practice, no source"),
-            "{added}: combination rule"
+            !text.contains("nailing schedule"),
+            "{added}: the report is not titled as the schedule"
         );
+        for zone in [
+            "corner (3)",
+            "edge (2)",
+            "interior (1)",
+            "overhang-edge (2-oh)",
+        ] {
+            assert!(text.contains(zone), "{added}: page 1 lacks zone {zone}");
+        }
     }
     goldens.finish();
 }

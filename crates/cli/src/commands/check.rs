@@ -32,7 +32,11 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
     let units = project.units;
     let passes = checked.passes();
     if let Some(folder) = &args.out {
-        let report = super::check_report::from_check(&project, &pattern, &checked);
+        let report = super::check_report::CheckReport::new(
+            &project,
+            &pattern,
+            super::check_report::Checked::Pattern(&checked),
+        );
         super::check_report::write_report(&report, folder)?;
     }
     if args.json {

@@ -33,126 +33,156 @@ pub struct CheckReport<'a> {
     pub added_id: Option<String>,
 }
 
-impl CheckReport<'_> {
+/// The check a report is made from: the pattern in place alone, or with a fastener added (`--add`).
+pub enum Checked<'a> {
+    Pattern(&'a PatternCheck),
+    Retrofit(&'a Retrofit),
+}
+
+/// One report row from a check row or a retrofit row: both name the zone, role, utilization, line,
+/// verdict and notes with the same fields, and differ only in the spacings and what to add.
+macro_rules! report_row {
+    ($row:expr, $existing_mm:expr, $added_mm:expr, $what_to_add:expr) => {
+        ReportRow {
+            zone: $row.label.to_string(),
+            code_zone: $row.code_zone.clone(),
+            role: $row.support_role.to_string(),
+            existing_mm: $existing_mm,
+            added_mm: $added_mm,
+            what_to_add: $what_to_add,
+            utilization: $row.utilization,
+            line: $row.governing_line,
+            passes: $row.passes,
+            notes: $row.notes.join("; "),
+        }
+    };
+}
+
+impl<'a> CheckReport<'a> {
+    /// The report of a plain plan check or of a retrofit.
+    pub fn new(project: &'a Project, pattern: &'a ExistingPattern, checked: Checked<'a>) -> Self {
+        let is_us = project.units.is_us();
+        let (rows, plan, fastener_lines, warnings, added_id) = match checked {
+            Checked::Pattern(check) => (
+                pattern_rows(check),
+                &check.plan,
+                vec![format!(
+                    "Existing: {}, credit {:.2}",
+                    fastener_summary(&check.nail, &check.resistance, is_us),
+                    pattern.credit
+                )],
+                check.resistance.warnings.clone(),
+                None,
+            ),
+            Checked::Retrofit(retrofit) => (
+                retrofit_rows(retrofit, is_us),
+                &retrofit.plan,
+                retrofit_fastener_lines(retrofit, is_us),
+                retrofit
+                    .existing_resistance
+                    .warnings
+                    .iter()
+                    .chain(&retrofit.added_resistance.warnings)
+                    .cloned()
+                    .collect(),
+                Some(retrofit.added.id.clone()),
+            ),
+        };
+        CheckReport {
+            project,
+            pattern,
+            rows,
+            plan,
+            fastener_lines,
+            warnings,
+            added_id,
+        }
+    }
+
     fn passes(&self) -> bool {
         self.rows.iter().all(|row| row.passes)
     }
 }
 
-/// The report of a plain plan check.
-pub fn from_check<'a>(
-    project: &'a Project,
-    pattern: &'a ExistingPattern,
-    checked: &'a PatternCheck,
-) -> CheckReport<'a> {
-    let is_us = project.units.is_us();
-    CheckReport {
-        project,
-        pattern,
-        rows: checked
-            .rows
-            .iter()
-            .map(|row| ReportRow {
-                zone: row.label.to_string(),
-                code_zone: row.code_zone.clone(),
-                role: row.support_role.to_string(),
-                existing_mm: row.given_spacing_mm,
-                added_mm: None,
-                what_to_add: row
-                    .added_nails_per_gap
-                    .map(|added| format!("{added} more `{}` between each pair", checked.nail.id))
-                    .unwrap_or_default(),
-                utilization: row.utilization,
-                line: row.governing_line,
-                passes: row.passes,
-                notes: row.notes.join("; "),
-            })
-            .collect(),
-        plan: &checked.plan,
-        fastener_lines: vec![format!(
-            "Existing: {} ({}), {} per fastener ({}), credit {:.2}",
-            checked.nail.id,
-            checked.nail.description,
-            force_label(checked.resistance.governing_n, is_us),
-            checked.resistance.governing_mode.as_str(),
-            pattern.credit
-        )],
-        warnings: checked.resistance.warnings.clone(),
-        added_id: None,
-    }
+fn pattern_rows(check: &PatternCheck) -> Vec<ReportRow> {
+    check
+        .rows
+        .iter()
+        .map(|row| {
+            let what_to_add = match row.added_nails_per_gap {
+                Some(added) => format!("{added} more `{}` between each pair", check.nail.id),
+                None if row.passes => "nothing".to_string(),
+                None => format!(
+                    "no spacing of `{}` works here: check with --add and a stronger fastener",
+                    check.nail.id
+                ),
+            };
+            report_row!(row, row.given_spacing_mm, None, what_to_add)
+        })
+        .collect()
 }
 
-/// The report of a retrofit (`--add`).
-pub fn from_retrofit<'a>(
-    project: &'a Project,
-    pattern: &'a ExistingPattern,
-    retrofit: &'a Retrofit,
-) -> CheckReport<'a> {
-    let is_us = project.units.is_us();
-    CheckReport {
-        project,
-        pattern,
-        rows: retrofit
-            .rows
-            .iter()
-            .map(|row| ReportRow {
-                zone: row.label.to_string(),
-                code_zone: row.code_zone.clone(),
-                role: row.support_role.to_string(),
-                existing_mm: row.existing_spacing_mm,
-                added_mm: row.added_spacing_mm,
-                what_to_add: match row.placement {
-                    Some(placement) => format!(
-                        "`{}`: {}",
-                        retrofit.added.id,
-                        placement.describe(|mm| spacing_label(Some(mm), is_us))
-                    ),
-                    None if row.passes => "nothing".to_string(),
-                    None => String::new(),
-                },
-                utilization: row.utilization,
-                line: row.governing_line,
-                passes: row.passes,
-                notes: row.notes.join("; "),
-            })
-            .collect(),
-        plan: &retrofit.plan,
-        fastener_lines: vec![
-            format!(
-                "Existing: {} ({}), {} per fastener ({}), credit {:.2}: {} counted",
-                retrofit.existing.id,
-                retrofit.existing.description,
-                force_label(retrofit.existing_resistance.governing_n, is_us),
-                retrofit.existing_resistance.governing_mode.as_str(),
-                retrofit.credit,
-                force_label(
-                    retrofit.existing_resistance.governing_n * retrofit.credit,
-                    is_us
-                )
-            ),
-            format!(
-                "Added: {} ({}), {} per fastener ({}); source: {}",
-                retrofit.added.id,
-                retrofit.added.description,
-                force_label(retrofit.added_resistance.governing_n, is_us),
-                retrofit.added_resistance.governing_mode.as_str(),
-                retrofit.added.provenance()
-            ),
-            format!(
-                "Closest spacing between any two fasteners: {}",
-                spacing_label(Some(retrofit.min_neighbour_mm), is_us)
-            ),
-            format!("Combination: {COMBINATION_RULE}"),
-        ],
-        warnings: retrofit
-            .existing_resistance
-            .warnings
-            .iter()
-            .chain(&retrofit.added_resistance.warnings)
-            .cloned()
-            .collect(),
-        added_id: Some(retrofit.added.id.clone()),
-    }
+fn retrofit_rows(retrofit: &Retrofit, is_us: bool) -> Vec<ReportRow> {
+    retrofit
+        .rows
+        .iter()
+        .map(|row| {
+            let what_to_add = match row.placement {
+                Some(placement) => format!(
+                    "`{}`: {}",
+                    retrofit.added.id,
+                    placement.describe(|mm| spacing_label(Some(mm), is_us))
+                ),
+                None if row.passes => "nothing".to_string(),
+                None => String::new(),
+            };
+            report_row!(
+                row,
+                row.existing_spacing_mm,
+                row.added_spacing_mm,
+                what_to_add
+            )
+        })
+        .collect()
+}
+
+/// "id (description), R per fastener (mode)": one fastener and its governing resistance.
+fn fastener_summary(
+    nail: &deckhold_fasten::Nail,
+    resistance: &deckhold_fasten::Resistance,
+    is_us: bool,
+) -> String {
+    format!(
+        "{} ({}), {} per fastener ({})",
+        nail.id,
+        nail.description,
+        force_label(resistance.governing_n, is_us),
+        resistance.governing_mode.as_str()
+    )
+}
+
+fn retrofit_fastener_lines(retrofit: &Retrofit, is_us: bool) -> Vec<String> {
+    vec![
+        format!(
+            "Existing: {}, credit {:.2}: {} counted",
+            fastener_summary(&retrofit.existing, &retrofit.existing_resistance, is_us),
+            retrofit.credit,
+            force_label(
+                retrofit.existing_resistance.governing_n * retrofit.credit,
+                is_us
+            )
+        ),
+        format!(
+            "Added: {}; source: {}",
+            fastener_summary(&retrofit.added, &retrofit.added_resistance, is_us),
+            retrofit.added.provenance()
+        ),
+        format!(
+            "Closest spacing between any two fasteners: {}",
+            spacing_label(Some(retrofit.min_neighbour_mm), is_us)
+        ),
+        format!("Combination: {COMBINATION_RULE}"),
+    ]
 }
 
 /// A CSV field, quoted when it holds a comma, quote or line break.
@@ -227,6 +257,9 @@ impl CheckReport<'_> {
             .unwrap_or_default()
     }
 }
+
+/// The kind of document, in every page's title block and the PDF's title.
+const REPORT_KIND: &str = "Plan-check report";
 
 /// The PDF report: page 1 for sign-off, then the detail.
 pub fn check_report(report: &CheckReport) -> Report {
@@ -357,7 +390,8 @@ pub fn check_report(report: &CheckReport) -> Report {
             .to_string(),
     ));
     Report {
-        title: format!("Plan check: {}", project.info.name),
+        title: format!("{REPORT_KIND}: {}", project.info.name),
+        kind: REPORT_KIND.to_string(),
         project: project.info.name.clone(),
         site: project.info.site.clone(),
         date: project.info.date.clone(),
@@ -388,7 +422,7 @@ pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::R
     let written =
         crate::output::write_all_atomically(folder, crate::output::OutputSet::Check, &files)?;
     for path in written {
-        eprintln!("wrote {}", path.display());
+        errln!("wrote {}", path.display());
     }
     Ok(())
 }

@@ -22,7 +22,11 @@ pub fn run(
     let retrofit = plan_retrofit(project, wind, pattern, added_id)
         .with_context(|| format!("the retrofit with `{added_id}` could not be sized"))?;
     if let Some(folder) = out {
-        let report = super::check_report::from_retrofit(project, pattern, &retrofit);
+        let report = super::check_report::CheckReport::new(
+            project,
+            pattern,
+            super::check_report::Checked::Retrofit(&retrofit),
+        );
         super::check_report::write_report(&report, folder)?;
     }
     if as_json {

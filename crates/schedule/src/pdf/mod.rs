@@ -182,18 +182,22 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
         site: schedule.project.site.clone(),
         date: schedule.project.date.clone(),
         basis_id: schedule.basis.id.clone(),
+        kind: SCHEDULE_KIND.to_string(),
     };
     document_bytes(
         sheets,
         &title,
         &DocumentInfo {
-            title: format!("Roof sheathing nailing schedule: {}", schedule.project.name),
+            title: format!("{SCHEDULE_KIND}: {}", schedule.project.name),
             author: schedule.project.prepared_by.clone(),
             subject: format!("{}; {}", schedule.project.site, schedule.basis.title),
         },
         options,
     )
 }
+
+/// The schedule's kind of document, in its title block and metadata title.
+const SCHEDULE_KIND: &str = "Roof sheathing nailing schedule";
 
 /// The document's metadata.
 struct DocumentInfo {

@@ -53,6 +53,9 @@ pub(crate) struct TitleInfo {
     pub site: String,
     pub date: String,
     pub basis_id: String,
+    /// What kind of document this is ("Roof sheathing nailing schedule", "Plan-check report"), printed
+    /// in the title block so a page on its own says which document it belongs to.
+    pub kind: String,
 }
 
 /// The frame of one paper size, with its cautions wrapped once.
@@ -195,7 +198,7 @@ impl Frame {
         canvas.text(
             left,
             y,
-            "Roof sheathing nailing schedule",
+            &fit(&title.kind, Font::Regular, 7.5, inner_w),
             Font::Regular,
             7.5,
             Align::Left,

@@ -34,6 +34,8 @@ pub struct Part {
 pub struct Report {
     /// The document title (PDF metadata and first heading).
     pub title: String,
+    /// The kind of document ("Plan-check report"), printed in every page's title block.
+    pub kind: String,
     pub project: String,
     pub site: String,
     pub date: String,
@@ -99,6 +101,7 @@ pub fn report_pdf(report: &Report, options: &PdfOptions) -> Result<Vec<u8>, Sche
         site: report.site.clone(),
         date: report.date.clone(),
         basis_id: report.basis_id.clone(),
+        kind: report.kind.clone(),
     };
     let about = DocumentInfo {
         title: report.title.clone(),
