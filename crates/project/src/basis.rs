@@ -1,7 +1,7 @@
 //! The design basis: which wind standard and which fastener standard, and how they are combined.
 
 use deckhold_fasten::Method;
-use deckhold_schedule::{BasisInfo, Units};
+use deckhold_model::{BasisInfo, Units};
 use deckhold_wind::StrengthMethod;
 
 pub use deckhold_core::Basis;

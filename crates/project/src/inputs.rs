@@ -3,10 +3,10 @@
 //! checker reads the first against the drawings and the second against the method.
 
 use crate::project::{Project, StaggerChoice};
-use deckhold_schedule::format::{
+use deckhold_model::format::{
     plan_length_label, pressure_label, small_length_label, spacing_label, thickness_label,
 };
-use deckhold_schedule::InputRow;
+use deckhold_model::InputRow;
 use deckhold_wind::Footprint;
 use serde_json::Value;
 

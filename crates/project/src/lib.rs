@@ -2,7 +2,7 @@
 //!
 //! [`parse_project`] turns the project file's text into a validated [`Project`] (SI inside, every message
 //! naming its key path); [`run_job`] runs wind zones, nail resistance and spacing into a
-//! [`deckhold_schedule::Schedule`]. No file or terminal I/O here: the binary reads and writes files.
+//! [`deckhold_model::Schedule`]. No file or terminal I/O here: the binary reads and writes files.
 
 pub mod basis;
 pub mod batch;

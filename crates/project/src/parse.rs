@@ -11,7 +11,7 @@ use crate::units::Quantity;
 use deckhold_core::limits::{self, Limit};
 use deckhold_core::ZoneKind;
 use deckhold_fasten::Nail;
-use deckhold_schedule::ProjectInfo;
+use deckhold_model::ProjectInfo;
 use deckhold_wind::{
     AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
     NbcWind, RidgeAlong, Roof, RoofShape, SiteWind, Terrain, WindInput,

@@ -3,7 +3,7 @@
 use crate::basis::Basis;
 use deckhold_core::ZoneKind;
 use deckhold_fasten::{FastenError, Nail};
-use deckhold_schedule::{ProjectInfo, Units};
+use deckhold_model::{ProjectInfo, Units};
 use deckhold_wind::WindInput;
 
 /// Which way the framing lines run in plan, when the user overrides the roof's natural direction.

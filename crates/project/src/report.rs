@@ -8,9 +8,9 @@ use crate::project::{Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
-use deckhold_schedule::format::{feet_inches, m_to_ft, thickness_label, trimmed};
-use deckhold_schedule::Units;
-use deckhold_schedule::{
+use deckhold_model::format::{feet_inches, m_to_ft, thickness_label, trimmed};
+use deckhold_model::Units;
+use deckhold_model::{
     plane_name, standard_cautions, BasisInfo, FactorRow, LineRow, NailInfo, PlanEdge, PlanLine,
     PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
 };

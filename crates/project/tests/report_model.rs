@@ -3,7 +3,7 @@
 use deckhold_project::{parse_project, run_job, schedule_for};
 use std::path::PathBuf;
 
-fn schedule_of(name: &str) -> (deckhold_project::Job, deckhold_schedule::Schedule) {
+fn schedule_of(name: &str) -> (deckhold_project::Job, deckhold_model::Schedule) {
     let path = PathBuf::from(env!("CARGO_MANIFEST_DIR"))
         .join("../../fixtures")
         .join(name);
@@ -79,7 +79,7 @@ fn the_rows_are_the_chosen_nails_plan_worst_zones_first() {
             schedule.zones.iter().all(|z| z.spacing_mm.is_some()),
             "{name}"
         );
-        for caution in deckhold_schedule::standard_cautions() {
+        for caution in deckhold_model::standard_cautions() {
             assert!(schedule.cautions.contains(&caution), "{name}: {caution}");
         }
         assert_eq!(

@@ -1,8 +1,19 @@
 //! The writers' guard against NaN and infinity: each value a writer prints is checked first, and the error
 //! names the field by its path in the [`Schedule`], so the bug upstream is easy to find.
 
-use crate::format::finite;
 use crate::{Schedule, ScheduleError};
+
+/// `Ok(value)` when finite, else an error naming `field`.
+pub fn finite(field: &str, value: f64) -> Result<f64, ScheduleError> {
+    if value.is_finite() {
+        Ok(value)
+    } else {
+        Err(ScheduleError::NonFinite {
+            field: field.to_string(),
+            value,
+        })
+    }
+}
 
 /// The values printed in `schedule.csv`.
 pub(crate) fn check_zone_rows(schedule: &Schedule) -> Result<(), ScheduleError> {
@@ -116,6 +127,15 @@ pub(crate) fn check_all(schedule: &Schedule) -> Result<(), ScheduleError> {
 mod tests {
     use super::*;
     use crate::sample::sample_schedule;
+
+    #[test]
+    fn finite_names_the_field() {
+        let error = finite("zones[0].demand_n", f64::INFINITY).expect_err("infinity is refused");
+        assert_eq!(
+            error.to_string(),
+            "zones[0].demand_n: inf is not a finite number; the report prints finite values only"
+        );
+    }
 
     #[test]
     fn the_sample_is_finite() {

@@ -1,5 +1,6 @@
-//! The computed schedule as report data ([`model`]), and the writers that turn it into bytes:
-//! `schedule.csv`, `rafter-lines.csv` and the PDF (crew sheet, design basis, rafter-line table).
+//! The writers that turn the computed schedule (the report model of `deckhold-model`) into bytes:
+//! `schedule.csv`, `rafter-lines.csv`, `summary.csv` and the PDF (crew sheet, design basis, rafter-line
+//! table). The model is re-exported here so the binary names one crate for the report.
 //!
 //! Writers only format: every engineering value comes from the [`Schedule`]; the writers convert units
 //! for the imperial twins and round to the fixed places listed in `docs/report-format.md`. No file I/O,
@@ -10,19 +11,21 @@ mod csv_schedule;
 mod csv_summary;
 mod error;
 mod finite;
-pub mod format;
 pub mod line_groups;
-pub mod model;
 mod pdf;
 #[doc(hidden)]
 pub mod sample;
 
 pub use csv_lines::{rafter_lines_csv, LINES_HEADER, LINES_HEADER_US};
 pub use csv_schedule::{schedule_csv, NO_SPACING, SCHEDULE_HEADER, SCHEDULE_HEADER_US};
-pub use csv_summary::{
-    summary_header, summary_header_csv, summary_record, RoofStatus, RoofSummary, SpacingCell,
-    SUMMARY_ROLES, SUMMARY_ZONES,
-};
+pub use csv_summary::{summary_header, summary_header_csv, summary_record};
+pub use deckhold_model::model;
+pub use deckhold_model::model::*;
 pub use error::ScheduleError;
-pub use model::*;
+
+/// Number formatting (from `deckhold-model`), and the writers' finiteness guard.
+pub mod format {
+    pub use crate::finite::finite;
+    pub use deckhold_model::format::*;
+}
 pub use pdf::{report_pdf, schedule_pdf, Block, Part, PdfOptions, Report};

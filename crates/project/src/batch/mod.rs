@@ -28,7 +28,7 @@ pub fn job_refusal(
     columns: &Columns,
     row: &Row,
     error: &crate::JobError,
-) -> deckhold_schedule::RoofSummary {
+) -> deckhold_model::RoofSummary {
     let message = error.to_string();
     refused(
         row.id(columns),

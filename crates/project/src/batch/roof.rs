@@ -5,7 +5,7 @@ use super::overrides::apply_row;
 use crate::job::Job;
 use crate::project::Project;
 use crate::report::zone_rows_of;
-use deckhold_schedule::{RoofStatus, RoofSummary};
+use deckhold_model::{RoofStatus, RoofSummary};
 use serde_json::Value;
 
 /// A row of the batch file as read: its number as a spreadsheet shows it (the header is row 1) and its

@@ -1,7 +1,7 @@
 //! The computed schedule as plain report data.
 //!
-//! The project crate fills a [`Schedule`] from the wind, withdrawal and spacing results; the writers in this
-//! crate turn it into CSV and PDF bytes. Nothing here computes engineering values: the writers only format,
+//! The project crate fills a [`Schedule`] from the wind, withdrawal and spacing results; the writers
+//! (`deckhold-schedule`) turn it into CSV and PDF bytes. Nothing here computes engineering values: the writers only format,
 //! so a report can never disagree with the numbers that were checked. All quantities are SI; the writers
 //! add the US twins where [`Units::Imperial`] asks for them.
 

@@ -4,8 +4,6 @@
 //! The writers only format: every engineering value arrives in SI from [`crate::Schedule`]; the imperial
 //! US values are exact re-expressions with the conversion constants below.
 
-use crate::ScheduleError;
-
 /// The conversions under the names the writers use (`deckhold_core::units` holds the one definition).
 pub use deckhold_core::units::{
     ft_from_m as m_to_ft, in_from_mm as mm_to_in, lbf_from_n as n_to_lbf,
@@ -33,7 +31,7 @@ pub mod places {
 
 /// `value` with exactly `decimals` places. Never prints `-0.000`: a value that rounds to zero is zero.
 ///
-/// Callers check finiteness first ([`finite`]); a non-finite value prints as `n/a` rather than panicking.
+/// Writers check finiteness first (`deckhold_schedule::format::finite`); a non-finite value prints as `n/a` rather than panicking.
 pub fn fixed(value: f64, decimals: usize) -> String {
     if !value.is_finite() {
         return "n/a".to_string();
@@ -54,18 +52,6 @@ pub fn trimmed(value: f64, decimals: usize) -> String {
         text.trim_end_matches('0').trim_end_matches('.').to_string()
     } else {
         text
-    }
-}
-
-/// `Ok(value)` when finite, else an error naming `field`.
-pub fn finite(field: &str, value: f64) -> Result<f64, ScheduleError> {
-    if value.is_finite() {
-        Ok(value)
-    } else {
-        Err(ScheduleError::NonFinite {
-            field: field.to_string(),
-            value,
-        })
     }
 }
 
@@ -329,15 +315,6 @@ mod tests {
         assert_eq!(thickness_label(11.1, true), "7/16 in");
         assert_eq!(thickness_label(25.4, true), "1 in");
         assert_eq!(thickness_label(15.1, false), "15.1 mm");
-    }
-
-    #[test]
-    fn finite_names_the_field() {
-        let error = finite("zones[0].demand_n", f64::INFINITY).expect_err("infinity is refused");
-        assert_eq!(
-            error.to_string(),
-            "zones[0].demand_n: inf is not a finite number; the report prints finite values only"
-        );
     }
 
     #[test]
