@@ -14,7 +14,89 @@ fn options(schedule: &Schedule) -> PdfOptions {
     PdfOptions {
         creation_date: schedule.project.date.clone(),
         document_id: "deckhold-demo".to_string(),
+        ..PdfOptions::default()
     }
+}
+
+/// The text of the PDF at `path`, by `pdftotext -layout` (pages end with a form feed).
+fn layout_text(path: &std::path::Path) -> String {
+    let output = tool("pdftotext")
+        .args(["-layout"])
+        .arg(path)
+        .arg("-")
+        .output()
+        .expect("pdftotext runs");
+    assert!(output.status.success());
+    String::from_utf8_lossy(&output.stdout).into_owned()
+}
+
+/// The text of each page, by `pdftotext -layout`.
+fn page_texts(bytes: &[u8]) -> Vec<String> {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let path = folder.path().join("schedule.pdf");
+    std::fs::write(&path, bytes).expect("write");
+    let text = layout_text(&path);
+    let mut pages: Vec<String> = text.split('\u{c}').map(str::to_string).collect();
+    if pages.last().is_some_and(|page| page.trim().is_empty()) {
+        pages.pop();
+    }
+    pages
+}
+
+/// Issue 13's "done means": with one crew page asked for, the demo's whole nailing pattern (every line,
+/// grouped with the lines nailed alike) is on page 1 under the plan; without it, the pattern has a page
+/// of its own. Common practice, no source: a crew takes one sheet onto the roof.
+#[test]
+fn the_demo_crew_sheet_fits_one_page_with_every_line() {
+    let schedule = demo_schedule();
+    let one = PdfOptions {
+        crew_pages: Some(1),
+        ..options(&schedule)
+    };
+    assert_eq!(deckhold_schedule::crew_sheet_pages(&schedule, &one), 1);
+    assert_eq!(
+        deckhold_schedule::crew_sheet_pages(&schedule, &options(&schedule)),
+        2
+    );
+    let pages = page_texts(&schedule_pdf(&schedule, &one).expect("PDF"));
+    let crew: Vec<&String> = pages
+        .iter()
+        .filter(|page| page.contains("Crew sheet"))
+        .collect();
+    assert_eq!(crew.len(), 1, "one crew page");
+    assert!(pages[0].contains("Crew sheet"));
+    let page_one = &pages[0];
+    assert!(page_one.contains("NAILING ALONG EACH TRUSS LINE (62 lines"));
+    // Every line number appears in the pattern's "lines" column (as a run or one by one).
+    let listed: Vec<u32> = page_one
+        .lines()
+        .filter_map(|line| {
+            let cell = line.trim_start().split("  ").next()?;
+            cell.chars()
+                .all(|c| c.is_ascii_digit() || c == ',' || c == '-' || c == ' ')
+                .then_some(cell.to_string())
+        })
+        .flat_map(|cell| {
+            cell.split(", ")
+                .map(|part| part.trim().trim_end_matches(','))
+                .filter_map(|part| match part.split_once('-') {
+                    Some((a, b)) => Some((a.parse::<u32>().ok()?..=b.parse().ok()?).collect()),
+                    None => part.parse().ok().map(|n| vec![n]),
+                })
+                .flatten()
+                .collect::<Vec<u32>>()
+        })
+        .collect();
+    for line in &schedule.lines {
+        assert!(
+            listed.contains(&line.number),
+            "line {} is missing",
+            line.number
+        );
+    }
+    let default_pages = page_texts(&schedule_pdf(&schedule, &options(&schedule)).expect("PDF"));
+    assert_eq!(default_pages.len(), pages.len() + 1);
+    assert!(default_pages[1].contains("Crew sheet, line by line"));
 }
 
 fn tool(name: &str) -> Command {
@@ -54,14 +136,7 @@ fn the_demo_pdf_carries_every_spacing_and_caution_and_is_deterministic() {
     let path = folder.path().join("demo.pdf");
     std::fs::write(&path, &bytes).expect("write");
 
-    let output = tool("pdftotext")
-        .args(["-layout"])
-        .arg(&path)
-        .arg("-")
-        .output()
-        .expect("pdftotext runs");
-    assert!(output.status.success());
-    let text = String::from_utf8_lossy(&output.stdout);
+    let text = layout_text(&path);
     let words: String = text.split_whitespace().collect::<Vec<_>>().join(" ");
     // On the crew sheet's plan each zone's name is followed, within the six lines under it and in the same
     // column, by its two spacings. The corner's intermediate 75 mm is the hand calculation of

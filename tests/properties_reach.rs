@@ -447,6 +447,7 @@ fn the_same_input_writes_the_same_bytes() {
                 let options = PdfOptions {
                     creation_date: schedule.project.date.clone(),
                     document_id: "same-bytes".to_string(),
+                    ..PdfOptions::default()
                 };
                 Some([
                     schedule_csv(&schedule).ok()?,

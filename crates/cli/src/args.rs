@@ -79,6 +79,11 @@ pub struct RunArgs {
     /// Print how long each stage took, to stderr.
     #[arg(long)]
     pub timings: bool,
+    /// Pages the PDF's crew sheet may take: 1 puts the nailing pattern (lines nailed alike grouped)
+    /// under the plan on page 1. Without it the pattern gets its own page(s) after page 1. When the
+    /// pattern does not fit, nothing is cut: a warning says how many pages it takes.
+    #[arg(long, value_name = "N", value_parser = clap::value_parser!(u32).range(1..=99))]
+    pub crew_pages: Option<u32>,
 }
 
 #[derive(Debug, Args)]

@@ -482,3 +482,32 @@ fn a_closed_pipe_ends_the_run_quietly() {
         output.status
     );
 }
+
+/// `--crew-pages 1`: the demo's pattern fits under its plan (no warning); the US hip roof's 88 lines in
+/// 14 patterns do not, and the run says so instead of cutting rows. Regression values of our own layout.
+#[test]
+fn crew_pages_warns_when_the_pattern_does_not_fit() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let demo = folder.path().join("demo");
+    deckhold()
+        .args(["run", "--crew-pages", "1", "--out"])
+        .arg(&demo)
+        .assert()
+        .success()
+        .stdout(predicate::str::contains("--crew-pages").not());
+    let hip = folder.path().join("hip");
+    deckhold()
+        .args(["run"])
+        .arg(fixture("us-hip.json"))
+        .args(["--crew-pages", "1", "--out"])
+        .arg(&hip)
+        .assert()
+        .success()
+        .stdout(predicate::str::contains(
+            "--crew-pages 1: the nailing pattern of the 88 framing lines does not fit; the crew sheet takes 2 pages",
+        ));
+    deckhold()
+        .args(["run", "--crew-pages", "0"])
+        .assert()
+        .code(2);
+}

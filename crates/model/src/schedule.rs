@@ -75,6 +75,19 @@ pub struct InputRow {
     pub value: String,
 }
 
+/// Where the first panel of one roof plane goes.
+#[derive(Debug, Clone, Serialize)]
+pub struct LayingRow {
+    /// `P1`, `P2`, ...
+    pub plane: String,
+    /// Plan point of the eave corner the first panel goes in, m.
+    pub corner_m: [f64; 2],
+    /// The plane's lowest-numbered framing line, where the first panel's end lands.
+    pub first_line: Option<u32>,
+    /// The first course's low edge above the eave edge, up the slope, m (0: flush).
+    pub first_course_offset_m: f64,
+}
+
 /// A roof zone drawn on the plan.
 #[derive(Debug, Clone, Serialize)]
 pub struct PlanZone {
@@ -262,6 +275,8 @@ pub struct Schedule {
     pub deck_description: String,
     /// Where and how panel laying starts (start corner, first-course offset, narrowest piece).
     pub panel_laying: String,
+    /// Where laying starts on each plane, for the crew sheet (may be empty).
+    pub laying_starts: Vec<LayingRow>,
     pub nail: NailInfo,
     pub resistance: ResistanceInfo,
     /// Velocity pressure and the wind factors used.

@@ -11,8 +11,9 @@ use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_model::format::{feet_inches, m_to_ft, thickness_label, trimmed};
 use deckhold_model::Units;
 use deckhold_model::{
-    plane_name, standard_cautions, BasisInfo, FactorRow, LineRow, NailInfo, PlanEdge, PlanLine,
-    PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow, ZoneRow,
+    plane_name, standard_cautions, BasisInfo, FactorRow, LayingRow, LineRow, NailInfo, PlanEdge,
+    PlanLine, PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow,
+    ZoneRow,
 };
 use deckhold_wind::{Footprint, PlaneEdge, WindAnalysis};
 
@@ -112,6 +113,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         framing_member: project.framing.member.as_str().to_string(),
         deck_description: deck_text(project, project.units),
         panel_laying: laying_text(project, &job.layout, project.units),
+        laying_starts: laying_rows(&job.layout),
         nail: NailInfo {
             id: nail.id.clone(),
             description: nail.description.clone(),
@@ -196,6 +198,25 @@ fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
             format!("{:.0} mm", project.deck.min_piece_mm)
         }
     )
+}
+
+/// Where the first panel goes on each plane, with the plane's lowest-numbered line.
+fn laying_rows(layout: &DeckLayout) -> Vec<LayingRow> {
+    layout
+        .laying_starts
+        .iter()
+        .map(|start| LayingRow {
+            plane: plane_name(start.plane_index),
+            corner_m: start.corner_m,
+            first_line: layout
+                .lines
+                .iter()
+                .filter(|line| line.plane_index == start.plane_index)
+                .map(|line| line.number)
+                .min(),
+            first_course_offset_m: start.first_course_offset_m,
+        })
+        .collect()
 }
 
 /// The deck in one line, in the chosen units: "Plywood 19/32 in, 4 x 8 ft panels, half stagger" or

@@ -87,6 +87,16 @@ pub(crate) fn check_all(schedule: &Schedule) -> Result<(), ScheduleError> {
             &[line.start_m, line.end_m],
         )?;
     }
+    for (index, start) in schedule.laying_starts.iter().enumerate() {
+        check_points(
+            &format!("laying_starts[{index}].corner_m"),
+            &[start.corner_m],
+        )?;
+        finite(
+            &format!("laying_starts[{index}].first_course_offset_m"),
+            start.first_course_offset_m,
+        )?;
+    }
     finite("building_length_m", schedule.building_length_m)?;
     finite("building_width_m", schedule.building_width_m)?;
     finite("framing_spacing_mm", schedule.framing_spacing_mm)?;

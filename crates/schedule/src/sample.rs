@@ -319,6 +319,12 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
         panel_laying:
             "start at the eave corner at x -0.30 m, y -0.45 m; first course flush with the eave"
                 .to_string(),
+        laying_starts: vec![LayingRow {
+            plane: crate::model::plane_name(0),
+            corner_m: [-0.3, -0.45],
+            first_line: Some(1),
+            first_course_offset_m: 0.0,
+        }],
         nail: NailInfo {
             id: "sample-nail-a".to_string(),
             description: "Sample ring-shank nail 3.3 x 63 mm".to_string(),

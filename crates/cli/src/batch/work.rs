@@ -91,6 +91,7 @@ fn write_roof_files(folder: &Path, schedule: &deckhold_schedule::Schedule) -> Re
     let options = PdfOptions {
         creation_date: schedule.project.date.clone(),
         document_id: format!("deckhold-{}", schedule.project.date),
+        crew_pages: None,
     };
     let files = [
         ("schedule.csv", schedule_csv(schedule)?),

@@ -415,6 +415,7 @@ pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::R
     let options = deckhold_schedule::PdfOptions {
         creation_date: report.project.info.date.clone(),
         document_id: "deckhold-plan-check".to_string(),
+        crew_pages: None,
     };
     let pdf = deckhold_schedule::report_pdf(&check_report(report), &options)
         .context("the plan-check PDF could not be drawn")?;

@@ -15,7 +15,7 @@ use deckhold_schedule::format::{
     force_label, force_value, kpa_to_psf, mass_label, n_to_lbf, pressure_value,
 };
 use deckhold_schedule::{
-    rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions, Schedule, Units,
+    crew_sheet_pages, rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions, Schedule, Units,
 };
 
 /// The files `run --out` writes, in order (schedule.json only with --json).
@@ -32,20 +32,24 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     lap("parse");
     let job = run_job(&project).context("the job could not be run")?;
     lap("wind + resistance + spacing");
-    let schedule = schedule_for(&project, &job);
+    let mut schedule = schedule_for(&project, &job);
     lap("report data");
 
     let mut written = Vec::new();
     if let Some(folder) = &args.out {
+        let options = PdfOptions {
+            creation_date: schedule.project.date.clone(),
+            document_id: format!("deckhold-{}", schedule.project.date),
+            crew_pages: args.crew_pages,
+        };
+        if let Some(warning) = crew_pages_warning(&schedule, &options) {
+            schedule.warnings.push(warning);
+        }
         let mut files = vec![
             (FILE_NAMES[0], schedule_csv(&schedule)?),
             (FILE_NAMES[1], rafter_lines_csv(&schedule)?),
         ];
         lap("CSV");
-        let options = PdfOptions {
-            creation_date: schedule.project.date.clone(),
-            document_id: format!("deckhold-{}", schedule.project.date),
-        };
         files.push((FILE_NAMES[2], schedule_pdf(&schedule, &options)?));
         lap("PDF");
         if args.json {
@@ -137,6 +141,20 @@ fn summary_json(schedule: &Schedule, layout: &DeckLayout) -> serde_json::Value {
                 .flat_map(|course| &course.adjustments)
                 .collect::<Vec<_>>(),
         },
+    })
+}
+
+/// The warning when the crew sheet needs more pages than `--crew-pages` allows: the pattern is printed
+/// whole on the pages it needs, never cut to fit.
+fn crew_pages_warning(schedule: &Schedule, options: &PdfOptions) -> Option<String> {
+    let limit = options.crew_pages?;
+    let needed = crew_sheet_pages(schedule, options);
+    (needed > limit as usize).then(|| {
+        format!(
+            "--crew-pages {limit}: the nailing pattern of the {} framing lines does not fit; the crew sheet \
+             takes {needed} pages (nothing was left out)",
+            schedule.lines.len()
+        )
     })
 }
 

@@ -126,6 +126,11 @@ impl Canvas {
         self.ops
     }
 
+    /// Draws `other`'s operations on top of this page's.
+    pub(crate) fn append(&mut self, other: Canvas) {
+        self.ops.extend(other.ops);
+    }
+
     fn stroke_state(&mut self, width_mm: f64, level: f64, stroke: Stroke) {
         self.ops.push(Op::SetOutlineColor { col: grey(level) });
         self.ops.push(Op::SetOutlineThickness { pt: pt(width_mm) });

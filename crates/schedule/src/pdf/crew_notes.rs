@@ -5,8 +5,8 @@
 use crate::format::spacing_label;
 use crate::{Schedule, SupportRole};
 
-/// Where a plan point sits on the drawing, in words: the plan's x runs left to right, y bottom to top.
-fn side_of(point: [f64; 2], outline: &[[f64; 2]]) -> &'static str {
+/// The outline's bounding box: min x, max x, min y, max y (empty outline: reversed infinities).
+fn extent(outline: &[[f64; 2]]) -> (f64, f64, f64, f64) {
     let (mut min_x, mut max_x, mut min_y, mut max_y) = (f64::MAX, f64::MIN, f64::MAX, f64::MIN);
     for p in outline {
         min_x = min_x.min(p[0]);
@@ -14,9 +14,15 @@ fn side_of(point: [f64; 2], outline: &[[f64; 2]]) -> &'static str {
         min_y = min_y.min(p[1]);
         max_y = max_y.max(p[1]);
     }
+    (min_x, max_x, min_y, max_y)
+}
+
+/// Where a plan point sits on the drawing, in words: the plan's x runs left to right, y bottom to top.
+fn side_of(point: [f64; 2], outline: &[[f64; 2]]) -> &'static str {
     if outline.is_empty() {
         return "first";
     }
+    let (min_x, max_x, min_y, max_y) = extent(outline);
     let distances = [
         (point[1] - min_y, "bottom"),
         (max_y - point[1], "top"),
@@ -57,17 +63,72 @@ pub(crate) fn numbering_sentence(schedule: &Schedule) -> Option<String> {
     ))
 }
 
-/// Where panel laying starts and how the courses are staggered.
+/// Which corner of the plan a point is nearest, in words: "bottom-left", "top-right", ...
+fn corner_of(point: [f64; 2], outline: &[[f64; 2]]) -> String {
+    let (min_x, max_x, min_y, max_y) = extent(outline);
+    let vertical = if point[1] < (min_y + max_y) / 2.0 {
+        "bottom"
+    } else {
+        "top"
+    };
+    let horizontal = if point[0] < (min_x + max_x) / 2.0 {
+        "left"
+    } else {
+        "right"
+    };
+    format!("{vertical}-{horizontal}")
+}
+
+/// Where panel laying starts on each plane (corner of the plan and line, from the deck layout) and how
+/// the courses are staggered.
 pub(crate) fn laying_sentence(schedule: &Schedule) -> String {
+    let imperial = schedule.basis.units.is_us();
     let stagger = schedule
         .deck_description
         .rsplit(", ")
         .next()
         .unwrap_or("as specified");
+    let members = crate::format::plural(&schedule.framing_member);
+    let outline = &schedule.plan.roof_outline_m;
+    let starts: Vec<String> = schedule
+        .laying_starts
+        .iter()
+        .map(|start| {
+            let line = start
+                .first_line
+                .map_or(String::new(), |number| format!(" on line {number}"));
+            let offset = if start.first_course_offset_m.abs() < 0.0005 {
+                String::new()
+            } else {
+                format!(
+                    ", first course {} up from the eave edge",
+                    crate::format::plan_length_label(start.first_course_offset_m, imperial)
+                )
+            };
+            format!(
+                "{} at its {} eave corner{line}{offset}",
+                start.plane,
+                corner_of(start.corner_m, outline)
+            )
+        })
+        .collect();
+    let flush = if schedule
+        .laying_starts
+        .iter()
+        .all(|start| start.first_course_offset_m.abs() < 0.0005)
+    {
+        ", the first course flush with the eave edge"
+    } else {
+        ""
+    };
+    let starts = if starts.is_empty() {
+        "each plane at its eave corner on its lowest-numbered line".to_string()
+    } else {
+        starts.join("; ")
+    };
     format!(
-        "Lay panels from the eave up, long side across the {}, the first course along the eave \
-         starting at the lowest-numbered line; stagger: {stagger}.",
-        crate::format::plural(&schedule.framing_member)
+        "Panel laying starts: {starts}. Lay from the eave up, long side across the {members}{flush}; \
+         stagger: {stagger}, panel ends only on framing."
     )
 }
 
@@ -117,6 +178,21 @@ mod tests {
         let outline = [[0.0, 0.0], [10.0, 0.0], [10.0, 8.0], [0.0, 8.0]];
         assert_eq!(side_of([3.0, 0.0], &outline), "bottom");
         assert_eq!(side_of([10.0, 4.0], &outline), "right");
+        assert_eq!(corner_of([-0.5, 8.5], &outline), "top-left");
+        assert_eq!(corner_of([10.5, -0.5], &outline), "bottom-right");
+    }
+
+    #[test]
+    fn laying_names_each_plane_its_corner_and_line() {
+        let schedule = crate::sample::sample_schedule();
+        let sentence = laying_sentence(&schedule);
+        assert!(
+            sentence
+                .starts_with("Panel laying starts: P1 at its bottom-left eave corner on line 1."),
+            "{sentence}"
+        );
+        assert!(sentence.contains("flush with the eave edge"), "{sentence}");
+        assert!(sentence.contains("stagger: half stagger"), "{sentence}");
     }
 
     #[test]

@@ -2,7 +2,9 @@
 //! zone and support, and a bold warning when a zone has no working spacing.
 
 use super::canvas::{Align, Area, Canvas, Stroke};
+use super::crew_pattern::{pattern_table, PatternRow};
 use super::drawing::{draw_plan, role_words, roof_line_style, swatch, zone_style, PlanNotes};
+use super::flow::Flow;
 use super::page::Frame;
 use super::text::{line_height_mm, wrap, Font};
 use crate::format::{center_word, mass_label, on_center, small_length_label, spacing_label};
@@ -66,12 +68,23 @@ fn zone_lines(schedule: &Schedule) -> Vec<ZoneLine<'_>> {
     lines
 }
 
-/// Draws the crew sheet's body into `canvas`; `line_table_page` is where the per-line detail starts.
-pub(crate) fn crew_sheet(
-    schedule: &Schedule,
-    frame: &Frame,
-    line_table_page: usize,
-) -> (Canvas, PlanNotes) {
+/// How the crew sheet is laid out: the rows of the nailing pattern, how many pages the crew asked for,
+/// and how many design-basis pages come between the crew sheet and the engineer's line table.
+pub(crate) struct CrewLayout<'a> {
+    pub pattern: &'a [PatternRow],
+    /// `Some(1)`: the pattern goes under the plan on page 1. None: on the crew sheet's own next page.
+    pub crew_pages: Option<u32>,
+    pub basis_pages: usize,
+}
+
+/// Share of the plan's column the pattern table may take on a one-page crew sheet: the plan keeps at
+/// least the rest, so it stays readable.
+const PATTERN_SHARE_MAX: f64 = 0.55;
+
+/// The crew sheet's pages: page 1 (plan, nail, spacing per zone and role, notes, sign-off), then the
+/// nailing pattern line group by line group, under the plan when one page was asked for and it fits,
+/// else on pages of its own.
+pub(crate) fn crew_sheet(schedule: &Schedule, frame: &Frame, layout: &CrewLayout) -> Vec<Canvas> {
     let mut canvas = Canvas::new();
     let body = frame.body();
     let imperial = schedule.basis.units == Units::Imperial;
@@ -104,13 +117,44 @@ pub(crate) fn crew_sheet(
         Align::Left,
     );
 
-    let drawing = Area {
+    let left = Area {
         x: body.x,
         y: body.y,
         w: body.w * DRAWING_SHARE,
         h: body.h - HEADING_H_MM,
     };
+    let (drawing, mut pages) = if layout.crew_pages == Some(1) {
+        let table_h = pattern_height_mm(schedule, frame, left, layout.pattern)
+            .min(left.h * PATTERN_SHARE_MAX);
+        let drawing = Area {
+            y: left.y + table_h,
+            h: left.h - table_h,
+            ..left
+        };
+        let mut flow = Flow::within(frame, Area { h: table_h, ..left });
+        pattern_table(&mut flow, schedule, layout.pattern);
+        let mut pages = flow.finish();
+        if !pages.is_empty() {
+            canvas.append(pages.remove(0));
+        }
+        (drawing, pages)
+    } else {
+        let mut flow = Flow::new(frame);
+        pattern_table(&mut flow, schedule, layout.pattern);
+        (left, flow.finish())
+    };
     let notes = draw_plan(&mut canvas, drawing, schedule, &frame.paper);
+    let pattern_on_page = layout.crew_pages == Some(1);
+    let refs = PageRefs {
+        pattern: match (pattern_on_page, pages.is_empty()) {
+            (true, true) => "under the plan",
+            (true, false) => "under the plan, continued on page 2",
+            (false, _) => "on page 2",
+        }
+        .to_string(),
+        pattern_on_page,
+        line_table: 2 + pages.len() + layout.basis_pages,
+    };
 
     let column = Area {
         x: drawing.right() + 5.0,
@@ -131,16 +175,31 @@ pub(crate) fn crew_sheet(
     };
     y = spacing_table(&mut canvas, schedule, above_sign_off, y, imperial);
     y = line_legend(&mut canvas, schedule, above_sign_off, y, &notes);
-    footnotes(
-        &mut canvas,
-        schedule,
-        above_sign_off,
-        y,
-        &notes,
-        line_table_page,
-    );
+    footnotes(&mut canvas, schedule, above_sign_off, y, &notes, &refs);
     sign_off(&mut canvas, schedule, column);
-    (canvas, notes)
+    pages.insert(0, canvas);
+    pages
+}
+
+/// Where the crew finds the rest: the pattern by line group, and the engineer's line-by-line table.
+struct PageRefs {
+    pattern: String,
+    /// The pattern (with the numbering and laying notes) starts on page 1, under the plan.
+    pattern_on_page: bool,
+    line_table: usize,
+}
+
+/// Height the pattern table takes at the foot of `left`, mm; more than `left` holds when it would run
+/// onto a second page.
+fn pattern_height_mm(schedule: &Schedule, frame: &Frame, left: Area, rows: &[PatternRow]) -> f64 {
+    let mut trial = Flow::within(frame, left);
+    pattern_table(&mut trial, schedule, rows);
+    let (pages, y) = trial.position();
+    if pages > 1 {
+        f64::INFINITY
+    } else {
+        left.top() - y + 1.0
+    }
 }
 
 /// Height of the sign-off block, mm.
@@ -575,7 +634,7 @@ fn footnotes(
     column: Area,
     mut y: f64,
     notes: &PlanNotes,
-    line_table_page: usize,
+    refs: &PageRefs,
 ) -> f64 {
     let member = &schedule.framing_member;
     let first = schedule
@@ -601,13 +660,20 @@ fn footnotes(
     }
     text.extend([
         (
-            format!("The spacing along each {member} line is listed line by line from page {line_table_page}."),
+            format!(
+                "The nailing along each {member} line, lines nailed alike grouped, is {}; the engineer's \
+                 line-by-line table starts on page {}.",
+                refs.pattern, refs.line_table
+            ),
             Font::Regular,
         ),
-        (super::crew_notes::laying_sentence(schedule), Font::Regular),
     ]);
-    if let Some(sentence) = super::crew_notes::numbering_sentence(schedule) {
-        text.push((sentence, Font::Regular));
+    // Under the plan, the pattern table already says how lines are numbered and where laying starts.
+    if !refs.pattern_on_page {
+        if let Some(sentence) = super::crew_notes::numbering_sentence(schedule) {
+            text.push((sentence, Font::Regular));
+        }
+        text.push((super::crew_notes::laying_sentence(schedule), Font::Regular));
     }
     text.extend([
         (

@@ -56,6 +56,9 @@ struct LaidRow {
 #[derive(Debug)]
 pub(crate) struct Flow<'f> {
     frame: &'f Frame,
+    /// Where the first page's content goes when it shares the page with other content (the crew sheet's
+    /// pattern table under the plan); None: the frame's whole body. Later pages always use the body.
+    first_area: Option<Area>,
     pages: Vec<Canvas>,
     /// Top of the free space on the current page, mm from the paper's bottom.
     y: f64,
@@ -76,14 +79,32 @@ impl<'f> Flow<'f> {
     pub(crate) fn new(frame: &'f Frame) -> Flow<'f> {
         Flow {
             frame,
+            first_area: None,
             pages: vec![Canvas::new()],
             y: frame.body().top(),
             pending_heading: None,
         }
     }
 
+    /// A flow that starts in `area` of a page drawn by someone else, and goes on over whole pages.
+    pub(crate) fn within(frame: &'f Frame, area: Area) -> Flow<'f> {
+        Flow {
+            first_area: Some(area),
+            y: area.top(),
+            ..Flow::new(frame)
+        }
+    }
+
     fn body(&self) -> Area {
-        self.frame.body()
+        match self.first_area {
+            Some(area) if self.pages.len() <= 1 => area,
+            _ => self.frame.body(),
+        }
+    }
+
+    /// Pages begun so far, and the top of the free space on the last one (mm from the paper's bottom).
+    pub(crate) fn position(&self) -> (usize, f64) {
+        (self.pages.len(), self.y)
     }
 
     fn canvas(&mut self) -> &mut Canvas {

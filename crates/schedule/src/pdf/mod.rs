@@ -7,6 +7,7 @@
 
 mod canvas;
 mod crew_notes;
+mod crew_pattern;
 mod crew_sheet;
 mod design_basis;
 mod drawing;
@@ -34,6 +35,10 @@ pub struct PdfOptions {
     pub creation_date: String,
     /// The document's permanent id, e.g. a hash of the input: 1..=64 printable ASCII characters.
     pub document_id: String,
+    /// Pages the crew sheet may take (`--crew-pages`): `Some(1)` puts the nailing pattern, lines nailed
+    /// alike grouped, under the plan on page 1; None gives the pattern pages of its own after page 1.
+    /// See [`crew_sheet_pages`] for what a schedule needs.
+    pub crew_pages: Option<u32>,
 }
 
 impl Default for PdfOptions {
@@ -41,6 +46,7 @@ impl Default for PdfOptions {
         PdfOptions {
             creation_date: "2026-01-01".to_string(),
             document_id: "deckhold-schedule".to_string(),
+            crew_pages: None,
         }
     }
 }
@@ -140,32 +146,52 @@ struct Sheet<'f> {
     body: Canvas,
 }
 
+/// Every page carries the cautions; a schedule without any still gets the standard ones.
+fn cautions_of(schedule: &Schedule) -> Vec<String> {
+    if schedule.cautions.is_empty() {
+        standard_cautions()
+    } else {
+        schedule.cautions.clone()
+    }
+}
+
 /// The PDF report of `schedule`.
 pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>, ScheduleError> {
     finite::check_all(schedule)?;
     parse_date(&options.creation_date)?;
     check_document_id(&options.document_id)?;
 
-    // Every page carries the cautions; a schedule without any still gets the standard ones.
-    let cautions = if schedule.cautions.is_empty() {
-        standard_cautions()
-    } else {
-        schedule.cautions.clone()
-    };
+    let cautions = cautions_of(schedule);
     let units = schedule.basis.units;
     let landscape = Frame::new(Paper::for_units(units, true), &cautions);
     let portrait = Frame::new(Paper::for_units(units, false), &cautions);
 
     let basis_pages = design_basis::design_basis(schedule, &portrait);
     let table_pages = line_table::line_table(schedule, &portrait);
-    let line_table_page = 2 + basis_pages.len();
-    let (crew, _notes) = crew_sheet::crew_sheet(schedule, &landscape, line_table_page);
+    let pattern = crew_pattern::pattern_rows(schedule);
+    let crew = crew_sheet::crew_sheet(
+        schedule,
+        &landscape,
+        &crew_sheet::CrewLayout {
+            pattern: &pattern,
+            crew_pages: options.crew_pages,
+            basis_pages: basis_pages.len(),
+        },
+    );
 
-    let mut sheets = vec![Sheet {
-        frame: &landscape,
-        title: "Crew sheet".to_string(),
-        body: crew,
-    }];
+    let mut sheets: Vec<Sheet> = crew
+        .into_iter()
+        .enumerate()
+        .map(|(index, body)| Sheet {
+            frame: &landscape,
+            title: if index == 0 {
+                "Crew sheet".to_string()
+            } else {
+                "Crew sheet, line by line".to_string()
+            },
+            body,
+        })
+        .collect();
     sheets.extend(basis_pages.into_iter().map(|body| Sheet {
         frame: &portrait,
         title: "Design basis".to_string(),
@@ -198,6 +224,27 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
 
 /// The schedule's kind of document, in its title block and metadata title.
 const SCHEDULE_KIND: &str = "Roof sheathing nailing schedule";
+
+/// How many pages the crew sheet of `schedule` takes with `options` (page 1 and the nailing pattern):
+/// the caller warns when this is more than `options.crew_pages` asked for. The pattern is never cut
+/// short to fit.
+pub fn crew_sheet_pages(schedule: &Schedule, options: &PdfOptions) -> usize {
+    let landscape = Frame::new(
+        Paper::for_units(schedule.basis.units, true),
+        &cautions_of(schedule),
+    );
+    let pattern = crew_pattern::pattern_rows(schedule);
+    crew_sheet::crew_sheet(
+        schedule,
+        &landscape,
+        &crew_sheet::CrewLayout {
+            pattern: &pattern,
+            crew_pages: options.crew_pages,
+            basis_pages: 0,
+        },
+    )
+    .len()
+}
 
 /// The document's metadata.
 struct DocumentInfo {

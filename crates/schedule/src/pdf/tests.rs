@@ -248,6 +248,7 @@ fn same_input_gives_the_same_bytes() {
     let options = PdfOptions {
         creation_date: "2025-03-14".to_string(),
         document_id: "abc123".to_string(),
+        ..PdfOptions::default()
     };
     let first = schedule_pdf(&schedule, &options).expect("first");
     let second = schedule_pdf(&schedule, &options).expect("second");
@@ -267,6 +268,7 @@ fn the_options_reach_the_metadata() {
     let options = PdfOptions {
         creation_date: "2025-03-14".to_string(),
         document_id: "abc123".to_string(),
+        ..PdfOptions::default()
     };
     let bytes = schedule_pdf(&sample_schedule(), &options).expect("renders");
     let text = String::from_utf8_lossy(&bytes);
@@ -353,4 +355,41 @@ fn a_hundred_lines_render_quickly() {
     // here, so the debug bound only catches an order-of-magnitude regression.
     let limit_ms = if cfg!(debug_assertions) { 3000 } else { 60 };
     assert!(each.as_millis() < limit_ms, "{each:?} per PDF");
+}
+
+#[test]
+fn one_crew_page_holds_a_small_pattern_and_a_large_one_runs_on_whole() {
+    let one = PdfOptions {
+        crew_pages: Some(1),
+        ..PdfOptions::default()
+    };
+    let small = sample_schedule();
+    assert_eq!(crate::crew_sheet_pages(&small, &one), 1);
+    assert_eq!(crate::crew_sheet_pages(&small, &PdfOptions::default()), 2);
+    // 120 lines, each a little longer than the last: 120 patterns cannot share page 1 with the plan,
+    // so the table runs onto the next page rather than dropping rows.
+    let mut large = sample_schedule_with_lines(120, Units::Si);
+    for (index, line) in large.lines.iter_mut().enumerate() {
+        if let Some(last) = line.segments.last_mut() {
+            last.to_m += index as f64 * 0.01;
+        }
+    }
+    let needed = crate::crew_sheet_pages(&large, &one);
+    assert!(needed > 1, "{needed}");
+    let path = write_pdf(
+        "crew-pages-large",
+        &schedule_pdf(&large, &one).expect("renders"),
+    );
+    let crew_text = page_text(&path, 1, needed);
+    assert!(
+        crew_text.contains("(120 lines, 120 patterns)"),
+        "{crew_text}"
+    );
+    let runs = (1..=120u32)
+        .filter(|n| {
+            crew_text.contains(&format!(" {n} common"))
+                || crew_text.contains(&format!(" {n} end-wall"))
+        })
+        .count();
+    assert_eq!(runs, 120, "every line has its row");
 }
