@@ -8,6 +8,7 @@
 use deckhold_project::{parse_project, project_from_value, run_job_with_nails, schedule_for, Job};
 use deckhold_schedule::{rafter_lines_csv, schedule_csv, schedule_pdf, PdfOptions};
 use deckhold_tests::fixture_text;
+use deckhold_tests::outlines::rectilinear_outline;
 use deckhold_tests::reach::{cases, config, run_counted, REACHED};
 use proptest::prelude::*;
 use proptest::test_runner::{TestCaseError, TestRunner};
@@ -277,34 +278,48 @@ fn more_wind_never_allows_a_wider_spacing_for_the_same_nail() {
         cases(16),
         REACHED,
         (numeric_mutation(), 1.05f64..1.6),
-        |((base, changes), factor)| {
-            let value = mutated(base, &changes);
-            let mut stronger = value.clone();
-            windier(&mut stronger, factor);
-            let (Some((_, before)), Some((_, after))) =
-                (job_for(&value, base), job_for(&stronger, base))
-            else {
-                return Ok(false);
-            };
-            let (before, after) = (spacing_table(&before), spacing_table(&after));
-            prop_assert_eq!(before.len(), after.len());
-            let mut compared = 0;
-            for ((label, role, was, _), (_, _, now, _)) in before.iter().zip(&after) {
-                match (was, now) {
-                    (Some(was), Some(now)) => {
-                        prop_assert!(now <= was, "{label} {role}: {was} -> {now} mm");
-                        compared += 1;
-                    }
-                    (None, Some(now)) => {
-                        prop_assert!(false, "{label} {role}: none worked, now {now} mm")
-                    }
-                    _ => {}
-                }
-            }
-            // Reached: the same nail gave a spacing to compare in at least one zone.
-            Ok(compared > 0)
-        },
+        |((base, changes), factor)| no_wider_in_more_wind(&mutated(base, &changes), base, factor),
     );
+}
+
+#[test]
+fn more_wind_never_allows_a_wider_spacing_on_random_l_t_u_z_roofs() {
+    run_counted(
+        "more wind, same nail, polygon roofs",
+        cases(12),
+        REACHED,
+        (random_polygon_roof(), 1.05f64..1.6),
+        |((value, base), factor)| no_wider_in_more_wind(&value, base, factor),
+    );
+}
+
+/// The project with the site's wind raised by `factor` gives no wider spacing in any zone and role
+/// for the base's nail, and never a spacing where none worked before. Ok(false): refused, or no
+/// spacing to compare.
+fn no_wider_in_more_wind(value: &Value, base: usize, factor: f64) -> Result<bool, TestCaseError> {
+    let mut stronger = value.clone();
+    windier(&mut stronger, factor);
+    let (Some((_, before)), Some((_, after))) = (job_for(value, base), job_for(&stronger, base))
+    else {
+        return Ok(false);
+    };
+    let (before, after) = (spacing_table(&before), spacing_table(&after));
+    prop_assert_eq!(before.len(), after.len());
+    let mut compared = 0;
+    for ((label, role, was, _), (_, _, now, _)) in before.iter().zip(&after) {
+        match (was, now) {
+            (Some(was), Some(now)) => {
+                prop_assert!(now <= was, "{label} {role}: {was} -> {now} mm");
+                compared += 1;
+            }
+            (None, Some(now)) => {
+                prop_assert!(false, "{label} {role}: none worked, now {now} mm")
+            }
+            _ => {}
+        }
+    }
+    // Reached: the same nail gave a spacing to compare in at least one zone.
+    Ok(compared > 0)
 }
 
 /// Severity rank of a zone label: a more severe zone never gets wider nailing for the same support role.
@@ -321,7 +336,7 @@ fn severity(label: &str) -> Option<(bool, u8)> {
 }
 
 /// A roof of random plan, shape and slope on the demo's framing and wind.
-fn random_roof(shapes: &'static [&'static str]) -> impl Strategy<Value = Value> {
+fn random_roof(shapes: &'static [&'static str]) -> impl Strategy<Value = (Value, usize)> {
     (
         8.0f64..30.0,
         0.35f64..1.0,
@@ -347,86 +362,120 @@ fn random_roof(shapes: &'static [&'static str]) -> impl Strategy<Value = Value> 
                 value["roof"]["slope"] = serde_json::json!(slope);
             }
             value["wind"]["q50_kpa"] = serde_json::json!(q50_kpa);
-            value
+            (value, 0)
+        })
+}
+
+/// A hip or gable roof on a random rectilinear outline (L, T, U, Z, 4 to 12 corners), slope 2:12 to
+/// 12:12, on the Canadian demo or the US hip fixture (every second case), with a random site wind.
+fn random_polygon_roof() -> impl Strategy<Value = (Value, usize)> {
+    (
+        rectilinear_outline(),
+        prop_oneof![Just("hip"), Just("gable")],
+        2u32..=12,
+        2.5f64..4.0,
+        0.0f64..1.0,
+        0usize..2,
+    )
+        .prop_map(|(outline, shape, rise, eave_m, wind, base)| {
+            let mut value = base_value(base);
+            value["building"] = serde_json::json!({
+                "footprint": { "polygon_m": outline },
+                "eave_height_m": eave_m
+            });
+            value["roof"]["shape"] = serde_json::json!(shape);
+            value["roof"]["slope"] = serde_json::json!(format!("{rise}:12"));
+            // The ridges follow the outline (a four-corner hip along its longer side).
+            value["roof"]
+                .as_object_mut()
+                .expect("roof block")
+                .remove("ridge_along");
+            if base == 0 {
+                value["wind"]["q50_kpa"] = serde_json::json!(0.3 + 0.9 * wind);
+            } else {
+                value["wind"]["speed_mph"] = serde_json::json!(100.0 + 80.0 * wind);
+            }
+            (value, base)
         })
 }
 
 #[test]
 fn on_random_roofs_worse_zones_get_more_uplift_and_never_wider_nailing() {
-    run_zone_ordering(&["gable", "flat"]);
+    run_zone_ordering("zone ordering", random_roof(&["gable", "flat"]));
 }
 
 #[test]
 // Failed before the framing model of issue 11 (a 25 mm bay between a jack and the hip cut pried the
 // jack to three times its share, so the edge zone got no spacing while the corner did).
 fn on_random_hip_roofs_worse_zones_get_more_uplift_and_never_wider_nailing() {
-    run_zone_ordering(&["hip"]);
+    run_zone_ordering("zone ordering, hip roofs", random_roof(&["hip"]));
 }
 
-fn run_zone_ordering(shapes: &'static [&'static str]) {
-    run_counted(
-        "zone ordering",
-        cases(16),
-        REACHED,
-        random_roof(shapes),
-        |value| {
-            let Some((_, job)) = job_for(&value, 0) else {
-                return Ok(false);
+#[test]
+fn on_random_l_t_u_z_roofs_worse_zones_get_more_uplift_and_never_wider_nailing() {
+    run_zone_ordering("zone ordering, polygon roofs", random_polygon_roof());
+}
+
+/// For each roof (and the base whose nail it is compared on): a more severe zone has no less net
+/// uplift and never wider nailing for the same support role.
+fn run_zone_ordering(name: &str, roofs: impl Strategy<Value = (Value, usize)>) {
+    run_counted(name, cases(16), REACHED, roofs, |(value, base)| {
+        let Some((_, job)) = job_for(&value, base) else {
+            return Ok(false);
+        };
+        let table = spacing_table(&job);
+        for (label, role, spacing, _) in &table {
+            let Some((overhang, rank)) = severity(label) else {
+                continue;
             };
-            let table = spacing_table(&job);
-            for (label, role, spacing, _) in &table {
-                let Some((overhang, rank)) = severity(label) else {
+            for (other, other_role, other_spacing, _) in &table {
+                let Some((other_overhang, other_rank)) = severity(other) else {
                     continue;
                 };
-                for (other, other_role, other_spacing, _) in &table {
-                    let Some((other_overhang, other_rank)) = severity(other) else {
-                        continue;
+                if other_role != role || other_overhang != overhang || other_rank <= rank {
+                    continue;
+                }
+                // `other` is more severe than `label`: None (nothing works) is the closest of all.
+                let ok = match (spacing, other_spacing) {
+                    (Some(milder), Some(worse)) => worse <= milder,
+                    (Some(_), None) | (None, None) => true,
+                    (None, Some(_)) => false,
+                };
+                prop_assert!(
+                    ok,
+                    "{role}: {other} {other_spacing:?} is wider than {label} {spacing:?}"
+                );
+            }
+        }
+        // The same order holds for the net uplift at the area one nail holds (0.1 m2).
+        let zones = &job.wind.zones;
+        for (i, zone) in zones.iter().enumerate() {
+            for (j, other) in zones.iter().enumerate() {
+                let (Some(a), Some(b)) = (
+                    severity(zone.label.as_str()),
+                    severity(other.label.as_str()),
+                ) else {
+                    continue;
+                };
+                if a.0 == b.0 && b.1 > a.1 {
+                    let uplift = |k| {
+                        job.wind
+                            .uplift(k, 0.1)
+                            .map(|u| u.net_uplift_kpa)
+                            .map_err(|e| TestCaseError::fail(e.to_string()))
                     };
-                    if other_role != role || other_overhang != overhang || other_rank <= rank {
-                        continue;
-                    }
-                    // `other` is more severe than `label`: None (nothing works) is the closest of all.
-                    let ok = match (spacing, other_spacing) {
-                        (Some(milder), Some(worse)) => worse <= milder,
-                        (Some(_), None) | (None, None) => true,
-                        (None, Some(_)) => false,
-                    };
+                    let (mild, worse) = (uplift(i)?, uplift(j)?);
                     prop_assert!(
-                        ok,
-                        "{role}: {other} {other_spacing:?} is wider than {label} {spacing:?}"
+                        worse >= mild - 1e-9,
+                        "{} {mild} kPa > {} {worse} kPa",
+                        zone.label.as_str(),
+                        other.label.as_str()
                     );
                 }
             }
-            // The same order holds for the net uplift at the area one nail holds (0.1 m2).
-            let zones = &job.wind.zones;
-            for (i, zone) in zones.iter().enumerate() {
-                for (j, other) in zones.iter().enumerate() {
-                    let (Some(a), Some(b)) = (
-                        severity(zone.label.as_str()),
-                        severity(other.label.as_str()),
-                    ) else {
-                        continue;
-                    };
-                    if a.0 == b.0 && b.1 > a.1 {
-                        let uplift = |k| {
-                            job.wind
-                                .uplift(k, 0.1)
-                                .map(|u| u.net_uplift_kpa)
-                                .map_err(|e| TestCaseError::fail(e.to_string()))
-                        };
-                        let (mild, worse) = (uplift(i)?, uplift(j)?);
-                        prop_assert!(
-                            worse >= mild - 1e-9,
-                            "{} {mild} kPa > {} {worse} kPa",
-                            zone.label.as_str(),
-                            other.label.as_str()
-                        );
-                    }
-                }
-            }
-            Ok(!table.is_empty())
-        },
-    );
+        }
+        Ok(!table.is_empty())
+    });
 }
 
 #[test]
