@@ -5,6 +5,7 @@
 //! metres), the zone order from a rank the caller gives (higher = worse), so this module knows
 //! nothing of pressures.
 
+mod blocking;
 mod courses;
 mod framing;
 mod geometry;
@@ -14,6 +15,8 @@ mod zones;
 use serde::{Deserialize, Serialize};
 
 use crate::error::{check_positive, check_range, SpacingError};
+pub use blocking::EdgeBlocking;
+use blocking::{blocking_lines, BlockingPlane};
 use courses::{bearing_at, course_pieces, CourseLayer, StripCache};
 use deckhold_core::limits;
 use framing::framing_lines;
@@ -72,6 +75,8 @@ pub struct PanelInput {
     /// Narrowest cut piece laid, across the framing, mm: where a piece would be narrower the panel
     /// ends are shifted to another line, the way a framer lays out a course.
     pub min_piece_mm: f64,
+    /// Blocking under the panel edges, where the user asks for it.
+    pub blocking: EdgeBlocking,
 }
 
 /// Offset of the panel end joints in alternate courses.
@@ -241,6 +246,7 @@ pub fn layout_deck(
     let mut pieces = Vec::new();
     let mut laying_starts = Vec::new();
     let mut number = 0u32;
+    let mut framed: Vec<(PlaneFrame, Vec<GridLine>)> = Vec::with_capacity(planes.len());
     for (plane_index, plane) in planes.iter().enumerate() {
         let frame = plane_frame(plane_index, plane, framing)?;
         let grid = grid_lines(plane, &frame, framing)?;
@@ -306,6 +312,26 @@ pub fn layout_deck(
             first_course_offset_m: 0.0,
         });
         courses.extend(plane_courses);
+        framed.push((frame, grid));
+    }
+    // Blocking is numbered after every framing line, so asking for it renumbers nothing.
+    if panel.blocking == EdgeBlocking::CourseJoints {
+        for (plane_index, (plane, (frame, grid))) in planes.iter().zip(&framed).enumerate() {
+            let plane_courses: Vec<Course> = courses
+                .iter()
+                .filter(|c| c.plane_index == plane_index)
+                .cloned()
+                .collect();
+            let on = BlockingPlane {
+                plane_index,
+                plane,
+                frame,
+                grid,
+                courses: &plane_courses,
+                panel_width_m: panel.width_mm / 1000.0,
+            };
+            lines.extend(blocking_lines(&on, zones, zone_rank, &mut number)?);
+        }
     }
     let framing_lines = framing_lines(planes, &lines);
     Ok(DeckLayout {
@@ -567,6 +593,7 @@ mod tests {
             width_mm: 1220.0,
             stagger,
             min_piece_mm: 600.0,
+            blocking: EdgeBlocking::None,
         }
     }
 

@@ -337,31 +337,47 @@ fn plan_or_check(
     let mut lines = Vec::with_capacity(layout.lines.len());
     for line in &layout.lines {
         let mut segments = Vec::new();
+        // Blocking: two rows (the panel edges on both sides of the course joint), not sized by the
+        // strip model (reaction 0: it gives the blocking no share of the uplift); pass 3 gives it
+        // the zone's panel-edge pattern.
+        let is_blocking = line.kind == LineKind::Blocking;
         for bearing in &line.bearings {
-            let rows = bearing.strips.len().max(1) as u32;
-            let reaction_width_mm = bearing
-                .strips
-                .iter()
-                .map(|strip| strip.reaction_width_mm)
-                .reduce(f64::max)
-                .ok_or(SpacingError::NoStrip {
-                    line: line.number,
-                    course: bearing.course_index,
-                })?;
+            let rows = if is_blocking {
+                2
+            } else {
+                bearing.strips.len().max(1) as u32
+            };
+            let reaction_width_mm = if is_blocking {
+                0.0
+            } else {
+                bearing
+                    .strips
+                    .iter()
+                    .map(|strip| strip.reaction_width_mm)
+                    .reduce(f64::max)
+                    .ok_or(SpacingError::NoStrip {
+                        line: line.number,
+                        course: bearing.course_index,
+                    })?
+            };
             for piece in &line.zones {
                 let from_m = piece.from_m.max(bearing.from_m);
                 let to_m = piece.to_m.min(bearing.to_m);
                 if to_m - from_m < 1e-3 {
                     continue;
                 }
-                let required_spacing_mm = widest_holding(
-                    uplift,
-                    rules,
-                    &allowed(bearing.support_role).widest_first_mm,
-                    piece.zone_index,
-                    reaction_width_mm,
-                    nail.resistance_n,
-                )?;
+                let required_spacing_mm = if is_blocking {
+                    None
+                } else {
+                    widest_holding(
+                        uplift,
+                        rules,
+                        &allowed(bearing.support_role).widest_first_mm,
+                        piece.zone_index,
+                        reaction_width_mm,
+                        nail.resistance_n,
+                    )?
+                };
                 segments.push(Segment {
                     from_m,
                     to_m,
@@ -395,8 +411,10 @@ fn plan_or_check(
     }
 
     // Pass 2: one pattern per zone and role, the closest spacing any of its stretches needs.
+    // Blocking is not sized (it takes its zone's panel-edge pattern): it sets no pattern.
     let mut keys: Vec<(usize, SupportRole)> = lines
         .iter()
+        .filter(|line| line.kind != LineKind::Blocking)
         .flat_map(|line| line.segments.iter().map(|s| (s.zone_index, s.support_role)))
         .collect();
     keys.sort();
@@ -418,7 +436,11 @@ fn plan_or_check(
             continue;
         }
         let mut pattern = Some(allowed(key.1).widest_mm());
-        for segment in lines.iter().flat_map(|l| &l.segments) {
+        for segment in lines
+            .iter()
+            .filter(|line| line.kind != LineKind::Blocking)
+            .flat_map(|l| &l.segments)
+        {
             if (segment.zone_index, segment.support_role) != *key {
                 continue;
             }
@@ -435,13 +457,39 @@ fn plan_or_check(
             .find(|(k, _)| *k == key)
             .and_then(|(_, p)| *p)
     };
+    // Blocking in a zone with no panel edge on the framing takes the closest panel-edge pattern of the
+    // roof (the severe reading); none when any panel-edge pattern has no working spacing.
+    let closest_edge: Option<f64> = patterns
+        .iter()
+        .filter(|((_, role), _)| *role == SupportRole::PanelEdge)
+        .map(|(_, p)| *p)
+        .try_fold(f64::INFINITY, |closest, p| p.map(|p| closest.min(p)))
+        .filter(|closest| closest.is_finite());
+    let blocking_pattern = |zone_index: usize| -> Option<f64> {
+        if let Some(given) = given {
+            return given(zone_index, SupportRole::PanelEdge);
+        }
+        if patterns
+            .iter()
+            .any(|(k, _)| *k == (zone_index, SupportRole::PanelEdge))
+        {
+            pattern_for((zone_index, SupportRole::PanelEdge))
+        } else {
+            closest_edge
+        }
+    };
 
     // Pass 3: each segment at its pattern: load, utilization, nail count.
     let mut total_nail_count = 0u64;
     for line in &mut lines {
+        let is_blocking = line.kind == LineKind::Blocking;
         for segment in &mut line.segments {
             let key = (segment.zone_index, segment.support_role);
-            let pattern = pattern_for(key);
+            let pattern = if is_blocking {
+                blocking_pattern(segment.zone_index)
+            } else {
+                pattern_for(key)
+            };
             // No working spacing: report the load at the closest allowed increment.
             let checked_at_mm = pattern.unwrap_or(allowed(segment.support_role).closest_mm());
             let load = nail_load(
@@ -550,6 +598,7 @@ mod tests {
             width_mm: 1220.0,
             stagger: Stagger::None,
             min_piece_mm: 600.0,
+            blocking: crate::layout::EdgeBlocking::None,
         };
         (planes, zones, framing, panel)
     }
@@ -603,6 +652,44 @@ mod tests {
             segment.demand_n,
             2.0 * 0.61 * 32.0 / 28.0 * 0.3 * 1000.0,
             max_relative = 1e-6
+        );
+    }
+
+    #[test]
+    fn blocking_takes_the_panel_edge_pattern_and_sets_none() {
+        // The flat deck, 4.88 m of joists = four 1.22 m courses: three course joints blocked, each
+        // 9.76 m long. At 3 kPa and R = 400 N the panel-edge pattern is 150 mm (prescriptive
+        // maximum); two rows of ceil(9760 / 150) = 66 nails on each blocking line.
+        let (planes, zones, framing, mut panel) = flat_deck();
+        panel.blocking = crate::layout::EdgeBlocking::CourseJoints;
+        let layout = layout_deck(&planes, &zones, &[0], &framing, &panel).expect("valid");
+        let uplift = |_: usize, _: f64| -> Result<f64, String> { Ok(3.0) };
+        let blocked =
+            plan_on_layout(&layout, &uplift, &test_nail(400.0), &si_rules()).expect("valid deck");
+        let unblocked = plan(3.0, 400.0);
+        let blocking: Vec<_> = blocked
+            .lines
+            .iter()
+            .filter(|l| l.kind == LineKind::Blocking)
+            .collect();
+        assert_eq!(blocking.len(), 3);
+        for line in &blocking {
+            assert_eq!(line.segments.len(), 1);
+            let segment = &line.segments[0];
+            assert_eq!(segment.spacing_mm, Some(150.0));
+            assert_eq!(segment.rows, 2);
+            assert_eq!(segment.nail_count, 2 * 66);
+            assert_eq!(segment.utilization, 0.0);
+        }
+        // The framing's patterns and nails are those of the unblocked deck; the blocking adds its own.
+        assert_eq!(blocked.zone_roles.len(), unblocked.zone_roles.len());
+        for (a, b) in blocked.zone_roles.iter().zip(&unblocked.zone_roles) {
+            assert_eq!(a.spacing_mm, b.spacing_mm);
+            assert_eq!(a.governing_line, b.governing_line);
+        }
+        assert_eq!(
+            blocked.total_nail_count,
+            unblocked.total_nail_count + 3 * 2 * 66
         );
     }
 

@@ -2,7 +2,7 @@
 //! written (units and all), and then the values the tool derived from them, in the report's units. A plan
 //! checker reads the first against the drawings and the second against the method.
 
-use crate::project::{Project, StaggerChoice};
+use crate::project::{EdgeBlocking, Project, StaggerChoice};
 use deckhold_model::format::{
     plan_length_label, pressure_label, small_length_label, spacing_label, thickness_label,
 };
@@ -125,6 +125,10 @@ pub fn derived_rows(project: &Project) -> Vec<InputRow> {
         StaggerChoice::OffsetMm(offset_mm) => plan_length_label(offset_mm / 1000.0, us),
     };
     rows.push(row("end-joint stagger", stagger));
+    // Listed only when asked for, so projects without it read as before.
+    if deck.blocking == EdgeBlocking::CourseJoints {
+        rows.push(row("blocking", "under every course joint".to_string()));
+    }
     rows.push(row(
         "layer between deck and framing",
         small_length_label(deck.between_mm, us),

@@ -184,6 +184,7 @@ impl DeckGeometry {
             width_mm: project.deck.panel_width_mm,
             stagger,
             min_piece_mm: project.deck.min_piece_mm,
+            blocking: project.deck.blocking,
         };
         Ok(Self {
             planes,

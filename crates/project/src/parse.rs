@@ -4,7 +4,8 @@
 use crate::basis::{Basis, BasisStandards};
 use crate::error::ProjectError;
 use crate::project::{
-    Deck, ExistingPattern, Framing, LinesAlong, MemberRole, PatternSpacing, Project, StaggerChoice,
+    Deck, EdgeBlocking, ExistingPattern, Framing, LinesAlong, MemberRole, PatternSpacing, Project,
+    StaggerChoice,
 };
 use crate::reader::{as_finite_number, ObjectReader};
 use crate::units::Quantity;
@@ -587,6 +588,15 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
             &min_piece_limit(panel_length_mm),
         )?
         .unwrap_or(default_min_piece_mm);
+    let blocking = block
+        .choice(
+            "blocking",
+            &[
+                ("none", EdgeBlocking::None),
+                ("course-joints", EdgeBlocking::CourseJoints),
+            ],
+        )?
+        .unwrap_or_default();
     let wet_service = block
         .choice("service", &[("dry", false), ("wet", true)])?
         .unwrap_or(false);
@@ -602,6 +612,7 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         panel_width_mm,
         stagger,
         min_piece_mm,
+        blocking,
         wet_service,
         treated,
         between_mm,

@@ -2,6 +2,7 @@
 
 use crate::basis::Basis;
 use deckhold_core::ZoneKind;
+pub use deckhold_deck::layout::EdgeBlocking;
 use deckhold_fasten::{FastenError, Nail};
 use deckhold_model::{ProjectInfo, Units};
 use deckhold_wind::WindInput;
@@ -67,6 +68,8 @@ pub struct Deck {
     pub stagger: StaggerChoice,
     /// Narrowest cut piece laid across the framing, mm (`deck.min_piece_mm`).
     pub min_piece_mm: f64,
+    /// Blocking under the panel edges (`deck.blocking`).
+    pub blocking: EdgeBlocking,
     pub wet_service: bool,
     pub treated: bool,
     /// Anything between deck and framing (e.g. an existing board deck in a re-roof), mm.

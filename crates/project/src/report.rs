@@ -4,7 +4,7 @@
 
 use crate::basis::BasisStandards;
 use crate::job::{Job, NailOutcome};
-use crate::project::{Project, StaggerChoice};
+use crate::project::{EdgeBlocking, Project, StaggerChoice};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
@@ -80,6 +80,10 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         }
     }
 
+    if project.deck.blocking == EdgeBlocking::CourseJoints {
+        warnings.push(BLOCKING_MODEL.to_string());
+    }
+
     let mut provenance = vec![format!("Nail {}: {}", nail.id, nail.provenance())];
     provenance.extend(
         wind.factors
@@ -151,6 +155,12 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
 }
 
 /// Length (along x) and width (along y) of the wall line's bounding box, m.
+/// What the output says whenever blocking is asked for: how the model treats it.
+pub const BLOCKING_MODEL: &str = "Blocking under the course joints (deck.blocking): two rows of nails, \
+one for each panel edge, at the panel-edge spacing of the zone. The panels are still solved as strips \
+spanning across the framing, so the blocking's relief to the rafters is ignored (conservative for the \
+rafter nails) and the blocking nails are not sized by that model (utilization shown 0).";
+
 fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
     match footprint {
         Footprint::Rectangle { length_m, width_m } => (*length_m, *width_m),
