@@ -18,6 +18,7 @@ const CASES: &[(&str, &str)] = &[
     ("ca-l-shaped-flat.json", "run"),
     ("ca-l-hip-bungalow.json", "run"),
     ("us-t-cross-gable.json", "run"),
+    ("us-lean-to-addition.json", "run"),
     ("ca-existing-pattern.json", "run"),
     ("ca-existing-pattern.json", "check"),
     ("ca-no-feasible-nail.json", "run"),

@@ -44,19 +44,30 @@ macro_rules! words {
 pub enum ZoneKind {
     Interior,
     Edge,
+    /// A monoslope's strip along its high eave, where the figure zones it apart from the other edges
+    /// (ASCE 7-22 Figure 30.3-5A zone 2').
+    HighEdge,
     Corner,
+    /// A monoslope's high-eave corner, where the figure zones it apart (ASCE 7-22 Figure 30.3-5A zone 3').
+    HighCorner,
     OverhangInterior,
     OverhangEdge,
+    OverhangHighEdge,
     OverhangCorner,
+    OverhangHighCorner,
 }
 
 words!(ZoneKind {
     Interior => "interior",
     Edge => "edge",
+    HighEdge => "high-edge",
     Corner => "corner",
+    HighCorner => "high-corner",
     OverhangInterior => "overhang-interior",
     OverhangEdge => "overhang-edge",
+    OverhangHighEdge => "overhang-high-edge",
     OverhangCorner => "overhang-corner",
+    OverhangHighCorner => "overhang-high-corner",
 });
 
 impl ZoneKind {
@@ -64,19 +75,39 @@ impl ZoneKind {
     pub fn is_overhang(self) -> bool {
         matches!(
             self,
-            ZoneKind::OverhangInterior | ZoneKind::OverhangEdge | ZoneKind::OverhangCorner
+            ZoneKind::OverhangInterior
+                | ZoneKind::OverhangEdge
+                | ZoneKind::OverhangHighEdge
+                | ZoneKind::OverhangCorner
+                | ZoneKind::OverhangHighCorner
         )
+    }
+
+    /// The kind a high-eave zone belongs with (edge or corner), for tables with one column per kind;
+    /// every other kind is its own.
+    pub fn base(self) -> ZoneKind {
+        match self {
+            ZoneKind::HighEdge => ZoneKind::Edge,
+            ZoneKind::HighCorner => ZoneKind::Corner,
+            ZoneKind::OverhangHighEdge => ZoneKind::OverhangEdge,
+            ZoneKind::OverhangHighCorner => ZoneKind::OverhangCorner,
+            other => other,
+        }
     }
 
     /// Place on the crew's sheet: worst zones first, the roof before its overhangs.
     pub fn sheet_rank(self) -> u32 {
         match self {
-            ZoneKind::Corner => 0,
-            ZoneKind::Edge => 1,
-            ZoneKind::Interior => 2,
-            ZoneKind::OverhangCorner => 3,
-            ZoneKind::OverhangEdge => 4,
-            ZoneKind::OverhangInterior => 5,
+            ZoneKind::HighCorner => 0,
+            ZoneKind::Corner => 1,
+            ZoneKind::HighEdge => 2,
+            ZoneKind::Edge => 3,
+            ZoneKind::Interior => 4,
+            ZoneKind::OverhangHighCorner => 5,
+            ZoneKind::OverhangCorner => 6,
+            ZoneKind::OverhangHighEdge => 7,
+            ZoneKind::OverhangEdge => 8,
+            ZoneKind::OverhangInterior => 9,
         }
     }
 }

@@ -84,7 +84,10 @@ impl RoofSummary {
     pub fn spacing_grid(zones: &[ZoneRow]) -> [[Option<SpacingCell>; 2]; 6] {
         let mut grid = [[None; 2]; 6];
         for row in zones {
-            let zone = SUMMARY_ZONES.iter().position(|label| *label == row.label);
+            // High-eave zones go in their edge or corner column (the closer spacing wins below).
+            let zone = SUMMARY_ZONES
+                .iter()
+                .position(|label| *label == row.label.base());
             let role = SUMMARY_ROLES
                 .iter()
                 .position(|role| *role == row.support_role);
@@ -129,6 +132,29 @@ mod tests {
             governing_check: "strength".to_string(),
             governing_line: 1,
         }
+    }
+
+    #[test]
+    fn high_eave_zones_fold_into_their_edge_and_corner_columns() {
+        // A monoslope's zone 3' (high-corner) needing 100 mm beside zone 3 at 150 mm: the corner column
+        // shows 100 mm; an overhang high edge goes in the overhang-edge column.
+        let grid = RoofSummary::spacing_grid(&[
+            zone(ZoneKind::Corner, SupportRole::Intermediate, Some(150.0)),
+            zone(ZoneKind::HighCorner, SupportRole::Intermediate, Some(100.0)),
+            zone(ZoneKind::OverhangHighEdge, SupportRole::PanelEdge, Some(125.0)),
+        ]);
+        assert_eq!(
+            grid[0][1],
+            Some(SpacingCell {
+                spacing_mm: Some(100.0)
+            })
+        );
+        assert_eq!(
+            grid[4][0],
+            Some(SpacingCell {
+                spacing_mm: Some(125.0)
+            })
+        );
     }
 
     #[test]

@@ -33,10 +33,14 @@ fn zone_kind(region: Region, overhang: bool) -> ZoneKind {
     match (region, overhang) {
         (Region::Interior, false) => ZoneKind::Interior,
         (Region::Edge, false) => ZoneKind::Edge,
+        (Region::HighEdge, false) => ZoneKind::HighEdge,
         (Region::Corner, false) => ZoneKind::Corner,
+        (Region::HighCorner, false) => ZoneKind::HighCorner,
         (Region::Interior, true) => ZoneKind::OverhangInterior,
         (Region::Edge, true) => ZoneKind::OverhangEdge,
+        (Region::HighEdge, true) => ZoneKind::OverhangHighEdge,
         (Region::Corner, true) => ZoneKind::OverhangCorner,
+        (Region::HighCorner, true) => ZoneKind::OverhangHighCorner,
     }
 }
 
@@ -114,9 +118,9 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
         }
         RoofShape::Monoslope if !limits::MONOSLOPE_SLOPE_DEG.contains(roof.slope_deg) => {
             return Err(WindError::unsupported(
-                "roof.shape",
+                "roof.slope_deg",
                 format!(
-                    "monoslope roofs over 3 deg ({:.1} deg given) need the monoslope figures (NBC 2020 Figure 4.1.7.6.-G, ASCE 7-22 Figure 30.3-5), which are not implemented",
+                    "{:.1} deg is over 30 deg for a monoslope roof: the monoslope figures (ASCE 7-22 Figure 30.3-5B, NBC 2020 Commentary I) stop at 30 deg",
                     roof.slope_deg
                 ),
             ));
@@ -292,10 +296,7 @@ fn build_zones(
     };
     let mut result = Vec::new();
     for overhang in [false, true] {
-        for (index, region) in [Region::Interior, Region::Edge, Region::Corner]
-            .into_iter()
-            .enumerate()
-        {
+        for region in Region::ALL {
             let polygons_m: Vec<Vec<Point>> = pieces
                 .iter()
                 .filter(|piece| piece.region == region && piece.overhang == overhang)
@@ -305,13 +306,13 @@ fn build_zones(
                 continue;
             }
             let area: f64 = polygons_m.iter().map(|p| area_m2(p)).sum();
-            let name = basis.zone_names[index];
+            let curve_data = data.curve(&basis.slope_set, region)?;
+            let name = &curve_data.code_zone;
             let code_zone = if overhang {
                 format!("{name}-oh")
             } else {
                 name.to_string()
             };
-            let curve_data = data.curve(&basis.slope_set, region)?;
             let mut curve = ZoneCurve::from_data(curve_data, overhang.then_some(&data.soffit));
             if let Some(slope_blend) = &basis.slope_blend {
                 let upper = data.curve(&slope_blend.upper_set, region)?;
@@ -453,6 +454,8 @@ mod tests {
                 (RoofShape::Hip, 18.0),
                 (RoofShape::Flat, 0.0),
                 (RoofShape::Monoslope, 2.0),
+                (RoofShape::Monoslope, 8.0),
+                (RoofShape::Monoslope, 20.0),
             ] {
                 for ridge in [RidgeAlong::Length, RidgeAlong::Width] {
                     if shape == RoofShape::Hip && ridge == RidgeAlong::Width {
@@ -888,6 +891,83 @@ mod tests {
                 max_relative = 1e-9
             );
             assert!(analysis.warnings.iter().any(|w| w.contains("reentrant")));
+        }
+    }
+
+    #[test]
+    fn monoslope_bands_follow_the_standards_rule() {
+        // ASCE 7-22 Figure 30.3-5A/5B notes and NBC 2020 4.1.7.6.(8) (from memory): up to 3 deg the
+        // low-slope figure, 3 < slope <= 10 the first monoslope band, 10 < slope <= 30 the second; the
+        // upper bound belongs to the lower band; over 30 deg refused, naming the key.
+        for (site, low, first, second) in [
+            (asce_site(130.0), "30.3-2A", "30.3-5A", "30.3-5B"),
+            (
+                nbc_site(0.5),
+                "4.1.7.6.-C",
+                "3 < slope <= 10",
+                "10 < slope <= 30",
+            ),
+        ] {
+            for (slope, figure) in [
+                (3.0, low),
+                (3.01, first),
+                (10.0, first),
+                (10.01, second),
+                (30.0, second),
+            ] {
+                let case = input(
+                    RoofShape::Monoslope,
+                    slope,
+                    RidgeAlong::Length,
+                    site.clone(),
+                );
+                let analysis = analyze(&case).expect("monoslope");
+                assert!(
+                    analysis.zone_map.contains(figure),
+                    "{slope}: {}",
+                    analysis.zone_map
+                );
+            }
+            let steep = input(RoofShape::Monoslope, 30.01, RidgeAlong::Length, site);
+            let error = analyze(&steep).expect_err("over 30 deg");
+            assert!(error.to_string().starts_with("roof.slope_deg"), "{error}");
+        }
+    }
+
+    #[test]
+    fn monoslope_high_eave_zones_lie_along_the_high_side() {
+        // ASCE 7-22 Figure 30.3-5A (severe-of-two, docs/sources.md): zones 1, 2, 3, 2', 3'; 3' at
+        // 10 ft2 is -3.2 (the 30.3-2A zone 3 value at 3 deg, over -2.6 recalled for 5A). A roof with its
+        // eaves along plan x falls toward -y: the high eave is the wall at y = 9 m.
+        let analysis = analyze(&input(
+            RoofShape::Monoslope,
+            8.0,
+            RidgeAlong::Length,
+            asce_site(130.0),
+        ))
+        .expect("monoslope");
+        let names: Vec<&str> = analysis
+            .zones
+            .iter()
+            .filter(|zone| !zone.label.is_overhang())
+            .map(|zone| zone.code_zone.as_str())
+            .collect();
+        assert_eq!(names, ["1", "2", "3", "2'", "3'"]);
+        for (zone, curve) in analysis.zones.iter().zip(&analysis.curves) {
+            let high = zone.code_zone.starts_with("2'") || zone.code_zone.starts_with("3'");
+            let max_y = zone
+                .polygons_m
+                .iter()
+                .flatten()
+                .map(|p| p[1])
+                .fold(f64::MIN, f64::max);
+            if high {
+                assert!(max_y > 8.0, "{} reaches y = {max_y}", zone.code_zone);
+                assert_eq!(curve.status, CoefficientStatus::SevereOfTwo);
+            }
+            if zone.code_zone == "3'" {
+                assert_relative_eq!(curve.coefficient_at(0.929_030_4), -3.2);
+            }
         }
     }
 

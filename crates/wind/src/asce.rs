@@ -99,7 +99,16 @@ pub(crate) fn basis(
     let (dead_factor, dead_source) = data.constant(&format!("dead_load_factor.{method_key}"))?;
     let (minimum_kpa, minimum_source) = data.constant("minimum_pressure_kpa")?;
     let sloped = slope_deg > 7.0 && matches!(shape, RoofShape::Gable | RoofShape::Hip);
-    let (slope_set, edge, edge_source) = if !sloped {
+    let monoslope = shape == RoofShape::Monoslope && slope_deg > MONOSLOPE_FROM_DEG;
+    let (slope_set, edge, edge_source) = if monoslope {
+        // Figures 30.3-5A and 5B by the standard's band rule (upper bound included).
+        let banded = figure_for_slope(&data.figures, "mono-", slope_deg, &data.edition)?;
+        (
+            banded.set.clone(),
+            edge_width_m(least_dimension_m, mean_height_m, 3.0 * M_PER_FT),
+            "ASCE 7-22 Figures 30.3-5A and 30.3-5B notes: a = min(0.1 D, 0.4 h) >= max(0.04 D, 3 ft) (from memory)",
+        )
+    } else if !sloped {
         (
             "slope-0-7".to_string(),
             0.6 * mean_height_m,
@@ -146,7 +155,10 @@ pub(crate) fn basis(
     if sloped && shape == RoofShape::Hip {
         warnings.push("ASCE 7-22 hip roofs: zone 3 is taken along every eave, not only at the corners (the more severe of two unconfirmed readings of the 7-22 hip zone map)".to_string());
     }
-    if !sloped {
+    if monoslope {
+        warnings.push("ASCE 7-22 monoslope roofs (Figures 30.3-5A and 30.3-5B): coefficients are the more severe of the figure as recalled and the rows that apply at the band's lower boundary; the zone map is from memory, with the high-eave corners taken at their larger recalled extent; check them against the printed figures or override them (--coefficients)".to_string());
+    }
+    if !sloped && !monoslope {
         warnings.push("ASCE 7-22 Figure 30.3-2A: zone 1' is taken as zone 1 and the corner zone 3 as the full 0.6 h square (conservative simplification)".to_string());
     }
     let reference_kpa = q_h_kpa * k_d;
@@ -171,11 +183,14 @@ pub(crate) fn basis(
         zone_map,
         slope_set,
         slope_blend: hip_blend(shape, slope_deg),
-        zone_names: ["1", "2", "3"],
         factors,
         warnings,
     })
 }
+
+/// Monoslope roofs up to this slope use the low-slope figure 30.3-2A; steeper ones the monoslope
+/// figures (ASCE 7-22 Figure 30.3-5A note, from memory), deg.
+const MONOSLOPE_FROM_DEG: f64 = 3.0;
 
 /// Lowest and highest slope of the hip band that interpolates to the 45 deg figure, deg.
 const HIP_BLEND_FROM_DEG: f64 = 27.0;

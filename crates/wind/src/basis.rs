@@ -64,8 +64,6 @@ pub(crate) struct StandardBasis {
     pub slope_blend: Option<SlopeBlend>,
     /// The figure, slope band and zone map used, for the report.
     pub zone_map: String,
-    /// Code-zone names for interior, edge and corner.
-    pub zone_names: [&'static str; 3],
     pub factors: Vec<Factor>,
     pub warnings: Vec<String>,
 }

@@ -18,6 +18,9 @@ pub(crate) fn exposure_factor(terrain: Terrain, height_m: f64) -> f64 {
     }
 }
 
+/// Monoslope roofs up to this slope use Figure 4.1.7.6.-C (4.1.7.6.(8), as the limits table says), deg.
+const MONOSLOPE_FROM_DEG: f64 = 3.0;
+
 /// The NBC part of an analysis.
 pub(crate) fn basis(
     site: &NbcWind,
@@ -75,7 +78,12 @@ pub(crate) fn basis(
     let reference_kpa = i_w * q_kpa;
     let sloped = slope_deg > 7.0 && matches!(shape, RoofShape::Gable | RoofShape::Hip);
     // The band's figure by the standard's boundary rule (4.1.7.6.(4) and (6); upper bound included).
-    let slope_set = if sloped {
+    let monoslope = shape == RoofShape::Monoslope && slope_deg > MONOSLOPE_FROM_DEG;
+    let slope_set = if monoslope {
+        figure_for_slope(&data.figures, "mono-", slope_deg, &data.edition)?
+            .set
+            .clone()
+    } else if sloped {
         figure_for_slope(&data.figures, "gable-hip-", slope_deg, &data.edition)?
             .set
             .clone()
@@ -102,6 +110,9 @@ pub(crate) fn basis(
     let mut warnings = vec![
         "NBC 2020 C_pC_g curves are from memory; check them against the printed Figures 4.1.7.6.-C and -E or override them".to_string(),
     ];
+    if monoslope {
+        warnings.push("NBC 2020 monoslope roofs: the values of the Commentary I monoslope figure could not be recalled or confirmed; each zone takes the more severe of the Figure 4.1.7.6.-C row and the sloped-roof reading (a stand-in), on a zone map from memory with the high eave zoned apart; check against the printed figure or override them (--coefficients)".to_string());
+    }
     if sloped {
         warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
     }
@@ -126,7 +137,6 @@ pub(crate) fn basis(
         zone_map,
         slope_set,
         slope_blend: None,
-        zone_names: ["r", "s", "c"],
         factors,
         warnings,
     })

@@ -205,6 +205,7 @@ mod tests {
             ridge: false,
             hips: true,
             wall_region: Region::Edge,
+            high_eave: None,
         };
         let pieces = layout(&l_shape(), &roof, strips);
         let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
@@ -228,6 +229,7 @@ mod tests {
             ridge: true,
             hips: false,
             wall_region: Region::Edge,
+            high_eave: None,
         };
         let pieces = layout(&t_shape(), &roof, strips);
         let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();

@@ -6,7 +6,7 @@ use serde::{Deserialize, Serialize};
 
 use crate::error::WindError;
 use crate::types::RoofShape;
-use crate::zones::{Region, Strips};
+use crate::zones::{HighEave, Region, Strips};
 
 /// How sure the data is of a row (house rule: every table value says which).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
@@ -50,6 +50,38 @@ pub(crate) enum WallStrips {
     Corner,
 }
 
+/// Which region a monoslope's high-eave strip or corner is.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub(crate) enum HighEaveRegion {
+    Edge,
+    Corner,
+    HighEdge,
+    HighCorner,
+}
+
+impl HighEaveRegion {
+    fn region(self) -> Region {
+        match self {
+            HighEaveRegion::Edge => Region::Edge,
+            HighEaveRegion::Corner => Region::Corner,
+            HighEaveRegion::HighEdge => Region::HighEdge,
+            HighEaveRegion::HighCorner => Region::HighCorner,
+        }
+    }
+}
+
+/// A monoslope figure's high eave: the strip of width a along it, and its corners, whose extent the
+/// figure gives in multiples of a.
+#[derive(Debug, Clone, PartialEq, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub(crate) struct HighEaveData {
+    pub strip: HighEaveRegion,
+    pub corner: HighEaveRegion,
+    pub corner_along_a: f64,
+    pub corner_across_a: f64,
+}
+
 /// A figure's zone map.
 #[derive(Debug, Clone, PartialEq, Deserialize)]
 #[serde(deny_unknown_fields)]
@@ -61,6 +93,9 @@ pub(crate) struct ZoneMapData {
     pub ridge_strips: bool,
     /// Bands each side of the hips and along the ridge.
     pub hip_strips: bool,
+    /// Monoslope figures only: what the high eave carries.
+    #[serde(default)]
+    pub high_eave: Option<HighEaveData>,
     pub placement: String,
     pub status: CoefficientStatus,
     pub readings: String,
@@ -93,6 +128,15 @@ impl FigureData {
             wall_region: match self.zone_map.wall_strips {
                 WallStrips::Edge => Region::Edge,
                 WallStrips::Corner => Region::Corner,
+            },
+            high_eave: match (&self.zone_map.high_eave, shape) {
+                (Some(high), RoofShape::Monoslope) => Some(HighEave {
+                    strip: high.strip.region(),
+                    corner: high.corner.region(),
+                    corner_along_m: high.corner_along_a * edge_width_m,
+                    corner_across_m: high.corner_across_a * edge_width_m,
+                }),
+                _ => None,
             },
         }
     }

@@ -11,6 +11,46 @@ pub(crate) enum Region {
     Interior,
     Edge,
     Corner,
+    /// A monoslope's strip along its high eave where the figure names it apart (ASCE 7-22 zone 2').
+    HighEdge,
+    /// A monoslope's high-eave corner where the figure names it apart (ASCE 7-22 zone 3').
+    HighCorner,
+}
+
+impl Region {
+    /// Every region, in the order zones are listed.
+    pub(crate) const ALL: [Region; 5] = [
+        Region::Interior,
+        Region::Edge,
+        Region::Corner,
+        Region::HighEdge,
+        Region::HighCorner,
+    ];
+
+    /// The word the coefficient data uses for the region.
+    pub(crate) fn as_str(self) -> &'static str {
+        match self {
+            Region::Interior => "interior",
+            Region::Edge => "edge",
+            Region::Corner => "corner",
+            Region::HighEdge => "high-edge",
+            Region::HighCorner => "high-corner",
+        }
+    }
+}
+
+/// What a monoslope figure draws along the high eave (local v = across-ridge length: the roof falls
+/// toward v = 0). The monoslope figures zone the high eave more severely than the low eave.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct HighEave {
+    /// The region of the strip of width a along the high eave.
+    pub strip: Region,
+    /// The region of each high-eave corner.
+    pub corner: Region,
+    /// How far each high-eave corner reaches along the high eave, m.
+    pub corner_along_m: f64,
+    /// How far each high-eave corner reaches down the slope, m.
+    pub corner_across_m: f64,
 }
 
 /// The strips the layout draws besides the wall-line strips.
@@ -24,6 +64,8 @@ pub(crate) struct Strips {
     /// The region of the strips along the walls: edge, or corner where a figure's map puts its worst
     /// zone along the whole eave (ASCE 7-22 hip roofs, severe-of-two).
     pub wall_region: Region,
+    /// Monoslope figures: the high eave's own strip and corners.
+    pub high_eave: Option<HighEave>,
 }
 
 /// One classified piece of the roof outline, local frame.
@@ -54,6 +96,10 @@ fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<
     let mut v_cuts = vec![0.0, a, lv - a, lv, lv / 2.0];
     if strips.ridge || strips.hips {
         v_cuts.extend([lv / 2.0 - a, lv / 2.0 + a]);
+    }
+    if let Some(high) = strips.high_eave {
+        u_cuts.extend([high.corner_along_m, lu - high.corner_along_m]);
+        v_cuts.push(lv - high.corner_across_m);
     }
     // Lines as (normal, offset): normal · p = offset.
     let mut lines: Vec<(Point, f64)> = Vec::new();
@@ -135,7 +181,23 @@ fn classify_rectangle(u: f64, v: f64, lu: f64, lv: f64, strips: Strips) -> (Regi
     } else {
         Region::Interior
     };
+    let region = match strips.high_eave {
+        Some(high) => high_eave_region(high, region, du, lv - qv, a),
+        None => region,
+    };
     (region, overhang)
+}
+
+/// The region of a monoslope point `from_high_m` down the slope from the high eave and `du` from the
+/// nearer rake: the high-eave corner (its own extent each way), the high-eave strip, or `region`.
+fn high_eave_region(high: HighEave, region: Region, du: f64, from_high_m: f64, a: f64) -> Region {
+    if du < high.corner_along_m && from_high_m < high.corner_across_m {
+        high.corner
+    } else if from_high_m < a && region != Region::Corner {
+        high.strip
+    } else {
+        region
+    }
 }
 
 fn polygon_layout(building: &[Point], local: &LocalRoof, a: f64) -> Vec<Piece> {
@@ -280,6 +342,7 @@ pub(crate) mod tests {
             ridge: true,
             hips: false,
             wall_region: Region::Edge,
+            high_eave: None,
         };
         let (local, pieces) = pieces_for(
             RoofShape::Gable,
@@ -312,6 +375,7 @@ pub(crate) mod tests {
             ridge: false,
             hips: true,
             wall_region: Region::Edge,
+            high_eave: None,
         };
         let (local, pieces) = pieces_for(
             RoofShape::Hip,
@@ -338,6 +402,7 @@ pub(crate) mod tests {
             ridge: false,
             hips: false,
             wall_region: Region::Edge,
+            high_eave: None,
         };
         let l_shape = vec![
             [0.0, 0.0],
@@ -361,5 +426,80 @@ pub(crate) mod tests {
             5.0,
             max_relative = 1e-9
         );
+    }
+
+    fn monoslope_pieces(high: HighEave) -> Vec<Piece> {
+        let strips = Strips {
+            edge_width_m: 1.0,
+            ridge: false,
+            hips: false,
+            wall_region: Region::Edge,
+            high_eave: Some(high),
+        };
+        let (local, pieces) = pieces_for(
+            RoofShape::Monoslope,
+            Footprint::Rectangle {
+                length_m: 12.0,
+                width_m: 8.0,
+            },
+            strips,
+        );
+        let total: f64 = pieces.iter().map(|p| area_m2(&p.polygon_m)).sum();
+        assert_relative_eq!(total, area_m2(&local.outline_m), max_relative = 1e-9);
+        pieces
+    }
+
+    #[test]
+    fn monoslope_high_eave_is_zoned_apart_from_the_low_eave() {
+        // ASCE 7-22 Figure 30.3-5A map (from memory; zone 3' read as 4a along the high eave, a down the
+        // slope): 12 x 8 m, a = 1 m. Inside the walls: 3' = 2 x 4 x 1 = 8 m2, 2' = (12 - 8) x 1 = 4 m2,
+        // low corners 3 = 2 m2, zone 2 = low eave 10 + rakes 2 x 6 = 22 m2, interior 10 x 6 = 60 m2.
+        let pieces = monoslope_pieces(HighEave {
+            strip: Region::HighEdge,
+            corner: Region::HighCorner,
+            corner_along_m: 4.0,
+            corner_across_m: 1.0,
+        });
+        for (region, expected) in [
+            (Region::HighCorner, 8.0),
+            (Region::HighEdge, 4.0),
+            (Region::Corner, 2.0),
+            (Region::Edge, 22.0),
+            (Region::Interior, 60.0),
+        ] {
+            assert_relative_eq!(
+                area_of(&pieces, region, false),
+                expected,
+                max_relative = 1e-9
+            );
+        }
+        // The high eave is at local v = 8 m (the roof falls toward v = 0): every 3' piece touches it.
+        for piece in pieces
+            .iter()
+            .filter(|p| p.region == Region::HighCorner && !p.overhang)
+        {
+            assert!(piece.polygon_m.iter().any(|p| (p[1] - 8.0).abs() < 1e-9));
+        }
+    }
+
+    #[test]
+    fn monoslope_steep_band_has_larger_corners_at_the_high_eave() {
+        // ASCE 7-22 Figure 30.3-5B map (from memory): zone 3 at the high-eave corners 2a x 2a (the
+        // larger reading), a x a at the low-eave corners; zone 2 strips along all four sides.
+        // Corners: 2 x 4 + 2 x 1 = 10 m2; zone 2: low eave 10 + high eave 8 + rakes 2 x 5 = 28 m2.
+        let pieces = monoslope_pieces(HighEave {
+            strip: Region::Edge,
+            corner: Region::Corner,
+            corner_along_m: 2.0,
+            corner_across_m: 2.0,
+        });
+        for (region, expected) in [(Region::Corner, 10.0), (Region::Edge, 28.0)] {
+            assert_relative_eq!(
+                area_of(&pieces, region, false),
+                expected,
+                max_relative = 1e-9
+            );
+        }
+        assert_relative_eq!(area_of(&pieces, Region::HighEdge, false), 0.0);
     }
 }

@@ -485,12 +485,17 @@ fn spacing_table(
             },
             style,
         );
-        let label_lines = wrap(line.label.as_str(), Font::Bold, 9.0, edge_x - zone_x - 1.5);
-        let mut baseline = top - 4.3;
-        for label in label_lines.iter().take(2) {
-            canvas.text(zone_x, baseline, label, Font::Bold, 9.0, Align::Left);
-            baseline -= line_height_mm(9.0);
-        }
+        // One line per row: a long zone word (overhang-high-corner) is set smaller to fit, since a
+        // second line would run into the next row.
+        let room = edge_x - zone_x - 1.5;
+        let word = line.label.as_str();
+        let natural = super::text::width_mm(word, Font::Bold, 9.0);
+        let size = if natural > room {
+            (9.0 * room / natural).max(6.0)
+        } else {
+            9.0
+        };
+        canvas.text(zone_x, top - 4.3, word, Font::Bold, size, Align::Left);
         spacing_cell(canvas, edge_x, top, line.panel_edge, imperial);
         spacing_cell(canvas, intermediate_x, top, line.intermediate, imperial);
         canvas.text(

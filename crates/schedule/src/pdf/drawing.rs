@@ -19,6 +19,10 @@ pub(crate) enum Hatch {
     Horizontal,
     Dots,
     Grid,
+    AntiDiagonal,
+    CrossBar,
+    Vertical,
+    GridDiagonal,
 }
 
 /// The look of one zone: grey level of the fill (0 black, 1 white) and its hatch.
@@ -54,6 +58,23 @@ pub(crate) fn zone_style(kind: ZoneKind) -> ZoneStyle {
         ZoneKind::OverhangCorner => ZoneStyle {
             fill: 0.56,
             hatch: Hatch::Grid,
+        },
+        // Monoslope high-eave zones: darker than their low-eave kin, hatched the other way.
+        ZoneKind::HighEdge => ZoneStyle {
+            fill: 0.70,
+            hatch: Hatch::AntiDiagonal,
+        },
+        ZoneKind::HighCorner => ZoneStyle {
+            fill: 0.48,
+            hatch: Hatch::CrossBar,
+        },
+        ZoneKind::OverhangHighEdge => ZoneStyle {
+            fill: 0.86,
+            hatch: Hatch::Vertical,
+        },
+        ZoneKind::OverhangHighCorner => ZoneStyle {
+            fill: 0.40,
+            hatch: Hatch::GridDiagonal,
         },
     }
 }
@@ -148,6 +169,18 @@ pub(crate) fn fill_zone(canvas: &mut Canvas, points: &[[f64; 2]], style: ZoneSty
         Hatch::Grid => {
             hatch_lines(canvas, bbox, [0.0, 1.0], step * 0.8);
             hatch_lines(canvas, bbox, [1.0, 0.0], step * 0.8);
+        }
+        Hatch::AntiDiagonal => hatch_lines(canvas, bbox, [1.0, 1.0], step),
+        Hatch::CrossBar => {
+            hatch_lines(canvas, bbox, [1.0, -1.0], step);
+            hatch_lines(canvas, bbox, [1.0, 1.0], step);
+            hatch_lines(canvas, bbox, [1.0, 0.0], step);
+        }
+        Hatch::Vertical => hatch_lines(canvas, bbox, [1.0, 0.0], step * 0.8),
+        Hatch::GridDiagonal => {
+            hatch_lines(canvas, bbox, [0.0, 1.0], step * 0.8);
+            hatch_lines(canvas, bbox, [1.0, 0.0], step * 0.8);
+            hatch_lines(canvas, bbox, [1.0, -1.0], step);
         }
     }
     canvas.restore();
