@@ -394,7 +394,7 @@ fn catalog_lists_coefficient_rows_with_their_status() {
     assert!(output.status.success());
     let rows: serde_json::Value = serde_json::from_slice(&output.stdout).expect("json");
     let rows = rows.as_array().expect("array");
-    assert_eq!(rows.len(), 30);
+    assert_eq!(rows.len(), 46); // 30 before the 16 monoslope rows
     assert!(rows.iter().all(|row| matches!(
         row["status"].as_str(),
         Some("checked" | "from memory" | "severe-of-two")
