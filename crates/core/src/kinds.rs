@@ -255,7 +255,7 @@ mod tests {
             .iter()
             .filter(|kind| kind.is_overhang())
             .collect();
-        assert_eq!(overhangs.len(), 3);
+        assert_eq!(overhangs.len(), 5);
         assert!(overhangs
             .iter()
             .all(|kind| kind.as_str().starts_with("overhang-")));
