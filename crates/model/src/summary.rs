@@ -141,7 +141,11 @@ mod tests {
         let grid = RoofSummary::spacing_grid(&[
             zone(ZoneKind::Corner, SupportRole::Intermediate, Some(150.0)),
             zone(ZoneKind::HighCorner, SupportRole::Intermediate, Some(100.0)),
-            zone(ZoneKind::OverhangHighEdge, SupportRole::PanelEdge, Some(125.0)),
+            zone(
+                ZoneKind::OverhangHighEdge,
+                SupportRole::PanelEdge,
+                Some(125.0),
+            ),
         ]);
         assert_eq!(
             grid[0][1],
