@@ -28,4 +28,6 @@ pub mod format {
     pub use crate::finite::finite;
     pub use deckhold_model::format::*;
 }
-pub use pdf::{crew_sheet_pages, report_pdf, schedule_pdf, Block, Part, PdfOptions, Report};
+pub use pdf::{
+    crew_sheet_pages, report_pdf, schedule_pdf, unshowable_chars, Block, Part, PdfOptions, Report,
+};

@@ -419,6 +419,9 @@ pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::R
     };
     let pdf = deckhold_schedule::report_pdf(&check_report(report), &options)
         .context("the plan-check PDF could not be drawn")?;
+    for warning in super::pdf_text::unshowable_warnings(&report.project.info) {
+        errln!("warning: {warning}");
+    }
     let files = [("check.csv", check_csv(report)), ("check.pdf", pdf)];
     let written =
         crate::output::write_all_atomically(folder, crate::output::OutputSet::Check, &files)?;

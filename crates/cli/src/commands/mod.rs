@@ -8,6 +8,7 @@ pub mod check_report;
 pub mod compare;
 pub mod init;
 pub mod limits;
+pub mod pdf_text;
 pub mod retrofit;
 pub mod run;
 pub mod zones;

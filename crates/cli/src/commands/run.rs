@@ -52,6 +52,9 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
         lap("CSV");
         files.push((FILE_NAMES[2], schedule_pdf(&schedule, &options)?));
         lap("PDF");
+        for warning in super::pdf_text::unshowable_warnings(&schedule.project) {
+            errln!("warning: {warning}");
+        }
         if args.json {
             files.push(("schedule.json", serde_json::to_vec_pretty(&schedule)?));
         }

@@ -8,7 +8,8 @@ use printpdf::{
     Point, Polygon, PolygonRing, Pt, TextItem, TextMatrix, WindingOrder,
 };
 
-use super::text::{printable, width_mm, Font, PT_PER_MM};
+use super::embedded::EmbeddedChars;
+use super::text::{needs_embedded, printable, width_mm, Font, PT_PER_MM};
 
 /// A rectangle on the page, mm, lower-left corner at (`x`, `y`).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -115,6 +116,8 @@ fn grey(level: f64) -> Color {
 #[derive(Debug, Default)]
 pub(crate) struct Canvas {
     ops: Vec<Op>,
+    /// Characters shown in the embedded face, so the document embeds just those glyphs.
+    embedded: EmbeddedChars,
 }
 
 impl Canvas {
@@ -129,6 +132,11 @@ impl Canvas {
     /// Draws `other`'s operations on top of this page's.
     pub(crate) fn append(&mut self, other: Canvas) {
         self.ops.extend(other.ops);
+        self.embedded.merge(&other.embedded);
+    }
+
+    pub(crate) fn embedded_chars(&self) -> &EmbeddedChars {
+        &self.embedded
     }
 
     fn stroke_state(&mut self, width_mm: f64, level: f64, stroke: Stroke) {
@@ -290,8 +298,14 @@ impl Canvas {
     fn show(&mut self, text: String, font: Font, size_pt: f64, level: f64, matrix: TextMatrix) {
         self.ops.push(Op::StartTextSection);
         self.ops.push(Op::SetFillColor { col: grey(level) });
+        let handle = if needs_embedded(&text) {
+            self.embedded.record(font, &text);
+            PdfFontHandle::External(font.embedded_id())
+        } else {
+            PdfFontHandle::Builtin(font.builtin())
+        };
         self.ops.push(Op::SetFont {
-            font: PdfFontHandle::Builtin(font.builtin()),
+            font: handle,
             size: Pt(size_pt as f32),
         });
         self.ops.push(Op::SetTextMatrix { matrix });

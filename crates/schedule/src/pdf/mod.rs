@@ -1,8 +1,9 @@
 //! The PDF report: crew sheet (page 1), design basis (page 2 on), rafter-line table (after), with the
 //! cautions and the title block on every page.
 //!
-//! Built with printpdf's page operations and the built-in Helvetica faces only, so no font file is read
-//! or embedded. Deterministic: the dates come from [`PdfOptions`], and the document id that printpdf
+//! Built with printpdf's page operations and the built-in Helvetica faces; a subset of the shipped DejaVu
+//! Sans is embedded only when a text needs a character Helvetica lacks ([`embedded`]). No font file is
+//! read at run time. Deterministic: the dates come from [`PdfOptions`], and the document id that printpdf
 //! draws from its own counter is replaced with the one from the options.
 
 mod canvas;
@@ -11,6 +12,7 @@ mod crew_pattern;
 mod crew_sheet;
 mod design_basis;
 mod drawing;
+mod embedded;
 mod flow;
 mod geometry;
 mod labels;
@@ -20,6 +22,7 @@ mod report;
 mod text;
 
 pub use report::{report_pdf, Block, Part, Report};
+pub use text::unshowable_chars;
 
 use printpdf::date::{Date, Offset, OffsetDateTime, Time};
 use printpdf::{Mm, PdfDocument, PdfPage, PdfParseErrorSeverity, PdfSaveOptions};
@@ -265,6 +268,7 @@ fn document_bytes(
     let date = parse_date(&options.creation_date)?;
     check_document_id(&options.document_id)?;
     let page_count = sheets.len();
+    let mut embedded_chars = embedded::EmbeddedChars::default();
     let pages: Vec<PdfPage> = sheets
         .into_iter()
         .enumerate()
@@ -274,6 +278,7 @@ fn document_bytes(
                 .frame
                 .draw(&mut canvas, title, &sheet.title, index + 1, page_count);
             let paper = sheet.frame.paper;
+            embedded_chars.merge(canvas.embedded_chars());
             PdfPage::new(
                 Mm(paper.width_mm as f32),
                 Mm(paper.height_mm as f32),
@@ -293,6 +298,7 @@ fn document_bytes(
     info.subject = about.subject.clone();
     info.identifier = options.document_id.clone();
     document.with_pages(pages);
+    embedded::add_subsets(&mut document, &embedded_chars)?;
 
     let save_options = PdfSaveOptions {
         optimize: true,

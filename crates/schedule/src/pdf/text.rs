@@ -1,7 +1,8 @@
 //! Built-in font metrics (Helvetica and Helvetica-Bold, WinAnsi encoding) and line wrapping.
 //!
-//! The PDF uses the standard Type 1 fonts every viewer carries, so nothing is embedded and no system font
-//! is read. Their advance widths (1/1000 em, by WinAnsi code 0x20..=0xFF) are the Adobe Core 14 AFM
+//! The PDF uses the standard Type 1 fonts every viewer carries, so for the report's own words nothing is
+//! embedded and no system font is read. A text with a character the built-in fonts cannot show (a name in
+//! Cyrillic, say) is set whole in the embedded face instead ([`super::embedded`]). Their advance widths (1/1000 em, by WinAnsi code 0x20..=0xFF) are the Adobe Core 14 AFM
 //! metrics, taken from groff's `devps/HR` and `devps/HB` font files (generated from those AFMs).
 
 use printpdf::BuiltinFont;
@@ -69,9 +70,9 @@ fn winansi_code(c: char) -> Option<u8> {
     }
 }
 
-/// ASCII stand-ins for characters the built-in fonts cannot show.
-fn stand_in(c: char) -> &'static str {
-    match c {
+/// ASCII stand-ins for the symbols of the report's own formulas the built-in fonts cannot show.
+fn stand_in(c: char) -> Option<&'static str> {
+    Some(match c {
         '\u{2264}' => "<=",
         '\u{2265}' => ">=",
         '\u{2212}' | '\u{2010}' | '\u{2011}' => "-",
@@ -99,24 +100,61 @@ fn stand_in(c: char) -> &'static str {
         '\u{2091}' => "e",
         '\u{209A}' => "p",
         '\u{209C}' => "t",
-        _ => "?",
-    }
+        _ => return None,
+    })
 }
 
-/// `text` with every character the built-in fonts can show, the rest replaced by ASCII stand-ins.
+/// Whether the built-in fonts can show `c`, as itself, through a stand-in or escaped (a control character).
+fn builtin_shows(c: char) -> bool {
+    c.is_control() || matches!(winansi_code(c), Some(code) if code != 0xA0) || stand_in(c).is_some()
+}
+
+/// Whether `text` must be set in the embedded face: it has a character the built-in fonts cannot show.
+pub(crate) fn needs_embedded(text: &str) -> bool {
+    !text.chars().all(builtin_shows)
+}
+
+/// `text` as the page shows it. Text the built-in fonts can show keeps its characters, with ASCII
+/// stand-ins for formula symbols; other text keeps every character the embedded face has, and the rest
+/// print as code points (`[U+4E2D]`). Control characters print escaped (`\u{1b}`), line breaks and tabs
+/// as spaces. Idempotent: printing printable text changes nothing.
 pub(crate) fn printable(text: &str) -> String {
     let mut out = String::with_capacity(text.len());
+    let embedded = needs_embedded(text);
     for c in text.chars() {
-        match winansi_code(c) {
-            Some(code) if code != 0xA0 => out.push(c),
-            _ => out.push_str(stand_in(c)),
+        match c {
+            '\t' | '\n' | '\r' => out.push(' '),
+            c if c.is_control() => out.extend(c.escape_unicode()),
+            c if embedded => match stand_in(c) {
+                _ if super::embedded::has_glyph(c) => out.push(c),
+                Some(stand_in) => out.push_str(stand_in),
+                None => out.push_str(&format!("[U+{:04X}]", c as u32)),
+            },
+            c => match (winansi_code(c), stand_in(c)) {
+                (Some(code), _) if code != 0xA0 => out.push(c),
+                (_, Some(stand_in)) => out.push_str(stand_in),
+                _ => out.push(c),
+            },
         }
     }
     out
 }
 
+/// The characters of `text` that no font of the PDF can show (they print as code points).
+pub fn unshowable_chars(text: &str) -> Vec<char> {
+    if !needs_embedded(text) {
+        return Vec::new();
+    }
+    text.chars()
+        .filter(|c| !c.is_control() && !builtin_shows(*c) && !super::embedded::has_glyph(*c))
+        .collect()
+}
+
 /// Width of `text` set in `font` at `size_pt`, in mm.
 pub(crate) fn width_mm(text: &str, font: Font, size_pt: f64) -> f64 {
+    if needs_embedded(text) {
+        return super::embedded::advance_em(text, font) * size_pt / PT_PER_MM;
+    }
     let widths = font.widths();
     let question_mark = f64::from(widths[usize::from(b'?' - 0x20)]);
     let em_thousandths: f64 = text
@@ -305,7 +343,42 @@ mod tests {
             printable("Qu\u{00E9}bec, 2 m\u{00B2}"),
             "Qu\u{00E9}bec, 2 m\u{00B2}"
         );
-        assert_eq!(printable("\u{4E2D}"), "?");
+        assert_eq!(printable("\u{4E2D}"), "[U+4E2D]");
+    }
+
+    #[test]
+    fn other_scripts_keep_their_letters_and_never_print_a_question_mark() {
+        let cyrillic = "\u{0414}\u{043E}\u{043C} \u{2116}5";
+        assert!(needs_embedded(cyrillic));
+        assert_eq!(printable(cyrillic), cyrillic);
+        let greek = "\u{03A3}\u{03C0}\u{03AF}\u{03C4}\u{03B9}";
+        assert_eq!(printable(greek), greek);
+        assert_eq!(
+            printable("\u{0416}\u{4E2D}\u{6587}"),
+            "\u{0416}[U+4E2D][U+6587]"
+        );
+        assert_eq!(unshowable_chars("\u{0416}\u{4E2D}"), vec!['\u{4E2D}']);
+        assert!(unshowable_chars(cyrillic).is_empty());
+        assert_eq!(printable(&printable(cyrillic)), printable(cyrillic));
+    }
+
+    #[test]
+    fn the_report_s_own_symbols_and_control_characters_stay_in_the_built_in_font() {
+        assert!(!needs_embedded("p \u{2264} R, \u{03B3}_W = 1.4"));
+        assert!(!needs_embedded("Name\u{1b}[31m"));
+        assert_eq!(printable("Name\u{1b}[31m\u{7}"), "Name\\u{1b}[31m\\u{7}");
+        assert_eq!(printable("two\nlines"), "two lines");
+    }
+
+    #[test]
+    fn embedded_text_is_measured_with_the_embedded_advances() {
+        // DejaVu Sans 2.37: U+0416 is glyph 939, advance 2206 of 2048 units per em (read from the font's
+        // cmap and hmtx tables with a separate script, not through this code).
+        assert_relative_eq!(
+            width_mm("\u{0416}", Font::Regular, PT_PER_MM),
+            2206.0 / 2048.0,
+            max_relative = 1e-9
+        );
     }
 
     #[test]
