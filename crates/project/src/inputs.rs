@@ -1,6 +1,6 @@
-//! "Inputs as given" and "values used": the design basis shows the keys the user wrote, with the values as
-//! written (units and all), and then the values the tool derived from them, in the report's units. A plan
-//! checker reads the first against the drawings and the second against the method.
+//! "Values used": after the keys the user wrote with the values as written ([`crate::as_written`]), the
+//! design basis shows the values the tool derived from them, in the report's units. A plan checker reads
+//! the first against the drawings and the second against the method.
 
 use crate::project::{EdgeBlocking, Project, StaggerChoice};
 use deckhold_model::format::{
@@ -8,50 +8,6 @@ use deckhold_model::format::{
 };
 use deckhold_model::InputRow;
 use deckhold_wind::Footprint;
-use serde_json::Value;
-
-/// Every key the user wrote, as a dotted path (`roof.slope`, `building.footprint.rectangle.length_ft`),
-/// with its value as written. A list of plain values stays on one line; the `project` block (names and
-/// date) is shown in its own table and left out here.
-pub fn as_written_rows(as_written: &Value) -> Vec<InputRow> {
-    let mut rows = Vec::new();
-    if let Value::Object(map) = as_written {
-        for (key, value) in map {
-            if key != "project" {
-                flatten(key, value, &mut rows);
-            }
-        }
-    }
-    rows
-}
-
-fn flatten(path: &str, value: &Value, rows: &mut Vec<InputRow>) {
-    let scalar_list = |items: &[Value]| {
-        items
-            .iter()
-            .all(|item| !item.is_object() && !item.is_array())
-    };
-    match value {
-        Value::Object(map) => {
-            for (key, inner) in map {
-                flatten(&format!("{path}.{key}"), inner, rows);
-            }
-        }
-        Value::Array(items) if !scalar_list(items) => {
-            for (index, inner) in items.iter().enumerate() {
-                flatten(&format!("{path}[{index}]"), inner, rows);
-            }
-        }
-        Value::String(text) => rows.push(InputRow {
-            key: path.to_string(),
-            value: text.clone(),
-        }),
-        other => rows.push(InputRow {
-            key: path.to_string(),
-            value: other.to_string().replace('"', "").replace(',', ", "),
-        }),
-    }
-}
 
 /// The values the tool used, derived from the inputs (defaults filled in, slopes in degrees), in the
 /// report's units.
@@ -137,37 +93,4 @@ pub fn derived_rows(project: &Project) -> Vec<InputRow> {
     rows.push(row("treated framing", deck.treated.to_string()));
     rows.push(row("candidate nails", project.nails.join(", ")));
     rows
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-
-    #[test]
-    fn keys_and_values_are_kept_as_written() {
-        let value: Value = serde_json::from_str(
-            r#"{"project": {"name": "x"}, "roof": {"slope": "6:12", "overhang_in": 18},
-                "building": {"footprint": {"polygon_ft": [[0, 0], [40, 0]]}}, "nails": ["8d-common", "10d-common"]}"#,
-        )
-        .expect("JSON");
-        let rows = as_written_rows(&value);
-        let text: Vec<String> = rows
-            .iter()
-            .map(|row| format!("{} = {}", row.key, row.value))
-            .collect();
-        assert!(text.contains(&"roof.slope = 6:12".to_string()), "{text:?}");
-        assert!(
-            text.contains(&"roof.overhang_in = 18".to_string()),
-            "{text:?}"
-        );
-        assert!(
-            text.contains(&"building.footprint.polygon_ft[0] = [0, 0]".to_string()),
-            "{text:?}"
-        );
-        assert!(
-            text.contains(&"nails = [8d-common, 10d-common]".to_string()),
-            "{text:?}"
-        );
-        assert!(!text.iter().any(|line| line.starts_with("project")));
-    }
 }

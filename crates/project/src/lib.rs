@@ -4,6 +4,7 @@
 //! naming its key path); [`run_job`] runs wind zones, nail resistance and spacing into a
 //! [`deckhold_model::Schedule`]. No file or terminal I/O here: the binary reads and writes files.
 
+pub mod as_written;
 pub mod basis;
 pub mod batch;
 pub mod demo;

@@ -27,7 +27,10 @@ pub fn parse_project(text: &str) -> Result<Project, ProjectError> {
     let value: Value =
         serde_json::from_str(text).map_err(|error| ProjectError::Json(error.to_string()))?;
     crate::duplicate_keys::check_duplicate_keys(text)?;
-    project_from_value(&value)
+    let mut project = project_from_value(&value)?;
+    // The file's own digits, not the parser's: `1` stays `1`, `0.50` stays `0.50`.
+    project.as_written = crate::as_written::rows_from_text(text);
+    Ok(project)
 }
 
 /// Validates an already-parsed JSON value.
@@ -68,7 +71,7 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
         nails,
         existing,
         units: basis.units(),
-        as_written: value.clone(),
+        as_written: crate::as_written::rows_from_value(value),
         fasteners,
     })
 }

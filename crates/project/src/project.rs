@@ -119,8 +119,8 @@ pub struct Project {
     pub existing: Option<ExistingPattern>,
     /// Units of every output: the basis's customary units unless the user chose others (`--units`).
     pub units: Units,
-    /// The project file as the user wrote it (keys, units and values), for "Inputs as given".
-    pub as_written: serde_json::Value,
+    /// Every key the user wrote with its value as written (units and digits), for "Inputs as given".
+    pub as_written: Vec<deckhold_model::InputRow>,
     /// Fasteners stated in the project file, used by id like catalog ones.
     pub fasteners: Vec<Nail>,
 }

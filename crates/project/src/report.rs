@@ -144,7 +144,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         lines,
         total_nail_count: plan.map_or(0, |plan| plan.total_nail_count),
         total_nail_mass_kg: plan.map_or(0.0, |plan| plan.total_nail_mass_kg),
-        inputs: crate::inputs::as_written_rows(&project.as_written),
+        inputs: project.as_written.clone(),
         derived: crate::inputs::derived_rows(project),
         provenance,
         warnings,

@@ -97,7 +97,7 @@ fn another(key: &str, value: &Value) -> Value {
 /// with any key, read or not).
 fn as_read(project: &deckhold_project::Project) -> String {
     let mut project = project.clone();
-    project.as_written = Value::Null;
+    project.as_written = Vec::new();
     format!("{project:?}")
 }
 
