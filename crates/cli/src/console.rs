@@ -6,11 +6,24 @@
 use std::fmt;
 use std::io::{self, Write};
 
+/// What reaches the terminal: the tool's own text has no control character but the line break, so any
+/// other one came from user text (a name with a terminal escape) and is written escaped (`\u{1b}`).
+fn terminal_text(args: fmt::Arguments) -> String {
+    let text = args.to_string();
+    if !text.chars().any(|c| c.is_control() && c != '\n') {
+        return text;
+    }
+    text.split('\n')
+        .map(|line| deckhold_schedule::format::escape_controls(line).into_owned())
+        .collect::<Vec<_>>()
+        .join("\n")
+}
+
 /// Writes to standard output and returns the error (with what was being written to).
 pub fn write_out(args: fmt::Arguments) -> anyhow::Result<()> {
     io::stdout()
         .lock()
-        .write_fmt(args)
+        .write_all(terminal_text(args).as_bytes())
         .map_err(|error| anyhow::Error::new(error).context("cannot write to standard output"))
 }
 
@@ -18,7 +31,7 @@ pub fn write_out(args: fmt::Arguments) -> anyhow::Result<()> {
 pub fn write_err(args: fmt::Arguments) -> anyhow::Result<()> {
     io::stderr()
         .lock()
-        .write_fmt(args)
+        .write_all(terminal_text(args).as_bytes())
         .map_err(|error| anyhow::Error::new(error).context("cannot write to standard error"))
 }
 
@@ -60,4 +73,19 @@ macro_rules! errln {
     ($($arg:tt)*) => {
         $crate::console::write_err(format_args!("{}\n", format_args!($($arg)*)))?
     };
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn control_characters_reach_the_terminal_escaped_and_lines_stay_lines() {
+        let name = "shed\u{1b}]0;owned\u{7}";
+        assert_eq!(
+            terminal_text(format_args!("Project: {name}\nnext\n")),
+            "Project: shed\\u{1b}]0;owned\\u{7}\nnext\n"
+        );
+        assert_eq!(terminal_text(format_args!("plain\n")), "plain\n");
+    }
 }

@@ -236,10 +236,39 @@ pub fn plural(word: &str) -> String {
     }
 }
 
+/// User text as every output shows it: control characters (a terminal escape, a bell, a line break)
+/// written as `\u{1b}`, so a name can neither drive a terminal nor forge a line. Borrowed when clean.
+pub fn escape_controls(text: &str) -> std::borrow::Cow<'_, str> {
+    if !text.chars().any(char::is_control) {
+        return std::borrow::Cow::Borrowed(text);
+    }
+    let mut out = String::with_capacity(text.len() + 8);
+    for c in text.chars() {
+        if c.is_control() {
+            out.extend(c.escape_unicode());
+        } else {
+            out.push(c);
+        }
+    }
+    std::borrow::Cow::Owned(out)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
     use approx::assert_relative_eq;
+
+    #[test]
+    fn control_characters_are_written_escaped() {
+        assert_eq!(
+            escape_controls("a\u{1b}[2Jb\u{7}\nc"),
+            "a\\u{1b}[2Jb\\u{7}\\u{a}c"
+        );
+        assert!(matches!(
+            escape_controls("\u{0414}\u{043E}\u{043C} 5"),
+            std::borrow::Cow::Borrowed(_)
+        ));
+    }
 
     #[test]
     fn fixed_rounds_to_the_requested_places() {

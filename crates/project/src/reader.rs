@@ -259,15 +259,7 @@ pub fn is_near(written: &str, allowed: &str) -> bool {
 
 /// User text as it may be shown in a message: control characters (terminal escapes) written as `\u{1b}`.
 pub fn escape_text(text: &str) -> String {
-    text.chars()
-        .flat_map(|c| {
-            if c.is_control() {
-                c.escape_unicode().collect::<Vec<_>>()
-            } else {
-                vec![c]
-            }
-        })
-        .collect()
+    deckhold_model::format::escape_controls(text).into_owned()
 }
 
 fn display_path(path: &str) -> String {

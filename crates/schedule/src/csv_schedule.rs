@@ -3,7 +3,7 @@
 //! A pure table: the header, then the rows, nothing else (the cautions travel in the PDF and on the
 //! terminal; see docs/report-format.md). The quantities are in the schedule's units, named in the headers.
 
-use crate::format::{fixed, kpa_to_psf, mm_to_in, n_to_lbf, places, trimmed};
+use crate::format::{escape_controls, fixed, kpa_to_psf, mm_to_in, n_to_lbf, places, trimmed};
 use crate::{finite, Schedule, ScheduleError, Units};
 
 /// Column names of `schedule.csv` in SI, units in the names.
@@ -84,8 +84,8 @@ pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
                 row.label.as_str(),
                 &row.code_zone,
                 row.support_role.as_str(),
-                &row.nail_id,
-                &row.nail_description,
+                &escape_controls(&row.nail_id),
+                &escape_controls(&row.nail_description),
                 &spacing_cell(row.spacing_mm, units),
                 &pressure(row.net_uplift_kpa),
                 &force(row.demand_n),

@@ -5,7 +5,7 @@
 //! which thread formatted them. Both unit systems are present for every spacing, as in `schedule.csv`.
 
 use crate::csv_schedule::NO_SPACING;
-use crate::format::{fixed, mm_to_in, places};
+use crate::format::{escape_controls, fixed, mm_to_in, places};
 use crate::{RoofStatus, RoofSummary, ScheduleError, SpacingCell, SUMMARY_ROLES, SUMMARY_ZONES};
 
 /// Column names of `summary.csv`, units in the names.
@@ -59,10 +59,10 @@ pub fn summary_header_csv() -> Result<Vec<u8>, ScheduleError> {
 /// `none` where no practical spacing works.
 pub fn summary_record(roof: &RoofSummary) -> Result<Vec<u8>, ScheduleError> {
     let mut record: Vec<String> = vec![
-        roof.id.clone(),
+        escape_controls(&roof.id).into_owned(),
         roof.status.as_str().to_string(),
-        roof.message.clone(),
-        roof.nail_id.clone(),
+        escape_controls(&roof.message).into_owned(),
+        escape_controls(&roof.nail_id).into_owned(),
     ];
     for zone in &roof.spacings {
         for cell in zone {

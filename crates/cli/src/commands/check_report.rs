@@ -187,6 +187,7 @@ fn retrofit_fastener_lines(retrofit: &Retrofit, is_us: bool) -> Vec<String> {
 
 /// A CSV field, quoted when it holds a comma, quote or line break.
 fn field(text: &str) -> String {
+    let text = deckhold_schedule::format::escape_controls(text);
     if text.contains([',', '"', '\n']) {
         format!("\"{}\"", text.replace('"', "\"\""))
     } else {

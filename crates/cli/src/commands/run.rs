@@ -185,9 +185,9 @@ fn summary_text(schedule: &Schedule) -> String {
     let units = schedule.basis.units;
     let us = units.is_us();
     let title = if schedule.project.name.is_empty() {
-        "Roof sheathing nailing schedule"
+        "Roof sheathing nailing schedule".into()
     } else {
-        &schedule.project.name
+        deckhold_schedule::format::escape_controls(&schedule.project.name)
     };
     let nail_line = if schedule.resistance.governing_n > 0.0 {
         format!(
