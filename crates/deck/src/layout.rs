@@ -22,7 +22,7 @@ use deckhold_core::limits;
 use framing::framing_lines;
 use geometry::{validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
-use zones::{zone_pieces, LineStrip};
+use zones::{zone_pieces, LineStrip, ZoneShapes};
 
 /// One roof plane in plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -241,6 +241,7 @@ pub fn layout_deck(
 ) -> Result<DeckLayout, SpacingError> {
     validate(planes, zones, zone_rank, framing, panel)?;
     let mut cache = StripCache::default();
+    let zone_shapes = ZoneShapes::new(zones);
     let mut lines = Vec::new();
     let mut courses = Vec::new();
     let mut pieces = Vec::new();
@@ -299,7 +300,7 @@ pub fn layout_deck(
                 number,
                 plane_index,
                 framing,
-                zones,
+                &zone_shapes,
                 zone_rank,
                 &mut cache,
             )?);
@@ -330,7 +331,7 @@ pub fn layout_deck(
                 courses: &plane_courses,
                 panel_width_m: panel.width_mm / 1000.0,
             };
-            lines.extend(blocking_lines(&on, zones, zone_rank, &mut number)?);
+            lines.extend(blocking_lines(&on, &zone_shapes, zone_rank, &mut number)?);
         }
     }
     let framing_lines = framing_lines(planes, &lines);
@@ -357,7 +358,7 @@ fn lay_out_line(
     number: u32,
     plane_index: usize,
     framing: &FramingInput,
-    zones: &[ZoneRegion],
+    zones: &ZoneShapes<'_>,
     zone_rank: &[u32],
     cache: &mut StripCache,
 ) -> Result<LayoutLine, SpacingError> {

@@ -9,6 +9,8 @@
 //! The crew nails one spacing per zone and role: the closest one any stretch of that zone needs.
 
 use serde::Serialize;
+use std::collections::HashMap;
+use std::hash::{BuildHasherDefault, Hasher};
 
 pub use crate::error::SpacingError;
 use crate::error::{check_positive, check_range};
@@ -259,23 +261,93 @@ fn nail_load(
     })
 }
 
-/// The widest allowed increment (widest first in `allowed`) that holds; None when none does.
-fn widest_holding(
-    uplift: &UpliftFn<'_>,
-    rules: &SpacingRules,
-    allowed: &[f64],
-    zone_index: usize,
-    reaction_width_mm: f64,
-    resistance_n: f64,
-) -> Result<Option<f64>, SpacingError> {
-    for &spacing_mm in allowed {
-        let load = nail_load(uplift, rules, zone_index, reaction_width_mm, spacing_mm)?;
-        if load.demand_n <= resistance_n * (1.0 + 1e-12) {
-            return Ok(Some(spacing_mm));
+/// The loads already worked out in one plan, by zone, reaction width and spacing. A roof has thousands
+/// of stretches but a few dozen distinct (zone, reaction width, spacing), and the uplift function is
+/// pure, so each is worked out once: the same numbers, without recomputing them per stretch.
+struct LoadCache<'u> {
+    uplift: &'u UpliftFn<'u>,
+    rules: &'u SpacingRules,
+    loads: HashMap<(usize, u64, u64), NailLoad, BuildFastHasher>,
+}
+
+impl<'u> LoadCache<'u> {
+    fn new(uplift: &'u UpliftFn<'u>, rules: &'u SpacingRules) -> Self {
+        Self {
+            uplift,
+            rules,
+            loads: HashMap::default(),
         }
     }
-    Ok(None)
+
+    fn load(
+        &mut self,
+        zone_index: usize,
+        reaction_width_mm: f64,
+        spacing_mm: f64,
+    ) -> Result<NailLoad, SpacingError> {
+        let key = (
+            zone_index,
+            reaction_width_mm.to_bits(),
+            spacing_mm.to_bits(),
+        );
+        if let Some(load) = self.loads.get(&key) {
+            return Ok(*load);
+        }
+        let load = nail_load(
+            self.uplift,
+            self.rules,
+            zone_index,
+            reaction_width_mm,
+            spacing_mm,
+        )?;
+        self.loads.insert(key, load);
+        Ok(load)
+    }
+
+    /// The widest allowed increment (widest first in `allowed`) that holds; None when none does.
+    fn widest_holding(
+        &mut self,
+        allowed: &[f64],
+        zone_index: usize,
+        reaction_width_mm: f64,
+        resistance_n: f64,
+    ) -> Result<Option<f64>, SpacingError> {
+        for &spacing_mm in allowed {
+            let load = self.load(zone_index, reaction_width_mm, spacing_mm)?;
+            if load.demand_n <= resistance_n * (1.0 + 1e-12) {
+                return Ok(Some(spacing_mm));
+            }
+        }
+        Ok(None)
+    }
 }
+
+/// A small multiplicative hasher for the load cache's keys of plain integers (std's default hasher
+/// guards against crafted keys, which these are not, and cost more than the loads it looked up).
+#[derive(Debug, Default, Clone, Copy)]
+struct FastHasher(u64);
+
+impl Hasher for FastHasher {
+    fn finish(&self) -> u64 {
+        self.0
+    }
+
+    fn write(&mut self, bytes: &[u8]) {
+        for byte in bytes {
+            self.write_u64(u64::from(*byte));
+        }
+    }
+
+    fn write_u64(&mut self, value: u64) {
+        self.0 = (self.0.rotate_left(5) ^ value).wrapping_mul(0x517c_c1b7_2722_0a95);
+    }
+
+    fn write_usize(&mut self, value: usize) {
+        self.write_u64(value as u64);
+    }
+}
+
+type BuildFastHasher = BuildHasherDefault<FastHasher>;
 
 /// Nails in one row over `length_m` at `spacing_mm`: one at each end of the stretch and at each spacing
 /// between, counting the shared end once (so a stretch holds ceil(L/s) nails, at least 1).
@@ -333,6 +405,8 @@ fn plan_or_check(
         SupportRole::Intermediate => &allowed_intermediate,
     };
 
+    let mut cache = LoadCache::new(uplift, rules);
+
     // Pass 1: the segments and what each alone needs.
     let mut lines = Vec::with_capacity(layout.lines.len());
     for line in &layout.lines {
@@ -369,9 +443,7 @@ fn plan_or_check(
                 let required_spacing_mm = if is_blocking {
                     None
                 } else {
-                    widest_holding(
-                        uplift,
-                        rules,
+                    cache.widest_holding(
                         &allowed(bearing.support_role).widest_first_mm,
                         piece.zone_index,
                         reaction_width_mm,
@@ -435,27 +507,30 @@ fn plan_or_check(
             patterns.push((*key, Some(spacing_mm)));
             continue;
         }
-        let mut pattern = Some(allowed(key.1).widest_mm());
+        patterns.push((*key, Some(allowed(key.1).widest_mm())));
+    }
+    if given.is_none() {
+        // One pass over the segments (keys are sorted): each narrows its zone and role's pattern.
         for segment in lines
             .iter()
             .filter(|line| line.kind != LineKind::Blocking)
             .flat_map(|l| &l.segments)
         {
-            if (segment.zone_index, segment.support_role) != *key {
-                continue;
+            let key = (segment.zone_index, segment.support_role);
+            if let Ok(at) = patterns.binary_search_by(|(k, _)| k.cmp(&key)) {
+                let pattern = &mut patterns[at].1;
+                *pattern = match (*pattern, segment.required_spacing_mm) {
+                    (Some(current), Some(required)) => Some(current.min(required)),
+                    _ => None,
+                };
             }
-            pattern = match (pattern, segment.required_spacing_mm) {
-                (Some(current), Some(required)) => Some(current.min(required)),
-                _ => None,
-            };
         }
-        patterns.push((*key, pattern));
     }
     let pattern_for = |key: (usize, SupportRole)| -> Option<f64> {
         patterns
-            .iter()
-            .find(|(k, _)| *k == key)
-            .and_then(|(_, p)| *p)
+            .binary_search_by(|(k, _)| k.cmp(&key))
+            .ok()
+            .and_then(|at| patterns[at].1)
     };
     // Blocking in a zone with no panel edge on the framing takes the closest panel-edge pattern of the
     // roof (the severe reading); none when any panel-edge pattern has no working spacing.
@@ -492,13 +567,7 @@ fn plan_or_check(
             };
             // No working spacing: report the load at the closest allowed increment.
             let checked_at_mm = pattern.unwrap_or(allowed(segment.support_role).closest_mm());
-            let load = nail_load(
-                uplift,
-                rules,
-                segment.zone_index,
-                segment.reaction_width_mm,
-                checked_at_mm,
-            )?;
+            let load = cache.load(segment.zone_index, segment.reaction_width_mm, checked_at_mm)?;
             segment.spacing_mm = pattern;
             segment.net_uplift_kpa = load.net_uplift_kpa;
             segment.effective_area_m2 = load.effective_area_m2;
@@ -510,19 +579,46 @@ fn plan_or_check(
         }
     }
 
+    // Per zone and role: the governing segment (highest utilization, then the lowest line number) and
+    // the nail count, in one pass over the segments.
+    struct Tally<'s> {
+        governing: Option<(u32, &'s Segment)>,
+        nail_count: u64,
+    }
+    let mut tallies: Vec<Tally<'_>> = keys
+        .iter()
+        .map(|_| Tally {
+            governing: None,
+            nail_count: 0,
+        })
+        .collect();
+    for line in &lines {
+        for segment in &line.segments {
+            let key = (segment.zone_index, segment.support_role);
+            let Ok(at) = keys.binary_search(&key) else {
+                continue;
+            };
+            let tally = &mut tallies[at];
+            tally.nail_count += segment.nail_count;
+            // `max_by` keeps the last of equals; with the line number reversed in the order, that is
+            // the lowest-numbered line among the highest utilizations.
+            let replace = match tally.governing {
+                None => true,
+                Some((number, held)) => held
+                    .utilization
+                    .total_cmp(&segment.utilization)
+                    .then(line.number.cmp(&number))
+                    .is_le(),
+            };
+            if replace {
+                tally.governing = Some((line.number, segment));
+            }
+        }
+    }
     let mut zone_roles = Vec::with_capacity(keys.len());
-    for key in keys {
+    for (key, tally) in keys.iter().copied().zip(&tallies) {
         let pattern = pattern_for(key);
-        let members: Vec<(&RafterLine, &Segment)> = lines
-            .iter()
-            .flat_map(|line| line.segments.iter().map(move |segment| (line, segment)))
-            .filter(|(_, segment)| (segment.zone_index, segment.support_role) == key)
-            .collect();
-        let Some((governing_line, governing)) = members.iter().max_by(|a, b| {
-            a.1.utilization
-                .total_cmp(&b.1.utilization)
-                .then(b.0.number.cmp(&a.0.number))
-        }) else {
+        let Some((governing_line, governing)) = tally.governing else {
             continue;
         };
         let widest = Some(allowed(key.1).widest_mm());
@@ -536,12 +632,12 @@ fn plan_or_check(
             zone_index: key.0,
             support_role: key.1,
             spacing_mm: pattern,
-            governing_line: governing_line.number,
+            governing_line,
             net_uplift_kpa: governing.net_uplift_kpa,
             demand_n: governing.demand_n,
             resistance_n: nail.resistance_n,
             utilization: governing.utilization,
-            nail_count: members.iter().map(|(_, segment)| segment.nail_count).sum(),
+            nail_count: tally.nail_count,
             limited_by,
         });
     }

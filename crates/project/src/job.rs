@@ -311,8 +311,7 @@ pub(crate) fn net_uplift_kpa(
     zone_index: usize,
     area_m2: f64,
 ) -> Result<f64, String> {
-    wind.uplift(zone_index, area_m2)
-        .map(|uplift| uplift.net_uplift_kpa)
+    wind.net_uplift_kpa(zone_index, area_m2)
         .map_err(|error| error.to_string())
 }
 

@@ -10,7 +10,7 @@ use crate::error::WindError;
 use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
 use crate::types::{CurveOverride, RoofShape, SiteWind, WindInput};
-use crate::uplift::{evaluate, Uplift};
+use crate::uplift::{evaluate, evaluate_pressures, Uplift};
 use crate::zone_maps::CoefficientStatus;
 use crate::zones::{layout, Region};
 use crate::{asce, nbc};
@@ -82,19 +82,32 @@ pub struct WindAnalysis {
 impl WindAnalysis {
     /// Net uplift on zone `zone_index` (order of `zones`) at an effective wind area, m².
     pub fn uplift(&self, zone_index: usize, effective_area_m2: f64) -> Result<Uplift, WindError> {
-        let (Some(zone), Some(curve)) = (self.zones.get(zone_index), self.curves.get(zone_index))
-        else {
-            return Err(WindError::range(
+        let (curve, overhang) = self.curve(zone_index)?;
+        evaluate(&self.pressure, curve, overhang, effective_area_m2)
+    }
+
+    /// The net factored uplift alone, kPa: the same number as [`WindAnalysis::uplift`]'s
+    /// `net_uplift_kpa`, without copying the curve's source text (the spacing search asks this for
+    /// every stretch and increment it tries).
+    pub fn net_uplift_kpa(
+        &self,
+        zone_index: usize,
+        effective_area_m2: f64,
+    ) -> Result<f64, WindError> {
+        let (curve, overhang) = self.curve(zone_index)?;
+        evaluate_pressures(&self.pressure, curve, overhang, effective_area_m2)
+            .map(|uplift| uplift.net_uplift_kpa)
+    }
+
+    /// The zone's coefficient curve and whether it is an overhang zone.
+    fn curve(&self, zone_index: usize) -> Result<(&ZoneCurve, bool), WindError> {
+        match (self.zones.get(zone_index), self.curves.get(zone_index)) {
+            (Some(zone), Some(curve)) => Ok((curve, zone.label.is_overhang())),
+            _ => Err(WindError::range(
                 "zone_index",
                 format!("{zone_index} is outside 0..{}", self.zones.len()),
-            ));
-        };
-        evaluate(
-            &self.pressure,
-            curve,
-            zone.label.is_overhang(),
-            effective_area_m2,
-        )
+            )),
+        }
     }
 }
 

@@ -32,6 +32,19 @@ pub(crate) fn evaluate(
     overhang: bool,
     effective_area_m2: f64,
 ) -> Result<Uplift, WindError> {
+    let mut uplift = evaluate_pressures(basis, curve, overhang, effective_area_m2)?;
+    uplift.source = curve.source.clone();
+    Ok(uplift)
+}
+
+/// [`evaluate`] without the curve's source text (left empty): the same pressures, for callers that ask
+/// thousands of times per roof and read only the numbers.
+pub(crate) fn evaluate_pressures(
+    basis: &PressureBasis,
+    curve: &ZoneCurve,
+    overhang: bool,
+    effective_area_m2: f64,
+) -> Result<Uplift, WindError> {
     if !effective_area_m2.is_finite() || effective_area_m2 <= 0.0 {
         return Err(WindError::range(
             "effective_area_m2",
@@ -57,7 +70,7 @@ pub(crate) fn evaluate(
         dead_counteracting_kpa,
         net_uplift_kpa: wind_factored_kpa - dead_counteracting_kpa,
         effective_area_m2,
-        source: curve.source.clone(),
+        source: String::new(),
     })
 }
 
@@ -101,6 +114,28 @@ mod tests {
         assert_relative_eq!(result.net_uplift_kpa, 1.37, max_relative = 1e-12);
         let overhang = evaluate(&basis(None), &curve(), true, 0.5).expect("uplift");
         assert_relative_eq!(overhang.internal_kpa, 0.0);
+    }
+
+    #[test]
+    fn the_pressures_alone_are_the_same_numbers_without_the_source() {
+        // Regression check of the fast path the spacing search uses, against the full breakdown.
+        for (minimum, overhang, area) in [
+            (None, false, 0.5),
+            (Some(2.0), false, 3.0),
+            (None, true, 20.0),
+        ] {
+            let full = evaluate(&basis(minimum), &curve(), overhang, area).expect("uplift");
+            let fast =
+                evaluate_pressures(&basis(minimum), &curve(), overhang, area).expect("uplift");
+            assert!(!full.source.is_empty());
+            assert_eq!(
+                Uplift {
+                    source: full.source.clone(),
+                    ..fast
+                },
+                full
+            );
+        }
     }
 
     #[test]

@@ -14,8 +14,7 @@
 
 use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
-use super::zones::{zone_pieces, LineStrip};
-use super::ZoneRegion;
+use super::zones::{zone_pieces, LineStrip, ZoneShapes};
 use super::{Bearing, Course, LayoutLine, LineKind, PlaneGeometry, SupportRole, ZonePiece};
 use crate::error::SpacingError;
 
@@ -45,7 +44,7 @@ pub(crate) struct BlockingPlane<'a> {
 /// The blocking lines of one plane, numbered from `next_number`, one per course joint.
 pub(crate) fn blocking_lines(
     on: &BlockingPlane<'_>,
-    zones: &[ZoneRegion],
+    zones: &ZoneShapes<'_>,
     zone_rank: &[u32],
     next_number: &mut u32,
 ) -> Result<Vec<LayoutLine>, SpacingError> {
@@ -137,7 +136,7 @@ pub(crate) fn blocking_lines(
 mod tests {
     use super::*;
     use crate::layout::tests::{rectangle, walls};
-    use crate::layout::{layout_deck, DeckLayout, FramingInput, PanelInput, Stagger};
+    use crate::layout::{layout_deck, DeckLayout, FramingInput, PanelInput, Stagger, ZoneRegion};
     use approx::assert_relative_eq;
 
     fn panel(blocking: EdgeBlocking) -> PanelInput {

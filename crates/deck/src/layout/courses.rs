@@ -140,11 +140,12 @@ impl CourseLayer<'_> {
                 break;
             }
             let reach = previous + panel_m + SAME_POSITION_M;
-            let next = positions
-                .iter()
-                .rev()
-                .copied()
-                .find(|p| *p > previous + SAME_POSITION_M && *p <= reach)
+            // The farthest line the panel reaches (positions increase: bisect, not scan).
+            let within = positions.partition_point(|p| *p <= reach);
+            let next = within
+                .checked_sub(1)
+                .map(|last| positions[last])
+                .filter(|p| *p > previous + SAME_POSITION_M)
                 .ok_or(SpacingError::PanelTooShort {
                     plane_index: self.plane_index,
                     length_mm: self.panel.length_mm,
@@ -195,6 +196,16 @@ impl CourseLayer<'_> {
     }
 }
 
+/// The lines of `grid` (in increasing position, as [`super::lines::grid_lines`] sets them out) with
+/// `lo <= position <= hi`, found by bisection: a big roof has hundreds of lines and thousands of panel
+/// pieces and bearings, and scanning every line for each made the layout grow with the square of the
+/// roof's length.
+fn grid_between(grid: &[GridLine], lo: f64, hi: f64) -> &[GridLine] {
+    let start = grid.partition_point(|g| g.position_m < lo);
+    let end = grid.partition_point(|g| g.position_m <= hi);
+    &grid[start..end.max(start)]
+}
+
 /// The pieces of every course of one plane, with the lines under their ends. `first_number` is the
 /// number of the plane's first grid line.
 pub(crate) fn course_pieces(
@@ -204,21 +215,18 @@ pub(crate) fn course_pieces(
     courses: &[Course],
 ) -> Vec<DeckPiece> {
     let line_at = |position: f64| {
-        grid.iter()
-            .position(|g| (g.position_m - position).abs() <= SAME_POSITION_M)
-            .map(|index| first_number + index as u32)
+        let index = grid.partition_point(|g| g.position_m < position - SAME_POSITION_M);
+        grid.get(index)
+            .filter(|g| (g.position_m - position).abs() <= SAME_POSITION_M)
+            .map(|_| first_number + index as u32)
     };
     let mut pieces = Vec::new();
     for course in courses {
         for pair in course.joints_m.windows(2) {
             let [start_m, end_m] = [pair[0], pair[1]];
-            let inside: Vec<f64> = grid
-                .iter()
-                .map(|g| g.position_m)
-                .filter(|p| *p >= start_m - SAME_POSITION_M && *p <= end_m + SAME_POSITION_M)
-                .collect();
-            let cantilever = |edge: f64, nearest: Option<&f64>| {
-                nearest.map_or(0.0, |p| (p - edge).abs() * frame.cross_factor)
+            let inside = grid_between(grid, start_m - SAME_POSITION_M, end_m + SAME_POSITION_M);
+            let cantilever = |edge: f64, nearest: Option<&GridLine>| {
+                nearest.map_or(0.0, |g| (g.position_m - edge).abs() * frame.cross_factor)
             };
             pieces.push(DeckPiece {
                 plane_index: course.plane_index,
@@ -282,7 +290,10 @@ pub(crate) fn bearing_at(
             ),
         })?;
 
-    let joint = joints_m.iter().position(|j| near(*j, position));
+    // The joints increase across the course: bisect for the first one near the line.
+    let first_near = joints_m.partition_point(|j| *j < position - SAME_POSITION_M);
+    let joint =
+        (first_near < joints_m.len() && near(joints_m[first_near], position)).then_some(first_near);
     let panels: Vec<(f64, f64)> = match joint {
         Some(j) => {
             let mut both = Vec::with_capacity(2);
@@ -294,11 +305,16 @@ pub(crate) fn bearing_at(
             }
             both
         }
-        None => joints_m
-            .windows(2)
-            .find(|w| w[0] < position && position < w[1])
-            .map(|w| vec![(w[0], w[1])])
-            .unwrap_or_default(),
+        None => {
+            // The one panel whose ends are either side of the line: the first joint past it and the
+            // one before.
+            let next = joints_m.partition_point(|j| *j <= position);
+            if next > 0 && next < joints_m.len() && joints_m[next - 1] < position {
+                vec![(joints_m[next - 1], joints_m[next])]
+            } else {
+                Vec::new()
+            }
+        }
     };
     let sides: Vec<PanelSide> = panels
         .into_iter()
@@ -330,15 +346,15 @@ pub(crate) fn bearing_at(
 
     let mut strips = Vec::with_capacity(sides.len());
     for side in sides {
-        let mut supports: Vec<f64> = grid
-            .iter()
-            .filter(|g| {
-                g.position_m >= side.from_m - SAME_POSITION_M
-                    && g.position_m <= side.to_m + SAME_POSITION_M
-                    && (near(g.position_m, position) || g.is_present_at(along_m))
-            })
-            .map(|g| g.position_m)
-            .collect();
+        let mut supports: Vec<f64> = grid_between(
+            grid,
+            side.from_m - SAME_POSITION_M,
+            side.to_m + SAME_POSITION_M,
+        )
+        .iter()
+        .filter(|g| near(g.position_m, position) || g.is_present_at(along_m))
+        .map(|g| g.position_m)
+        .collect();
         let mut overhang_start_m = 0.0;
         let mut overhang_end_m = 0.0;
         let first = supports.first().copied().unwrap_or(position);
@@ -396,4 +412,41 @@ pub(crate) fn bearing_at(
         });
     }
     Ok((role, strips))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn bisecting_the_grid_finds_what_a_scan_finds() {
+        // Lines at 0, 0.4, 0.8, ... 8.0 m (and one doubled end-wall member at 8.0 m).
+        let mut grid: Vec<GridLine> = (0..=20)
+            .map(|i| GridLine {
+                position_m: f64::from(i) * 0.4,
+                intervals_m: vec![[0.0, 5.0]],
+                kind: crate::layout::LineKind::Common,
+            })
+            .collect();
+        grid.push(grid[20].clone());
+        for (lo, hi) in [
+            (-1.0, 0.0),
+            (0.0, 0.4),
+            (0.39, 1.21),
+            (7.99, 9.0),
+            (3.3, 3.35),
+            (9.0, 10.0),
+        ] {
+            let scanned: Vec<f64> = grid
+                .iter()
+                .map(|g| g.position_m)
+                .filter(|p| *p >= lo && *p <= hi)
+                .collect();
+            let bisected: Vec<f64> = grid_between(&grid, lo, hi)
+                .iter()
+                .map(|g| g.position_m)
+                .collect();
+            assert_eq!(bisected, scanned, "{lo}..{hi}");
+        }
+    }
 }

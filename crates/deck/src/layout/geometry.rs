@@ -47,9 +47,26 @@ pub(crate) struct Stretch {
 /// Even-odd rule with half-open edges, so a vertex on the line is counted once. Returns the
 /// stretches along `run`, sorted.
 pub(crate) fn section(polygon: &[[f64; 2]], run: Axis, at: f64) -> Vec<Stretch> {
+    let mut scratch = SectionScratch::default();
+    section_into(polygon, run, at, &mut scratch);
+    scratch.stretches
+}
+
+/// Buffers for [`section_into`], kept by a caller that sections many times (a big roof sections its
+/// zones hundreds of thousands of times; a fresh vector each time was most of the layout's time).
+#[derive(Debug, Default)]
+pub(crate) struct SectionScratch {
+    hits: Vec<(f64, bool)>,
+    /// The result of the last [`section_into`].
+    pub stretches: Vec<Stretch>,
+}
+
+/// [`section`] into `scratch.stretches`, reusing its buffers.
+pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &mut SectionScratch) {
     let r = run.index();
     let k = run.other().index();
-    let mut hits: Vec<(f64, bool)> = Vec::new();
+    let hits = &mut scratch.hits;
+    hits.clear();
     for (i, a) in polygon.iter().enumerate() {
         let b = polygon[(i + 1) % polygon.len()];
         if (a[k] < at) != (b[k] < at) {
@@ -60,14 +77,15 @@ pub(crate) fn section(polygon: &[[f64; 2]], run: Axis, at: f64) -> Vec<Stretch> 
         }
     }
     hits.sort_by(|p, q| p.0.total_cmp(&q.0));
-    hits.chunks_exact(2)
-        .map(|pair| Stretch {
+    scratch.stretches.clear();
+    scratch
+        .stretches
+        .extend(hits.chunks_exact(2).map(|pair| Stretch {
             lo: pair[0].0,
             hi: pair[1].0,
             lo_oblique: pair[0].1,
             hi_oblique: pair[1].1,
-        })
-        .collect()
+        }));
 }
 
 /// Where a framing line running along `run` at `at` lies inside `polygon`: the union of the sections

@@ -5,7 +5,9 @@
 //! that the strip touches there, not only the zone under the line itself. This is conservative near
 //! zone boundaries that run parallel to the lines, by at most half a spacing.
 
-use super::geometry::{bounds, crossings, section, MIN_PIECE_M, SAME_POSITION_M};
+use super::geometry::{
+    bounds, crossings, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
+};
 use super::{Axis, ZoneRegion};
 use crate::error::SpacingError;
 
@@ -27,6 +29,36 @@ pub(crate) struct LineStrip<'a> {
     pub half_width_m: f64,
 }
 
+/// One zone polygon with its plan bounds.
+#[derive(Debug, Clone, Copy)]
+struct ZoneShape<'a> {
+    zone_index: usize,
+    polygon: &'a [[f64; 2]],
+    bounds: [[f64; 2]; 2],
+}
+
+/// Every zone polygon with its bounds, worked out once per layout rather than once per line.
+#[derive(Debug, Clone)]
+pub(crate) struct ZoneShapes<'a> {
+    shapes: Vec<ZoneShape<'a>>,
+}
+
+impl<'a> ZoneShapes<'a> {
+    pub(crate) fn new(zones: &'a [ZoneRegion]) -> Self {
+        let shapes = zones
+            .iter()
+            .flat_map(|zone| {
+                zone.polygons_m.iter().map(move |polygon| ZoneShape {
+                    zone_index: zone.zone_index,
+                    polygon: polygon.as_slice(),
+                    bounds: bounds(polygon),
+                })
+            })
+            .collect();
+        Self { shapes }
+    }
+}
+
 /// Splits the plan interval `along_m` of a line into pieces by governing zone.
 ///
 /// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices and
@@ -35,7 +67,7 @@ pub(crate) struct LineStrip<'a> {
 pub(crate) fn zone_pieces(
     line: LineStrip<'_>,
     along_m: [f64; 2],
-    zones: &[ZoneRegion],
+    zones: &ZoneShapes<'_>,
     zone_rank: &[u32],
 ) -> Result<Vec<PlanZonePiece>, SpacingError> {
     let strip = [
@@ -44,24 +76,20 @@ pub(crate) fn zone_pieces(
     ];
     let r = line.run.index();
     let k = line.run.other().index();
-    let overlaps = |polygon: &[[f64; 2]]| {
-        let [lo, hi] = bounds(polygon);
+    let overlaps = |[lo, hi]: [[f64; 2]; 2]| {
         lo[k] <= strip[1] && hi[k] >= strip[0] && lo[r] <= along_m[1] && hi[r] >= along_m[0]
     };
-    let candidates: Vec<(usize, &[[f64; 2]])> = zones
+    let candidates: Vec<ZoneShape<'_>> = zones
+        .shapes
         .iter()
-        .flat_map(|zone| {
-            zone.polygons_m
-                .iter()
-                .map(move |p| (zone.zone_index, p.as_slice()))
-        })
-        .filter(|(_, polygon)| overlaps(polygon))
+        .filter(|shape| overlaps(shape.bounds))
+        .copied()
         .collect();
 
     let mut breaks = vec![along_m[0], along_m[1]];
     for polygon in candidates
         .iter()
-        .map(|(_, p)| *p)
+        .map(|shape| shape.polygon)
         .chain([line.plane_polygon_m])
     {
         breaks.extend(polygon.iter().map(|p| p[r]));
@@ -83,16 +111,29 @@ pub(crate) fn zone_pieces(
     }
 
     let mut pieces: Vec<PlanZonePiece> = Vec::new();
+    let mut scratch = SectionScratch::default();
+    let mut window: Vec<[f64; 2]> = Vec::new();
     for pair in kept.windows(2) {
         let middle = 0.5 * (pair[0] + pair[1]);
-        let window: Vec<[f64; 2]> = section(line.plane_polygon_m, line.run.other(), middle)
-            .iter()
-            .map(|s| [s.lo.max(strip[0]), s.hi.min(strip[1])])
-            .filter(|w| w[1] > w[0])
-            .collect();
+        section_into(line.plane_polygon_m, line.run.other(), middle, &mut scratch);
+        window.clear();
+        window.extend(
+            scratch
+                .stretches
+                .iter()
+                .map(|s| [s.lo.max(strip[0]), s.hi.min(strip[1])])
+                .filter(|w| w[1] > w[0]),
+        );
         let mut worst: Option<(u32, bool, usize)> = None;
-        for (zone_index, polygon) in &candidates {
-            let stretches = section(polygon, line.run.other(), middle);
+        for shape in &candidates {
+            // A polygon that does not reach `middle` along the line has an empty section there: skip
+            // the sectioning (the same test as the section's own crossing rule).
+            let [lo, hi] = shape.bounds;
+            if !(lo[r] < middle && middle <= hi[r]) {
+                continue;
+            }
+            section_into(shape.polygon, line.run.other(), middle, &mut scratch);
+            let stretches = &scratch.stretches;
             let touched = stretches.iter().any(|s| {
                 window
                     .iter()
@@ -105,17 +146,18 @@ pub(crate) fn zone_pieces(
                 s.lo - SAME_POSITION_M <= line.position_m
                     && line.position_m <= s.hi + SAME_POSITION_M
             });
-            let rank = zone_rank.get(*zone_index).copied().unwrap_or(0);
+            let zone_index = shape.zone_index;
+            let rank = zone_rank.get(zone_index).copied().unwrap_or(0);
             // Highest rank; then the zone under the line itself; then the lowest index.
             let better = match worst {
                 None => true,
                 Some((best_rank, best_on_line, best_index)) => {
-                    (rank, on_line, std::cmp::Reverse(*zone_index))
+                    (rank, on_line, std::cmp::Reverse(zone_index))
                         > (best_rank, best_on_line, std::cmp::Reverse(best_index))
                 }
             };
             if better {
-                worst = Some((rank, on_line, *zone_index));
+                worst = Some((rank, on_line, zone_index));
             }
         }
         let Some((_, _, zone_index)) = worst else {
@@ -179,7 +221,8 @@ mod tests {
             position_m,
             half_width_m: 0.305,
         };
-        zone_pieces(line, [0.0, 6.0], &zones(), &[1, 2, 3]).expect("zones tile the plane")
+        zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&zones()), &[1, 2, 3])
+            .expect("zones tile the plane")
     }
 
     #[test]
@@ -217,7 +260,8 @@ mod tests {
             zone_index: 0,
             polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
         }];
-        let error = zone_pieces(line, [0.0, 6.0], &only_edge, &[1]).expect_err("gap");
+        let error =
+            zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&only_edge), &[1]).expect_err("gap");
         assert!(error.to_string().contains("rafter line 7"), "{error}");
     }
 }
