@@ -1,9 +1,15 @@
 //! Goldens of the retrofit report on the invented 1973 ranch re-roof: `check --add` with a ring-shank
-//! nail and with the stated screw, `--out` writing check.csv and check.pdf. Regression values (our own
+//! nail and with the stated screw: the console text, `--json`, and `--out` writing check.csv and check.pdf. Regression values (our own
 //! earlier output), not outside checks; regenerate as tests/golden/README.md says.
 
 use deckhold_tests::{fixture_path, Goldens};
+use std::path::Path;
 use std::process::Command;
+
+/// The run's temporary folder as `<out>`, so the text is the same on every machine.
+fn normalized(text: &[u8], out: &Path) -> String {
+    String::from_utf8_lossy(text).replace(&out.display().to_string(), "<out>")
+}
 
 #[test]
 fn the_ranch_retrofit_reports_match_their_goldens() {
@@ -21,6 +27,37 @@ fn the_ranch_retrofit_reports_match_their_goldens() {
             .output()
             .expect("the deckhold binary runs");
         assert_eq!(output.status.code(), Some(0), "{added}: every zone passes");
+        let console = format!(
+            "$ deckhold check fixtures/us-retrofit-1970s.json --add {added} --out <out>\n\
+             exit status: 0\n--- stdout\n{}--- stderr\n{}",
+            normalized(&output.stdout, &out),
+            normalized(&output.stderr, &out),
+        );
+        goldens.check(
+            &format!("us-retrofit-1970s/check-add-{added}-console.txt"),
+            &console,
+        );
+        let json = Command::new(env!("CARGO_BIN_EXE_deckhold"))
+            .arg("check")
+            .arg(fixture_path("us-retrofit-1970s.json"))
+            .arg("--add")
+            .arg(added)
+            .arg("--json")
+            .output()
+            .expect("the deckhold binary runs");
+        assert_eq!(
+            json.status.code(),
+            Some(0),
+            "{added}: --json, every zone passes"
+        );
+        assert!(
+            json.stderr.is_empty(),
+            "{added}: --json writes nothing else"
+        );
+        goldens.check(
+            &format!("us-retrofit-1970s/check-add-{added}.json"),
+            &String::from_utf8_lossy(&json.stdout),
+        );
         let csv = std::fs::read_to_string(out.join("check.csv")).expect("check.csv");
         goldens.check(&format!("us-retrofit-1970s/check-add-{added}.csv"), &csv);
         // Page 1 alone is what a reviewer signs off: project, basis, the pattern given, pass/fail and
