@@ -163,6 +163,10 @@ pub struct CompareArgs {
     /// Nails to compare, comma-separated ids (default: every catalog nail that fits the deck and member).
     #[arg(long, value_delimiter = ',')]
     pub nails: Vec<String>,
+    /// Folder for the comparison on file: compare.csv and a one-page compare.pdf with a chart of
+    /// capacity and nail count per candidate. Replaces only these two names in the folder.
+    #[arg(long)]
+    pub out: Option<PathBuf>,
     #[arg(long)]
     pub json: bool,
 }

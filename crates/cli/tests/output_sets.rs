@@ -296,3 +296,40 @@ fn a_folder_of_the_earlier_shared_layout_is_taken_over_set_by_set() {
     assert!(!generation.exists());
     assert!(read_names(&out, &CHECK_SET).iter().all(Option::is_some));
 }
+
+#[test]
+fn a_comparison_written_beside_a_schedule_and_a_report_leaves_both_alone() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let out = folder.path().join("job");
+    let schedule = reference_set(None, &out);
+    assert!(check_into(&out).status().expect("runs").success());
+    let report = read_names(&out, &CHECK_SET);
+    let compare = |out: &Path| {
+        Command::new(binary())
+            .arg("compare")
+            .arg("--out")
+            .arg(out)
+            .stdout(Stdio::null())
+            .stderr(Stdio::null())
+            .status()
+            .expect("runs")
+    };
+    assert!(compare(&out).success());
+    let comparison = read_names(&out, &["compare.csv", "compare.pdf"]);
+    assert!(
+        comparison.iter().all(Option::is_some),
+        "the compare set is whole"
+    );
+    assert_eq!(read_set(&out), schedule, "the schedule set is untouched");
+    assert_eq!(
+        read_names(&out, &CHECK_SET),
+        report,
+        "the check set is untouched"
+    );
+    // A run after the comparison leaves the comparison as it was.
+    assert!(run_into(None, &out).status().expect("runs").success());
+    assert_eq!(
+        read_names(&out, &["compare.csv", "compare.pdf"]),
+        comparison
+    );
+}

@@ -196,8 +196,9 @@ impl DeckGeometry {
     }
 }
 
-/// Zones ranked by net uplift at a nail-sized area: higher rank, worse zone.
-fn rank_zones(wind: &WindAnalysis) -> Result<Vec<u32>, JobError> {
+/// Zones ranked by net uplift at a nail-sized area: higher rank, worse zone. The layout depends on the
+/// wind only through this ranking (it settles which zone a stretch of line belongs to where zones meet).
+pub fn rank_zones(wind: &WindAnalysis) -> Result<Vec<u32>, JobError> {
     let mut uplift_by_zone = Vec::with_capacity(wind.zones.len());
     for zone_index in 0..wind.zones.len() {
         uplift_by_zone.push((

@@ -24,6 +24,7 @@ pub use parse::{parse_project, project_from_value};
 pub use project::*;
 pub mod check;
 pub mod job;
+pub mod reach;
 pub mod report;
 pub mod retrofit;
 pub mod rules;

@@ -29,5 +29,6 @@ pub mod format {
     pub use deckhold_model::format::*;
 }
 pub use pdf::{
-    crew_sheet_pages, report_pdf, schedule_pdf, unshowable_chars, Block, Part, PdfOptions, Report,
+    crew_sheet_pages, report_pdf, schedule_pdf, unshowable_chars, BarChart, Block, ChartColumn,
+    ChartPanel, ChartRow, Part, PdfOptions, Report,
 };

@@ -390,44 +390,28 @@ pub fn check_report(report: &CheckReport) -> Report {
          applies there."
             .to_string(),
     ));
-    Report {
-        title: format!("{REPORT_KIND}: {}", project.info.name),
-        kind: REPORT_KIND.to_string(),
-        project: project.info.name.clone(),
-        site: project.info.site.clone(),
-        date: project.info.date.clone(),
-        basis_id: basis.id.clone(),
-        prepared_by: project.info.prepared_by.clone(),
-        units: project.units,
-        cautions: deckhold_schedule::standard_cautions(),
-        parts: vec![
+    super::project_report(
+        project,
+        REPORT_KIND,
+        vec![
             sign_off,
             Part {
                 sheet: "Plan check: detail".to_string(),
                 blocks: detail_blocks,
             },
         ],
-    }
+    )
 }
 
-/// Writes check.csv and check.pdf into `folder` as one output set.
+/// Writes check.csv and check.pdf into `folder` as the `check` output set.
 pub fn write_report(report: &CheckReport, folder: &std::path::Path) -> anyhow::Result<()> {
-    use anyhow::Context;
-    let options = deckhold_schedule::PdfOptions {
-        creation_date: report.project.info.date.clone(),
-        document_id: "deckhold-plan-check".to_string(),
-        crew_pages: None,
-    };
-    let pdf = deckhold_schedule::report_pdf(&check_report(report), &options)
-        .context("the plan-check PDF could not be drawn")?;
     for warning in super::pdf_text::unshowable_warnings(&report.project.info) {
         errln!("warning: {warning}");
     }
-    let files = [("check.csv", check_csv(report)), ("check.pdf", pdf)];
-    let written =
-        crate::output::write_all_atomically(folder, crate::output::OutputSet::Check, &files)?;
-    for path in written {
-        errln!("wrote {}", path.display());
-    }
-    Ok(())
+    super::write_csv_and_pdf(
+        folder,
+        crate::output::OutputSet::Check,
+        check_csv(report),
+        &check_report(report),
+    )
 }

@@ -6,6 +6,7 @@ pub mod catalog;
 pub mod check;
 pub mod check_report;
 pub mod compare;
+pub mod compare_report;
 pub mod init;
 pub mod limits;
 pub mod pdf_text;
@@ -61,6 +62,51 @@ pub fn read_bounded(path: &Path) -> Result<String> {
             error.utf8_error().valid_up_to()
         )
     })
+}
+
+/// A report PDF of the project (`kind`: "Plan-check report", "Nail comparison"), with the standard
+/// cautions on every page.
+pub fn project_report(
+    project: &Project,
+    kind: &str,
+    parts: Vec<deckhold_schedule::Part>,
+) -> deckhold_schedule::Report {
+    use deckhold_project::BasisStandards;
+    deckhold_schedule::Report {
+        title: format!("{kind}: {}", project.info.name),
+        kind: kind.to_string(),
+        project: project.info.name.clone(),
+        site: project.info.site.clone(),
+        date: project.info.date.clone(),
+        basis_id: project.basis.info().id.clone(),
+        prepared_by: project.info.prepared_by.clone(),
+        units: project.units,
+        cautions: deckhold_schedule::standard_cautions(),
+        parts,
+    }
+}
+
+/// Draws `report` and writes it with `csv` as the two-file output set `set` (its names: the CSV, then
+/// the PDF), dated as the report; says what it wrote on standard error.
+pub fn write_csv_and_pdf(
+    folder: &Path,
+    set: crate::output::OutputSet,
+    csv: Vec<u8>,
+    report: &deckhold_schedule::Report,
+) -> Result<()> {
+    let options = deckhold_schedule::PdfOptions {
+        creation_date: report.date.clone(),
+        document_id: format!("deckhold-{}", set.key()),
+        crew_pages: None,
+    };
+    let pdf = deckhold_schedule::report_pdf(report, &options)
+        .with_context(|| format!("the {} PDF could not be drawn", report.kind))?;
+    let [csv_name, pdf_name] = [set.names()[0], set.names()[1]];
+    let files = [(csv_name, csv), (pdf_name, pdf)];
+    for path in crate::output::write_all_atomically(folder, set, &files)? {
+        errln!("wrote {}", path.display());
+    }
+    Ok(())
 }
 
 /// The cautions printed under every table.

@@ -396,6 +396,22 @@ impl<'f> Flow<'f> {
         self.gap(1.5);
     }
 
+    /// A drawing `height_mm` tall across the body (on the next page unless it fits here, together with a
+    /// waiting heading); `draw` gets the area to fill.
+    pub(crate) fn figure(&mut self, height_mm: f64, draw: impl FnOnce(&mut Canvas, Area)) {
+        self.flush_heading(height_mm);
+        self.ensure(height_mm);
+        let body = self.body();
+        let area = Area {
+            x: body.x,
+            y: self.y - height_mm,
+            w: body.w,
+            h: height_mm,
+        };
+        draw(self.canvas(), area);
+        self.gap(height_mm + 1.5);
+    }
+
     pub(crate) fn finish(mut self) -> Vec<Canvas> {
         self.flush_heading(0.0);
         self.pages

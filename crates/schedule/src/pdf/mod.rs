@@ -6,6 +6,7 @@
 //! read at run time. Deterministic: the dates come from [`PdfOptions`], and the document id that printpdf
 //! draws from its own counter is replaced with the one from the options.
 
+mod bar_chart;
 mod canvas;
 mod crew_notes;
 mod crew_pattern;
@@ -21,6 +22,7 @@ mod page;
 mod report;
 mod text;
 
+pub use bar_chart::{BarChart, ChartColumn, ChartPanel, ChartRow};
 pub use report::{report_pdf, Block, Part, Report};
 pub use text::unshowable_chars;
 

@@ -1,6 +1,7 @@
 //! A plain report PDF (headings, paragraphs, bullet lists, tables) in the schedule's frame: cautions and
 //! title block on every page. Used for the plan-check report, whose first page a reviewer signs off.
 
+use super::bar_chart::BarChart;
 use super::canvas::Align;
 use super::flow::{Column, Flow, Row, TableLook};
 use super::page::{Frame, Paper, TitleInfo};
@@ -20,6 +21,8 @@ pub enum Block {
         columns: Vec<(String, f64)>,
         rows: Vec<Vec<String>>,
     },
+    /// Bars per candidate, one panel per measure.
+    Chart(BarChart),
 }
 
 /// One part of the report: starts on a new page, its pages titled `sheet`.
@@ -67,6 +70,9 @@ pub fn report_pdf(report: &Report, options: &PdfOptions) -> Result<Vec<u8>, Sche
                 Block::Paragraph(text) => flow.paragraph(text, BODY_PT),
                 Block::Strong(text) => flow.bold_paragraph(text, BODY_PT + 1.0),
                 Block::Bullets(items) => flow.bullets(items, BODY_PT),
+                Block::Chart(chart) => {
+                    flow.figure(chart.height_mm(), |canvas, area| chart.draw(canvas, area))
+                }
                 Block::Table { columns, rows } => {
                     let columns: Vec<Column> = columns
                         .iter()
