@@ -1,10 +1,14 @@
-//! The rafter-line table: every framing line, stretch by stretch, with its zone, support role and
-//! spacing, on as many pages as it takes.
+//! The engineer's line table: one row group per nailing pattern ("lines 4-11, 14-27"), stretch by
+//! stretch, with its zone, support role, spacing and the highest utilization any line of the group has
+//! there. Lines nailed alike are grouped by [`crate::line_groups`], the same grouping the crew sheet
+//! uses, so a house needs a page or two and a warehouse a few, where one row group per line took
+//! hundreds of pages. Every line's own position and stretches stay in `rafter-lines.csv`.
 
 use super::canvas::{Align, Canvas};
 use super::flow::{Column, Flow, Row, TableLook};
 use super::page::Frame;
 use crate::format::{feet_inches, fixed, places, spacing_label};
+use crate::line_groups::{group_lines, runs_text, LineGroup};
 use crate::{Schedule, Units};
 
 /// A plan or slope length in the report's units: feet-inches, or metres.
@@ -14,6 +18,56 @@ fn length(m: f64, imperial: bool) -> String {
     } else {
         fixed(m, places::LENGTH_M)
     }
+}
+
+/// The rows of one group: the first names the lines, their kind and length; one row per stretch.
+fn group_rows(group: &LineGroup, imperial: bool) -> Vec<Row> {
+    let head = |first: bool| {
+        if first {
+            [
+                runs_text(&group.numbers),
+                group.kind.to_string(),
+                length(group.length_m, imperial),
+            ]
+        } else {
+            [String::new(), String::new(), String::new()]
+        }
+    };
+    let mut rows: Vec<Row> = group
+        .stretches
+        .iter()
+        .enumerate()
+        .map(|(i, stretch)| {
+            let [lines, kind, long] = head(i == 0);
+            Row {
+                cells: vec![
+                    lines,
+                    kind,
+                    long,
+                    length(stretch.from_m, imperial),
+                    length(stretch.to_m, imperial),
+                    stretch.zone_label.to_string(),
+                    stretch.support_role.to_string(),
+                    spacing_label(stretch.spacing_mm, imperial),
+                    fixed(stretch.utilization, places::UTILIZATION),
+                ],
+                bold: stretch.spacing_mm.is_none(),
+                note: None,
+            }
+        })
+        .collect();
+    if rows.is_empty() {
+        let [lines, kind, long] = head(true);
+        rows.push(Row::new(vec![
+            lines,
+            kind,
+            long,
+            String::new(),
+            String::new(),
+            "(no segments)".to_string(),
+        ]));
+    }
+    rows
 }
 
 /// Lays out the line table pages.
@@ -26,72 +80,26 @@ pub(crate) fn line_table(schedule: &Schedule, frame: &Frame) -> Vec<Canvas> {
     flow.paragraph(
         &format!(
             "Each {member} line from its low end along the slope: the stretches by zone and support role, and the \
-             largest spacing of the nails along that stretch. Position: the line's plan coordinate."
+             largest spacing of the nails along that stretch. Lines nailed alike (same kind, and the same \
+             stretches with the same zone, support and spacing) share one row group; its utilization is the highest of its \
+             lines on that stretch. Each line's position and stretches are in rafter-lines.csv."
         ),
         8.5,
     );
     let columns = [
-        Column::new("line", 0.07, Align::Right),
-        Column::new(&format!("position {unit}"), 0.12, Align::Right),
-        Column::new(&format!("length {unit}"), 0.12, Align::Right),
-        Column::new(&format!("from {unit}"), 0.11, Align::Right),
-        Column::new(&format!("to {unit}"), 0.11, Align::Right),
-        Column::new("zone", 0.16, Align::Left),
+        Column::new("lines", 0.20, Align::Left),
+        Column::new("kind", 0.09, Align::Left),
+        Column::new(&format!("length {unit}"), 0.09, Align::Right),
+        Column::new(&format!("from {unit}"), 0.09, Align::Right),
+        Column::new(&format!("to {unit}"), 0.09, Align::Right),
+        Column::new("zone", 0.15, Align::Left),
         Column::new("support", 0.11, Align::Left),
-        Column::new("spacing", 0.12, Align::Right),
+        Column::new("spacing", 0.10, Align::Right),
         Column::new("util.", 0.08, Align::Right),
     ];
-    let groups: Vec<Vec<Row>> = schedule
-        .lines
+    let groups: Vec<Vec<Row>> = group_lines(&schedule.lines)
         .iter()
-        .map(|line| {
-            let mut rows: Vec<Row> = line
-                .segments
-                .iter()
-                .enumerate()
-                .map(|(i, segment)| {
-                    let first = i == 0;
-                    Row {
-                        cells: vec![
-                            if first {
-                                line.number.to_string()
-                            } else {
-                                String::new()
-                            },
-                            if first {
-                                length(line.position_m, imperial)
-                            } else {
-                                String::new()
-                            },
-                            if first {
-                                length(line.length_m, imperial)
-                            } else {
-                                String::new()
-                            },
-                            length(segment.from_m, imperial),
-                            length(segment.to_m, imperial),
-                            segment.zone_label.to_string(),
-                            segment.support_role.to_string(),
-                            spacing_label(segment.spacing_mm, imperial),
-                            fixed(segment.utilization, places::UTILIZATION),
-                        ],
-                        bold: segment.spacing_mm.is_none(),
-                        note: None,
-                    }
-                })
-                .collect();
-            if rows.is_empty() {
-                rows.push(Row::new(vec![
-                    line.number.to_string(),
-                    length(line.position_m, imperial),
-                    length(line.length_m, imperial),
-                    String::new(),
-                    String::new(),
-                    "(no segments)".to_string(),
-                ]));
-            }
-            rows
-        })
+        .map(|group| group_rows(group, imperial))
         .collect();
     if groups.is_empty() {
         flow.paragraph("The schedule lists no framing lines.", 9.0);

@@ -223,22 +223,39 @@ fn page_one_renders_with_several_grey_zone_fills() {
 }
 
 #[test]
-fn more_rafter_lines_make_more_pages() {
+fn lines_nailed_alike_share_a_row_group_and_lines_nailed_apart_flow_onto_more_pages() {
     let few = write_pdf(
         "lines-10",
         &render(&sample_schedule_with_lines(10, Units::Si)),
     );
-    let many = write_pdf(
+    let alike = write_pdf(
         "lines-200",
         &render(&sample_schedule_with_lines(200, Units::Si)),
     );
-    let (few_pages, many_pages) = (page_count(&few), page_count(&many));
+    // The sample's 200 lines have a handful of patterns: grouped, they take no more pages than 10 lines.
+    let (few_pages, alike_pages) = (page_count(&few), page_count(&alike));
     assert!(
-        many_pages >= few_pages + 10,
-        "10 lines: {few_pages} pages, 200 lines: {many_pages}"
+        alike_pages <= few_pages + 1,
+        "10 lines: {few_pages} pages, 200 alike: {alike_pages}"
     );
-    let last = page_text(&many, many_pages, many_pages);
-    assert!(last.contains(&format!("page {many_pages} of {many_pages}")));
+    let table = page_text(&alike, 3, alike_pages);
+    assert!(table.contains("194-196"), "runs of line numbers: {table}");
+
+    // Every line's first stretch ends a millimetre further along: 200 patterns, one row group each.
+    let mut apart = sample_schedule_with_lines(200, Units::Si);
+    for (index, line) in apart.lines.iter_mut().enumerate() {
+        let shift_m = 0.001 * index as f64;
+        line.segments[0].to_m += shift_m;
+        line.segments[1].from_m += shift_m;
+    }
+    let apart = write_pdf("lines-200-apart", &render(&apart));
+    let apart_pages = page_count(&apart);
+    assert!(
+        apart_pages >= few_pages + 10,
+        "10 lines: {few_pages} pages, 200 apart: {apart_pages}"
+    );
+    let last = page_text(&apart, apart_pages, apart_pages);
+    assert!(last.contains(&format!("page {apart_pages} of {apart_pages}")));
     assert!(last.contains("200"), "the last line is on the last page");
 }
 
