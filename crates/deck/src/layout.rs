@@ -6,6 +6,7 @@
 //! nothing of pressures.
 
 mod blocking;
+mod changes;
 mod courses;
 mod framing;
 mod geometry;
@@ -17,7 +18,9 @@ use serde::{Deserialize, Serialize};
 use crate::error::{check_positive, check_range, SpacingError};
 pub use blocking::EdgeBlocking;
 use blocking::{blocking_lines, BlockingPlane};
-use courses::{bearing_at, course_pieces, CourseLayer, StripCache};
+pub use changes::{si_words, LayoutChange, LengthWords};
+pub use courses::SLIVER_M;
+use courses::{bearing_at, course_bands, course_pieces, CourseLayer, StripCache};
 use deckhold_core::limits;
 use framing::framing_lines;
 use geometry::{validate_polygon, MIN_PIECE_M};
@@ -77,6 +80,23 @@ pub struct PanelInput {
     pub min_piece_mm: f64,
     /// Blocking under the panel edges, where the user asks for it.
     pub blocking: EdgeBlocking,
+    /// The eave corner each plane's courses start from.
+    pub start: StartCorner,
+    /// Width of the first course at the eave, mm (a ripped first course; the panel width: a full one).
+    pub first_course_width_mm: f64,
+    /// Length of the first panel of each unstaggered course, mm (the panel length: a full panel).
+    pub first_panel_length_mm: f64,
+}
+
+/// The eave corner each plane's panel laying starts from, across the framing.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum StartCorner {
+    /// At the plane's smaller plan coordinate across the framing (x for rafters running along y).
+    #[default]
+    SmallerCoordinate,
+    /// At the plane's larger plan coordinate across the framing.
+    LargerCoordinate,
 }
 
 /// Offset of the panel end joints in alternate courses.
@@ -164,8 +184,11 @@ pub struct Course {
     pub to_m: f64,
     /// Plan positions across the lines of the panel ends in this course, both deck edges included, m.
     pub joints_m: Vec<f64>,
-    /// How the course was shifted or trimmed to avoid a piece narrower than the minimum.
+    /// How the course was shifted or trimmed (minimum piece, slivers at hip and valley cuts, a
+    /// narrow top course), in SI words starting "course N: " (the same as `changes`).
     pub adjustments: Vec<String>,
+    /// The same changes as data, for writers in other units.
+    pub changes: Vec<LayoutChange>,
 }
 
 /// Every member the deck lands on, for drawings and checks: the numbered lines and the hip and
@@ -210,11 +233,16 @@ pub struct DeckPiece {
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct LayingStart {
     pub plane_index: usize,
-    /// Plan point of the corner the first panel goes in: the low (eave) edge at the smaller
-    /// coordinate across the framing, m.
+    /// Plan point of the corner the first panel goes in: the low (eave) edge at the start corner's
+    /// end across the framing, m.
     pub corner_m: [f64; 2],
-    /// Distance of the first course's low edge from the eave edge, up the slope, m (0: flush).
+    /// Distance of the first course's low edge from the eave edge, up the slope, m (always 0: the
+    /// first course is laid flush with the eave edge and ripped to `first_course_width_m`).
     pub first_course_offset_m: f64,
+    /// Width of the first course up the slope, m (a full panel width unless ripped).
+    pub first_course_width_m: f64,
+    /// Length of the first panel of the first course across the framing, m (a full panel unless cut).
+    pub first_panel_length_m: f64,
 }
 
 /// The laid-out deck.
@@ -251,11 +279,11 @@ pub fn layout_deck(
     for (plane_index, plane) in planes.iter().enumerate() {
         let frame = plane_frame(plane_index, plane, framing)?;
         let grid = grid_lines(plane, &frame, framing)?;
-        let width_m = panel.width_mm / 1000.0;
-        let slope_length_m = frame.slope_length_m();
-        // A remainder under 1 mm is measuring noise, not a course: the last course takes it (panels
-        // are laid with gaps of a few millimetres anyway).
-        let course_count = ((slope_length_m - MIN_PIECE_M) / width_m).ceil().max(1.0) as usize;
+        let bands = course_bands(
+            frame.slope_length_m(),
+            panel.width_mm / 1000.0,
+            panel.first_course_width_mm / 1000.0,
+        );
         let layer = CourseLayer {
             plane_index,
             frame: &frame,
@@ -264,28 +292,31 @@ pub fn layout_deck(
             framing_spacing_mm: framing.spacing_mm,
         };
         let first = layer.joints(0, None)?;
-        let first_joint_m = first.joints_m.get(1).copied();
-        let mut plane_courses = Vec::with_capacity(course_count);
-        for index in 0..course_count {
-            let laid = if index == 0 {
+        let mut plane_courses = Vec::with_capacity(bands.len());
+        for (index, band) in bands.iter().enumerate() {
+            let mut laid = if index == 0 {
                 first.clone()
             } else {
-                layer.joints(index, first_joint_m)?
+                layer.joints(index, first.first_joint_m)?
             };
+            let top_m = band[1] - band[0];
+            if index > 0 && index + 1 == bands.len() && top_m * 1000.0 < panel.min_piece_mm - 1e-3 {
+                laid.changes
+                    .push(LayoutChange::NarrowTopCourse { width_m: top_m });
+            }
             plane_courses.push(Course {
                 plane_index,
                 index,
-                from_m: index as f64 * width_m,
-                to_m: if index + 1 == course_count {
-                    slope_length_m
-                } else {
-                    (index + 1) as f64 * width_m
-                },
+                from_m: band[0],
+                to_m: band[1],
                 joints_m: laid.joints_m,
-                adjustments: laid.adjustments,
+                adjustments: Vec::new(),
+                changes: laid.changes,
             });
         }
         let first_number = number + 1;
+        // Slivers at hip and valley cuts, by course, said once each.
+        let mut notes: Vec<(usize, LayoutChange)> = Vec::new();
         for line in 0..grid.len() {
             number += 1;
             let context = PlaneContext {
@@ -303,14 +334,35 @@ pub fn layout_deck(
                 &zone_shapes,
                 zone_rank,
                 &mut cache,
+                &mut notes,
             )?);
+        }
+        for (course_index, sliver) in notes {
+            if let Some(course) = plane_courses.get_mut(course_index) {
+                if !course.changes.contains(&sliver) {
+                    course.changes.push(sliver);
+                }
+            }
+        }
+        for course in &mut plane_courses {
+            course.adjustments = course
+                .changes
+                .iter()
+                .map(|change| si_words(change, course.index, panel.min_piece_mm / 1000.0))
+                .collect();
         }
         pieces.extend(course_pieces(&frame, &grid, first_number, &plane_courses));
         let low_along_m = frame.along_at_m(0.0);
+        let corner_cross_m = match panel.start {
+            StartCorner::SmallerCoordinate => frame.cross_range_m[0],
+            StartCorner::LargerCoordinate => frame.cross_range_m[1],
+        };
         laying_starts.push(LayingStart {
             plane_index,
-            corner_m: frame.plan_point(frame.cross_range_m[0], low_along_m),
+            corner_m: frame.plan_point(corner_cross_m, low_along_m),
             first_course_offset_m: 0.0,
+            first_course_width_m: bands[0][1] - bands[0][0],
+            first_panel_length_m: panel.first_panel_length_mm / 1000.0,
         });
         courses.extend(plane_courses);
         framed.push((frame, grid));
@@ -361,6 +413,7 @@ fn lay_out_line(
     zones: &ZoneShapes<'_>,
     zone_rank: &[u32],
     cache: &mut StripCache,
+    notes: &mut Vec<(usize, LayoutChange)>,
 ) -> Result<LayoutLine, SpacingError> {
     let frame = context.frame;
     let grid_line = &context.grid[line];
@@ -408,7 +461,7 @@ fn lay_out_line(
                 continue;
             }
             let along_m = frame.along_at_m(0.5 * (from + to));
-            let (support_role, strips) = bearing_at(
+            let bearing = bearing_at(
                 &context.plane.polygon_m,
                 frame,
                 context.grid,
@@ -417,12 +470,19 @@ fn lay_out_line(
                 along_m,
                 cache,
             )?;
+            for width_m in &bearing.slivers_m {
+                let sliver = LayoutChange::Sliver {
+                    line: number,
+                    width_m: *width_m,
+                };
+                notes.push((course.index, sliver));
+            }
             bearings.push(Bearing {
                 course_index: course.index,
                 from_m: from - start_m,
                 to_m: to - start_m,
-                support_role,
-                strips,
+                support_role: bearing.role,
+                strips: bearing.strips,
             });
         }
     }
@@ -521,6 +581,18 @@ fn validate(
         0.0,
         panel.length_mm,
     )?;
+    check_range(
+        || "panel.first_course_width_mm".to_string(),
+        panel.first_course_width_mm,
+        50.0,
+        panel.width_mm,
+    )?;
+    check_range(
+        || "panel.first_panel_length_mm".to_string(),
+        panel.first_panel_length_mm,
+        50.0,
+        panel.length_mm,
+    )?;
     if let Stagger::OffsetMm(offset_mm) = panel.stagger {
         check_positive(|| "panel.stagger.offset_mm".to_string(), offset_mm)?;
         if offset_mm >= panel.length_mm {
@@ -595,6 +667,9 @@ mod tests {
             stagger,
             min_piece_mm: 600.0,
             blocking: EdgeBlocking::None,
+            start: StartCorner::SmallerCoordinate,
+            first_course_width_mm: 1220.0,
+            first_panel_length_mm: 2440.0,
         }
     }
 

@@ -695,6 +695,9 @@ mod tests {
             stagger: Stagger::None,
             min_piece_mm: 600.0,
             blocking: crate::layout::EdgeBlocking::None,
+            start: crate::layout::StartCorner::SmallerCoordinate,
+            first_course_width_mm: 1220.0,
+            first_panel_length_mm: 2440.0,
         };
         (planes, zones, framing, panel)
     }

@@ -185,6 +185,9 @@ impl DeckGeometry {
             stagger,
             min_piece_mm: project.deck.min_piece_mm,
             blocking: project.deck.blocking,
+            start: project.deck.start_corner,
+            first_course_width_mm: project.deck.first_course_width_mm,
+            first_panel_length_mm: project.deck.first_panel_length_mm,
         };
         Ok(Self {
             planes,

@@ -22,6 +22,7 @@ pub use demo::DEMO_PROJECT_JSON;
 pub use error::{JobError, ProjectError};
 pub use parse::{parse_project, project_from_value};
 pub use project::*;
+pub mod adjustments;
 pub mod check;
 pub mod job;
 pub mod reach;

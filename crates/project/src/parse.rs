@@ -5,7 +5,7 @@ use crate::basis::{Basis, BasisStandards};
 use crate::error::ProjectError;
 use crate::project::{
     Deck, EdgeBlocking, ExistingPattern, Framing, LinesAlong, MemberRole, PatternSpacing, Project,
-    StaggerChoice,
+    StaggerChoice, StartCorner,
 };
 use crate::reader::{as_finite_number, ObjectReader};
 use crate::units::Quantity;
@@ -600,6 +600,29 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
             ],
         )?
         .unwrap_or_default();
+    let start_corner = block
+        .choice(
+            "start_corner",
+            &[
+                ("smaller-coordinate", StartCorner::SmallerCoordinate),
+                ("larger-coordinate", StartCorner::LargerCoordinate),
+            ],
+        )?
+        .unwrap_or_default();
+    let first_course_width_mm = block
+        .quantity(
+            "first_course_width",
+            Quantity::LengthMm,
+            &first_cut_limit("deck.first_course_width_mm", panel_width_mm),
+        )?
+        .unwrap_or(panel_width_mm);
+    let first_panel_length_mm = block
+        .quantity(
+            "first_panel_length",
+            Quantity::LengthMm,
+            &first_cut_limit("deck.first_panel_length_mm", panel_length_mm),
+        )?
+        .unwrap_or(panel_length_mm);
     let wet_service = block
         .choice("service", &[("dry", false), ("wet", true)])?
         .unwrap_or(false);
@@ -616,6 +639,9 @@ fn read_deck(block: &ObjectReader, basis: Basis) -> Result<Deck, ProjectError> {
         stagger,
         min_piece_mm,
         blocking,
+        start_corner,
+        first_course_width_mm,
+        first_panel_length_mm,
         wet_service,
         treated,
         between_mm,
@@ -721,6 +747,18 @@ fn min_piece_limit(panel_length_mm: f64) -> Limit {
         max: panel_length_mm,
         unit: "mm",
         reason: "a piece cannot be longer than the panel it is cut from",
+    }
+}
+
+/// A first course or first panel cut from a panel: at least 50 mm (a narrower strip cannot be laid
+/// and nailed; common practice, no source), at most the whole panel.
+fn first_cut_limit(key: &'static str, panel_mm: f64) -> Limit {
+    Limit {
+        key,
+        min: 50.0,
+        max: panel_mm,
+        unit: "mm",
+        reason: "cut from one panel: at least 50 mm, at most the whole panel",
     }
 }
 

@@ -2,7 +2,7 @@
 
 use crate::basis::Basis;
 use deckhold_core::ZoneKind;
-pub use deckhold_deck::layout::EdgeBlocking;
+pub use deckhold_deck::layout::{EdgeBlocking, StartCorner};
 use deckhold_fasten::{FastenError, Nail};
 use deckhold_model::{ProjectInfo, Units};
 use deckhold_wind::WindInput;
@@ -70,6 +70,13 @@ pub struct Deck {
     pub min_piece_mm: f64,
     /// Blocking under the panel edges (`deck.blocking`).
     pub blocking: EdgeBlocking,
+    /// The eave corner panel laying starts from (`deck.start_corner`).
+    pub start_corner: StartCorner,
+    /// Width of the first course, mm (`deck.first_course_width_mm`; the panel width unless ripped).
+    pub first_course_width_mm: f64,
+    /// Length of the first panel of each course that starts with a whole panel, mm
+    /// (`deck.first_panel_length_mm`; the panel length unless cut).
+    pub first_panel_length_mm: f64,
     pub wet_service: bool,
     pub treated: bool,
     /// Anything between deck and framing (e.g. an existing board deck in a re-roof), mm.

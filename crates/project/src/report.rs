@@ -4,7 +4,7 @@
 
 use crate::basis::BasisStandards;
 use crate::job::{Job, NailOutcome};
-use crate::project::{EdgeBlocking, Project, StaggerChoice};
+use crate::project::{EdgeBlocking, Project, StaggerChoice, StartCorner};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
@@ -83,6 +83,11 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     if project.deck.blocking == EdgeBlocking::CourseJoints {
         warnings.push(BLOCKING_MODEL.to_string());
     }
+    warnings.extend(crate::adjustments::layout_adjustments(
+        &job.layout.courses,
+        project.deck.min_piece_mm / 1000.0,
+        project.units,
+    ));
 
     let mut provenance = vec![format!("Nail {}: {}", nail.id, nail.provenance())];
     provenance.extend(
@@ -154,13 +159,13 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     }
 }
 
-/// Length (along x) and width (along y) of the wall line's bounding box, m.
 /// What the output says whenever blocking is asked for: how the model treats it.
 pub const BLOCKING_MODEL: &str = "Blocking under the course joints (deck.blocking): two rows of nails, \
 one for each panel edge, at the panel-edge spacing of the zone. The panels are still solved as strips \
 spanning across the framing, so the blocking's relief to the rafters is ignored (conservative for the \
 rafter nails) and the blocking nails are not sized by that model (utilization shown 0).";
 
+/// Length (along x) and width (along y) of the wall line's bounding box, m.
 fn plan_size_m(footprint: &Footprint) -> (f64, f64) {
     match footprint {
         Footprint::Rectangle { length_m, width_m } => (*length_m, *width_m),
@@ -190,16 +195,26 @@ fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
             format!("{value_m:.2} m")
         }
     };
-    let offset = if start.first_course_offset_m == 0.0 {
-        "first course flush with the eave edge".to_string()
-    } else {
-        format!(
-            "first course {} up from the eave edge",
-            length(start.first_course_offset_m)
-        )
+    let deck = &project.deck;
+    let mut offset = "first course flush with the eave edge".to_string();
+    if deck.first_course_width_mm < deck.panel_width_mm - 1e-6 {
+        offset.push_str(&format!(
+            ", ripped to {} wide",
+            length(start.first_course_width_m)
+        ));
+    }
+    if deck.first_panel_length_mm < deck.panel_length_mm - 1e-6 {
+        offset.push_str(&format!(
+            "; first panel cut to {}",
+            length(start.first_panel_length_m)
+        ));
+    }
+    let end = match deck.start_corner {
+        StartCorner::SmallerCoordinate => "smaller",
+        StartCorner::LargerCoordinate => "larger",
     };
     format!(
-        "each plane from its eave at the end with the smaller coordinate (first plane: x {}, y {}); {offset}; panel ends only on framing; no cut piece under {}",
+        "each plane from its eave at the end with the {end} coordinate (first plane: x {}, y {}); {offset}; panel ends only on framing; no cut piece under {}",
         length(start.corner_m[0]),
         length(start.corner_m[1]),
         if us {

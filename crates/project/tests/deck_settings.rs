@@ -3,7 +3,7 @@
 
 use deckhold_deck::layout::LineKind;
 use deckhold_project::job::deck_layout;
-use deckhold_project::{project_from_value, EdgeBlocking};
+use deckhold_project::{project_from_value, EdgeBlocking, StartCorner};
 use serde_json::{json, Value};
 use std::path::PathBuf;
 
@@ -48,6 +48,48 @@ fn nonsense_blocking_is_refused_naming_the_key() {
         assert!(
             error.to_string().starts_with("deck.blocking"),
             "{nonsense}: {error}"
+        );
+    }
+}
+
+#[test]
+fn the_laying_start_is_read_in_both_unit_systems() {
+    let mut ca = fixture("demo-ca-gable.json");
+    ca["deck"]["start_corner"] = json!("larger-coordinate");
+    ca["deck"]["first_course_width_mm"] = json!(900);
+    ca["deck"]["first_panel_length_mm"] = json!(1830);
+    let read = project_from_value(&ca).expect("valid");
+    assert_eq!(read.deck.start_corner, StartCorner::LargerCoordinate);
+    assert_eq!(read.deck.first_course_width_mm, 900.0);
+    assert_eq!(read.deck.first_panel_length_mm, 1830.0);
+    let mut us = fixture("template-us.json");
+    us["deck"]["first_course_width_in"] = json!(24);
+    us["deck"]["first_panel_length_in"] = json!(72);
+    let read = project_from_value(&us).expect("valid");
+    assert_eq!(read.deck.start_corner, StartCorner::SmallerCoordinate);
+    assert!((read.deck.first_course_width_mm - 609.6).abs() < 1e-9);
+    assert!((read.deck.first_panel_length_mm - 1828.8).abs() < 1e-9);
+    // Defaults: whole panels.
+    let read = project_from_value(&fixture("template-us.json")).expect("valid");
+    assert_eq!(read.deck.first_course_width_mm, read.deck.panel_width_mm);
+    assert_eq!(read.deck.first_panel_length_mm, read.deck.panel_length_mm);
+}
+
+#[test]
+fn a_nonsense_laying_start_is_refused_naming_the_key_written() {
+    for (key, value) in [
+        ("start_corner", json!("north")),
+        ("first_course_width_mm", json!(2000)),
+        ("first_course_width_mm", json!(10)),
+        ("first_panel_length_mm", json!(3000)),
+        ("first_panel_length_in", json!(-1)),
+    ] {
+        let mut project = fixture("demo-ca-gable.json");
+        project["deck"][key] = value.clone();
+        let error = project_from_value(&project).expect_err("refused");
+        assert!(
+            error.to_string().starts_with(&format!("deck.{key}")),
+            "{key} = {value}: {error}"
         );
     }
 }

@@ -65,7 +65,11 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
     if args.json {
         outln!(
             "{}",
-            serde_json::to_string_pretty(&summary_json(&schedule, &job.layout))?
+            serde_json::to_string_pretty(&summary_json(
+                &schedule,
+                &job.layout,
+                project.deck.min_piece_mm
+            ))?
         );
         for path in &written {
             errln!("wrote {}", path.display());
@@ -90,7 +94,7 @@ pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
 
 /// The machine-readable summary: the per-zone schedule and totals, and the framing and deck layout
 /// (every member with its kind, every piece with the lines under its ends) so that others can check it.
-fn summary_json(schedule: &Schedule, layout: &DeckLayout) -> serde_json::Value {
+fn summary_json(schedule: &Schedule, layout: &DeckLayout, min_piece_mm: f64) -> serde_json::Value {
     let zones: Vec<serde_json::Value> = schedule
         .zones
         .iter()
@@ -138,11 +142,12 @@ fn summary_json(schedule: &Schedule, layout: &DeckLayout) -> serde_json::Value {
         "deck": {
             "laying_starts": layout.laying_starts,
             "pieces": layout.pieces,
-            "adjustments": layout
-                .courses
-                .iter()
-                .flat_map(|course| &course.adjustments)
-                .collect::<Vec<_>>(),
+            // In the reader's units, one per change and course ("P1 course 2: ...").
+            "adjustments": deckhold_project::adjustments::each_adjustment(
+                &layout.courses,
+                min_piece_mm / 1000.0,
+                schedule.basis.units,
+            ),
         },
     })
 }

@@ -146,6 +146,9 @@ mod tests {
             stagger: Stagger::Half,
             min_piece_mm: 600.0,
             blocking,
+            start: crate::layout::StartCorner::SmallerCoordinate,
+            first_course_width_mm: 1220.0,
+            first_panel_length_mm: 2440.0,
         }
     }
 

@@ -8,9 +8,10 @@
 
 use std::collections::HashMap;
 
+use super::changes::LayoutChange;
 use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
-use super::{Course, DeckPiece, PanelInput, PanelStrip, Stagger, SupportRole};
+use super::{Course, DeckPiece, PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
 use crate::error::SpacingError;
 
@@ -59,7 +60,27 @@ impl StripCache {
 pub(crate) struct LaidCourse {
     /// Plan positions across the lines, both deck edges included, increasing.
     pub joints_m: Vec<f64>,
-    pub adjustments: Vec<String>,
+    pub changes: Vec<LayoutChange>,
+    /// The first end joint in laying order, in laying coordinates (see [`CourseLayer::joints`]).
+    pub first_joint_m: Option<f64>,
+}
+
+/// The course bands of a plane up the slope from the eave, m: the first course `first_width_m` wide
+/// (a ripped first course), the others `width_m`; a remainder under 1 mm is measuring noise, not a
+/// course, and the last course takes it (panels are laid with gaps of a few millimetres anyway).
+pub(crate) fn course_bands(slope_length_m: f64, width_m: f64, first_width_m: f64) -> Vec<[f64; 2]> {
+    let mut bands = Vec::new();
+    let mut from = 0.0;
+    let mut to = first_width_m.min(width_m);
+    loop {
+        if to >= slope_length_m - MIN_PIECE_M {
+            bands.push([from, slope_length_m]);
+            return bands;
+        }
+        bands.push([from, to]);
+        from = to;
+        to = from + width_m;
+    }
 }
 
 /// What the courses of one plane are laid on.
@@ -76,30 +97,52 @@ impl CourseLayer<'_> {
         length_mm / 1000.0 / self.frame.cross_factor
     }
 
-    /// The panel ends of course `course_index`. Every course starts at the deck edge at the smaller
-    /// cross coordinate; each panel ends on the farthest line it reaches. A staggered course has its
-    /// first end joint the stagger away from the first end joint of course 0 (`first_joint_m`), on
+    /// Laying coordinates: plan positions across the lines measured from the start corner, so the
+    /// same rules lay from either end (negated when laying starts at the larger coordinate).
+    fn laying(&self, plan_m: f64) -> f64 {
+        match self.panel.start {
+            StartCorner::SmallerCoordinate => plan_m,
+            StartCorner::LargerCoordinate => -plan_m,
+        }
+    }
+
+    /// The panel ends of course `course_index`. Every course starts at the deck edge at the start
+    /// corner; each panel ends on the farthest line it reaches (the first panel of an unstaggered
+    /// course reaches only the first panel length). A staggered course has its first end joint the
+    /// stagger away from the first end joint of course 0 (`first_joint_m`, laying coordinates), on
     /// the nearest line, so the joints of alternate courses are the stagger apart whatever the rake
     /// overhang. No piece is narrower than the minimum where a line allows it: the joint before a
-    /// narrow last piece moves back a line, a narrow first piece moves its joint on a line.
+    /// narrow last piece moves back a line, a narrow first piece moves its joint on a line; where no
+    /// line allows it, the narrow piece is laid and the adjustment says so.
     pub(crate) fn joints(
         &self,
         course_index: usize,
         first_joint_m: Option<f64>,
     ) -> Result<LaidCourse, SpacingError> {
-        let [min, max] = self.frame.cross_range_m;
+        let [a, b] = self.frame.cross_range_m.map(|p| self.laying(p));
+        let (min, max) = (a.min(b), a.max(b));
         let panel_m = self.to_plan(self.panel.length_mm);
+        let first_panel_m =
+            self.to_plan(self.panel.first_panel_length_mm.min(self.panel.length_mm));
         let min_piece_m = self.to_plan(self.panel.min_piece_mm);
         let stagger_mm = match (course_index % 2, &self.panel.stagger) {
             (0, _) | (_, Stagger::None) => 0.0,
             (_, Stagger::Half) => self.panel.length_mm / 2.0,
             (_, Stagger::OffsetMm(offset_mm)) => *offset_mm,
         };
-        let positions: Vec<f64> = self.grid.iter().map(|g| g.position_m).collect();
-        let mut adjustments = Vec::new();
+        let mut positions: Vec<f64> = self
+            .grid
+            .iter()
+            .map(|g| self.laying(g.position_m))
+            .collect();
+        positions.sort_by(f64::total_cmp);
+        let shown = |p: f64| self.laying(p);
+        let mut changes = Vec::new();
         let mut joints = vec![min];
         let mut previous = min;
+        let mut reach_m = first_panel_m;
         if let (true, Some(first)) = (stagger_mm > 0.0, first_joint_m) {
+            reach_m = panel_m;
             let stagger_m = self.to_plan(stagger_mm);
             let target = if first - stagger_m >= min + min_piece_m - SAME_POSITION_M {
                 first - stagger_m
@@ -123,23 +166,20 @@ impl CourseLayer<'_> {
                 .min_by(|a, b| (a - target).abs().total_cmp(&(b - target).abs()));
             if let Some(position) = wide_enough {
                 if nearest.is_some_and(|n| (n - position).abs() > SAME_POSITION_M) {
-                    adjustments.push(format!(
-                        "course {}: first end joint moved to the line at {position:.3} m so the \
-                         first piece is at least {:.0} mm",
-                        course_index + 1,
-                        self.panel.min_piece_mm
-                    ));
+                    changes.push(LayoutChange::FirstJointMoved {
+                        to_m: shown(position),
+                    });
                 }
                 joints.push(position);
                 previous = position;
             }
         }
         while previous < max - SAME_POSITION_M {
-            if previous + panel_m >= max - SAME_POSITION_M {
+            if previous + reach_m >= max - SAME_POSITION_M {
                 joints.push(max);
                 break;
             }
-            let reach = previous + panel_m + SAME_POSITION_M;
+            let reach = previous + reach_m + SAME_POSITION_M;
             // The farthest line the panel reaches (positions increase: bisect, not scan).
             let within = positions.partition_point(|p| *p <= reach);
             let next = within
@@ -150,26 +190,40 @@ impl CourseLayer<'_> {
                     plane_index: self.plane_index,
                     length_mm: self.panel.length_mm,
                     spacing_mm: self.framing_spacing_mm,
-                    from_m: previous,
+                    from_m: shown(previous),
                 })?;
             joints.push(next);
             previous = next;
+            reach_m = panel_m;
         }
-        self.widen_last_piece(course_index, &positions, &mut joints, &mut adjustments);
+        self.widen_last_piece(&positions, &mut joints, &mut changes);
+        for pair in joints.windows(2) {
+            let piece_mm = (pair[1] - pair[0]) * self.frame.cross_factor * 1000.0;
+            if piece_mm < self.panel.min_piece_mm - 1e-3 {
+                changes.push(LayoutChange::NarrowPiece {
+                    from_m: shown(pair[0]).min(shown(pair[1])),
+                    to_m: shown(pair[0]).max(shown(pair[1])),
+                    length_m: piece_mm / 1000.0,
+                });
+            }
+        }
+        let first_joint_m = joints.get(1).copied();
+        let mut joints_m: Vec<f64> = joints.into_iter().map(shown).collect();
+        joints_m.sort_by(f64::total_cmp);
         Ok(LaidCourse {
-            joints_m: joints,
-            adjustments,
+            joints_m,
+            changes,
+            first_joint_m,
         })
     }
 
     /// Moves the joint before a narrow last piece back to an earlier line, if one leaves both the
-    /// last piece and the one before it at least the minimum.
+    /// last piece and the one before it at least the minimum (laying coordinates).
     fn widen_last_piece(
         &self,
-        course_index: usize,
         positions: &[f64],
         joints: &mut [f64],
-        adjustments: &mut Vec<String>,
+        changes: &mut Vec<LayoutChange>,
     ) {
         let count = joints.len();
         if count < 3 {
@@ -185,12 +239,9 @@ impl CourseLayer<'_> {
             max - p >= min_piece_m - SAME_POSITION_M && p - before >= min_piece_m - SAME_POSITION_M
         });
         if let Some(position) = moved {
-            adjustments.push(format!(
-                "course {}: last end joint moved back to the line at {position:.3} m so the last \
-                 piece is at least {:.0} mm",
-                course_index + 1,
-                self.panel.min_piece_mm
-            ));
+            changes.push(LayoutChange::LastJointMoved {
+                to_m: self.laying(position),
+            });
             joints[count - 2] = position;
         }
     }
@@ -252,7 +303,16 @@ pub(crate) fn course_pieces(
 /// Taken as a span, a 25 mm bay next to a 610 mm one pries the line to three times its share
 /// (continuous-beam solution), which the two-way panel near the cut does not do. Common practice,
 /// no source.
-pub(crate) const SLIVER_M: f64 = 0.1;
+pub const SLIVER_M: f64 = 0.1;
+
+/// What bears on a line in one course: its role, the panel strips, and the slivers at a hip or valley
+/// cut that the line carries as short cantilevers (their widths on the slope, m).
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct LineBearing {
+    pub role: SupportRole,
+    pub strips: Vec<PanelStrip>,
+    pub slivers_m: Vec<f64>,
+}
 
 /// One side of a line inside one panel: the panel's extent across the lines at this course.
 struct PanelSide {
@@ -275,7 +335,7 @@ pub(crate) fn bearing_at(
     line: usize,
     along_m: f64,
     cache: &mut StripCache,
-) -> Result<(SupportRole, Vec<PanelStrip>), SpacingError> {
+) -> Result<LineBearing, SpacingError> {
     let position = grid[line].position_m;
     let near = |a: f64, b: f64| (a - b).abs() <= SAME_POSITION_M;
     let stretches = section(polygon_m, frame.run.other(), along_m);
@@ -345,6 +405,7 @@ pub(crate) fn bearing_at(
     };
 
     let mut strips = Vec::with_capacity(sides.len());
+    let mut slivers_m = Vec::new();
     for side in sides {
         let mut supports: Vec<f64> = grid_between(
             grid,
@@ -359,24 +420,26 @@ pub(crate) fn bearing_at(
         let mut overhang_end_m = 0.0;
         let first = supports.first().copied().unwrap_or(position);
         if first - side.from_m > MIN_PIECE_M {
-            if deck.lo_oblique
-                && near(side.from_m, deck.lo)
-                && (first - side.from_m) * frame.cross_factor >= SLIVER_M
-            {
+            let at_cut = deck.lo_oblique && near(side.from_m, deck.lo);
+            if at_cut && (first - side.from_m) * frame.cross_factor >= SLIVER_M {
                 supports.insert(0, side.from_m);
             } else {
                 overhang_start_m = first - side.from_m;
+                if at_cut {
+                    slivers_m.push(overhang_start_m * frame.cross_factor);
+                }
             }
         }
         let last = supports.last().copied().unwrap_or(position);
         if side.to_m - last > MIN_PIECE_M {
-            if deck.hi_oblique
-                && near(side.to_m, deck.hi)
-                && (side.to_m - last) * frame.cross_factor >= SLIVER_M
-            {
+            let at_cut = deck.hi_oblique && near(side.to_m, deck.hi);
+            if at_cut && (side.to_m - last) * frame.cross_factor >= SLIVER_M {
                 supports.push(side.to_m);
             } else {
                 overhang_end_m = side.to_m - last;
+                if at_cut {
+                    slivers_m.push(overhang_end_m * frame.cross_factor);
+                }
             }
         }
         let no_support = || {
@@ -411,7 +474,11 @@ pub(crate) fn bearing_at(
             reaction_width_mm,
         });
     }
-    Ok((role, strips))
+    Ok(LineBearing {
+        role,
+        strips,
+        slivers_m,
+    })
 }
 
 #[cfg(test)]
