@@ -4,7 +4,8 @@
 //! reading the design basis against the project file would see a value the user never wrote. So the rows
 //! come from the file's text: numbers keep their own digits, strings are shown without their quotes, and
 //! a list of plain values stays on one line (`[8d-common, 10d-common]`, `[0, 0]`). The `project` block
-//! (names and date) is shown in its own table and left out here.
+//! (names and date) is shown in its own table and left out here. One spelling is changed: a negative
+//! zero (`-0`, `-0.0`) is shown without its sign, as every output shows zero.
 //!
 //! A project built from a JSON value rather than a file (a batch row) has no text: its rows come from
 //! the value, with serde_json's spelling of the numbers.
@@ -48,7 +49,17 @@ fn is_plain(value: &Value) -> bool {
 fn plain_text(value: &Value) -> String {
     match value {
         Value::String(text) => text.clone(),
-        other => other.to_string(),
+        other => unsigned_zero(other.to_string()),
+    }
+}
+
+/// `token` without the sign when it is a negative zero (`-0.0` -> `0.0`); other tokens unchanged.
+fn unsigned_zero(token: String) -> String {
+    match token.strip_prefix('-') {
+        Some(magnitude) if magnitude.parse::<f64>().is_ok_and(|value| value == 0.0) => {
+            magnitude.to_string()
+        }
+        _ => token,
     }
 }
 
@@ -144,6 +155,7 @@ impl Scan<'_> {
         (self.at > start)
             .then(|| self.text.get(start..self.at).map(str::to_string))
             .flatten()
+            .map(unsigned_zero)
     }
 
     /// A plain value (string or bare token) as it is shown; None at an object or a list.
@@ -300,6 +312,23 @@ mod tests {
         // The parser's spelling differs where the user's does: the reason for reading the text.
         assert!(lines(&from_value).contains(&"wind.q50_kpa = 0.5".to_string()));
         assert!(!lines(&from_value).iter().any(|l| l.starts_with("project")));
+    }
+
+    #[test]
+    fn a_negative_zero_is_shown_without_its_sign() {
+        let rows = lines(&rows_from_text(
+            r#"{"roof": {"eave_overhang_mm": -0.0, "x": [-0, -2.5]}}"#,
+        ));
+        assert_eq!(
+            rows,
+            vec!["roof.eave_overhang_mm = 0.0", "roof.x = [0, -2.5]"]
+        );
+        let value: Value =
+            serde_json::from_str(r#"{"roof": {"dead_load_kpa": -0.0}}"#).expect("json");
+        assert_eq!(
+            lines(&rows_from_value(&value)),
+            vec!["roof.dead_load_kpa = 0.0"]
+        );
     }
 
     #[test]

@@ -4,7 +4,7 @@
 
 use crate::project::{EdgeBlocking, Project, StaggerChoice};
 use deckhold_model::format::{
-    plan_length_label, pressure_label, small_length_label, spacing_label, thickness_label,
+    fixed, plan_length_label, pressure_label, small_length_label, spacing_label, thickness_label,
 };
 use deckhold_model::InputRow;
 use deckhold_wind::Footprint;
@@ -35,7 +35,10 @@ pub fn derived_rows(project: &Project) -> Vec<InputRow> {
         "eave height",
         plan_length_label(wind.building.eave_height_m, us),
     ));
-    rows.push(row("roof slope", format!("{:.1} deg", wind.roof.slope_deg)));
+    rows.push(row(
+        "roof slope",
+        format!("{} deg", fixed(wind.roof.slope_deg, 1)),
+    ));
     rows.push(row(
         "eave overhang",
         plan_length_label(wind.roof.eave_overhang_mm / 1000.0, us),

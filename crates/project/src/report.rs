@@ -8,7 +8,7 @@ use crate::project::{EdgeBlocking, Project, StaggerChoice, StartCorner};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
-use deckhold_model::format::{feet_inches, m_to_ft, thickness_label, trimmed};
+use deckhold_model::format::{feet_inches, fixed, m_to_ft, thickness_label, trimmed};
 use deckhold_model::Units;
 use deckhold_model::{
     plane_name, standard_cautions, BasisInfo, FactorRow, LayingRow, LineRow, NailInfo, PlanEdge,
@@ -192,7 +192,7 @@ fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
         if us {
             feet_inches(value_m)
         } else {
-            format!("{value_m:.2} m")
+            format!("{} m", fixed(value_m, 2))
         }
     };
     let deck = &project.deck;
@@ -220,7 +220,7 @@ fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
         if us {
             feet_inches(project.deck.min_piece_mm / 1000.0)
         } else {
-            format!("{:.0} mm", project.deck.min_piece_mm)
+            format!("{} mm", fixed(project.deck.min_piece_mm, 0))
         }
     )
 }
@@ -260,7 +260,7 @@ pub fn deck_text(project: &Project, units: Units) -> String {
             if us {
                 feet_inches(offset_mm / 1000.0)
             } else {
-                format!("{offset_mm:.0} mm")
+                format!("{} mm", fixed(offset_mm, 0))
             }
         ),
     };
@@ -272,8 +272,9 @@ pub fn deck_text(project: &Project, units: Units) -> String {
         )
     } else {
         format!(
-            "{:.0} x {:.0} mm panels",
-            deck.panel_width_mm, deck.panel_length_mm
+            "{} x {} mm panels",
+            fixed(deck.panel_width_mm, 0),
+            fixed(deck.panel_length_mm, 0)
         )
     };
     format!(

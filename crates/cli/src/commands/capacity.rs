@@ -1,6 +1,7 @@
 //! `deckhold capacity`: the resistance of one nail, with every factor and its source.
 
 use anyhow::{anyhow, Result};
+use deckhold_schedule::format::fixed;
 use serde_json::json;
 
 use super::caution_lines;
@@ -132,7 +133,7 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
     for factor in &resistance.factors {
         table.row(vec![
             factor.name.clone(),
-            format!("{:.4}", factor.value),
+            fixed(factor.value, 4),
             factor.unit.clone(),
             factor.source.clone(),
         ]);

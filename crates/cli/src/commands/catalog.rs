@@ -1,6 +1,7 @@
 //! `deckhold catalog`: the built-in nails, species groups and panels, with their sources.
 
 use anyhow::Result;
+use deckhold_schedule::format::fixed;
 
 use crate::args::{CatalogArgs, CatalogKind};
 use crate::table::Table;
@@ -28,9 +29,9 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
                 table.row(vec![
                     nail.id.clone(),
                     nail.description.clone(),
-                    format!("{:.1}", nail.length_mm),
-                    format!("{:.2}", nail.shank_diameter_mm),
-                    format!("{:.2}", nail.head_diameter_mm),
+                    fixed(nail.length_mm, 1),
+                    fixed(nail.shank_diameter_mm, 2),
+                    fixed(nail.head_diameter_mm, 2),
                     nail.shank.as_str().to_string(),
                     nail.material.as_str().to_string(),
                     nail.provenance(),
@@ -47,8 +48,7 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
             let mut table = Table::new(&["id", "name", "O86 rel. density", "NDS G", "sources"]);
             for group in groups {
                 let value = |v: &Option<deckhold_fasten::SourcedValue>| {
-                    v.as_ref()
-                        .map_or("-".to_string(), |v| format!("{:.2}", v.value))
+                    v.as_ref().map_or("-".to_string(), |v| fixed(v.value, 2))
                 };
                 let sources: Vec<String> =
                     [&group.o86_relative_density, &group.nds_specific_gravity]
@@ -76,7 +76,7 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
                 table.row(vec![
                     panel.id.clone(),
                     panel.name.clone(),
-                    format!("{:.2}", panel.nds_specific_gravity.value),
+                    fixed(panel.nds_specific_gravity.value, 2),
                     panel.nds_specific_gravity.provenance(),
                 ]);
             }
@@ -106,7 +106,7 @@ fn coefficients(json: bool) -> Result<()> {
         let curve: Vec<String> = row
             .points
             .iter()
-            .map(|p| format!("{:.3}: {:.2}", p.area_m2, p.coefficient))
+            .map(|p| format!("{}: {}", fixed(p.area_m2, 3), fixed(p.coefficient, 2)))
             .collect();
         table.row(vec![
             row.edition.clone(),

@@ -1,6 +1,7 @@
 //! `deckhold check`: plan-check an existing or proposed pattern. Exit 1 when any zone fails.
 
 use anyhow::{anyhow, Context, Result};
+use deckhold_schedule::format::fixed;
 use serde_json::json;
 
 use super::{caution_lines, load_project, spacing_text};
@@ -82,8 +83,8 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
             checked.resistance.governing_mode.as_str(),
             if pattern.credit < 1.0 {
                 format!(
-                    ", credit {:.2} for their condition: {} counted",
-                    pattern.credit,
+                    ", credit {} for their condition: {} counted",
+                    fixed(pattern.credit, 2),
                     force_label(
                         checked.resistance.governing_n * pattern.credit,
                         units.is_us()
@@ -103,7 +104,7 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
                 row.support_role.to_string(),
                 spacing_text(Some(row.given_spacing_mm), units),
                 spacing_text(row.required_spacing_mm, units),
-                format!("{:.2}", row.utilization),
+                fixed(row.utilization, 2),
                 row.governing_line.to_string(),
                 if row.passes {
                     "ok".to_string()

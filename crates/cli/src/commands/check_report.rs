@@ -4,6 +4,7 @@
 use deckhold_deck::spacing::DeckPlan;
 use deckhold_project::basis::BasisStandards;
 use deckhold_project::{ExistingPattern, PatternCheck, Project, Retrofit, COMBINATION_RULE};
+use deckhold_schedule::format::fixed;
 use deckhold_schedule::format::{force_label, spacing_label};
 use deckhold_schedule::{Block, Part, Report};
 
@@ -67,9 +68,9 @@ impl<'a> CheckReport<'a> {
                 pattern_rows(check),
                 &check.plan,
                 vec![format!(
-                    "Existing: {}, credit {:.2}",
+                    "Existing: {}, credit {}",
                     fastener_summary(&check.nail, &check.resistance, is_us),
-                    pattern.credit
+                    fixed(pattern.credit, 2)
                 )],
                 check.resistance.warnings.clone(),
                 None,
@@ -164,9 +165,9 @@ fn fastener_summary(
 fn retrofit_fastener_lines(retrofit: &Retrofit, is_us: bool) -> Vec<String> {
     vec![
         format!(
-            "Existing: {}, credit {:.2}: {} counted",
+            "Existing: {}, credit {}: {} counted",
             fastener_summary(&retrofit.existing, &retrofit.existing_resistance, is_us),
-            retrofit.credit,
+            fixed(retrofit.credit, 2),
             force_label(
                 retrofit.existing_resistance.governing_n * retrofit.credit,
                 is_us
@@ -204,16 +205,14 @@ pub fn check_csv(report: &CheckReport) -> Vec<u8> {
     );
     for row in &report.rows {
         text.push_str(&format!(
-            "zone,{},{},{},{},,,,{:.1},{},{:.3},{},{},{}\n",
+            "zone,{},{},{},{},,,,{},{},{},{},{},{}\n",
             row.zone,
             field(&row.code_zone),
             row.role,
             row.line,
-            row.existing_mm,
-            row.added_mm
-                .map(|mm| format!("{mm:.1}"))
-                .unwrap_or_default(),
-            row.utilization,
+            fixed(row.existing_mm, 1),
+            row.added_mm.map(|mm| fixed(mm, 1)).unwrap_or_default(),
+            fixed(row.utilization, 3),
             row.passes,
             field(&row.what_to_add),
             field(&row.notes)
@@ -229,15 +228,14 @@ pub fn check_csv(report: &CheckReport) -> Vec<u8> {
                 .iter()
                 .find(|row| row.zone == zone && row.role == role);
             text.push_str(&format!(
-                "line,{zone},,{role},{},{:.3},{:.3},{:.1},{},{},,,,\n",
+                "line,{zone},,{role},{},{},{},{},{},{},,,,\n",
                 line.number,
-                segment.from_m,
-                segment.to_m,
-                segment.reaction_width_mm,
-                row.map(|row| format!("{:.1}", row.existing_mm))
-                    .unwrap_or_default(),
+                fixed(segment.from_m, 3),
+                fixed(segment.to_m, 3),
+                fixed(segment.reaction_width_mm, 1),
+                row.map(|row| fixed(row.existing_mm, 1)).unwrap_or_default(),
                 row.and_then(|row| row.added_mm)
-                    .map(|mm| format!("{mm:.1}"))
+                    .map(|mm| fixed(mm, 1))
                     .unwrap_or_default(),
             ));
         }
@@ -282,8 +280,8 @@ pub fn check_report(report: &CheckReport) -> Report {
         ));
     }
     pattern_lines.push(format!(
-        "credit for the existing fasteners' condition: {:.2}",
-        report.pattern.credit
+        "credit for the existing fasteners' condition: {}",
+        fixed(report.pattern.credit, 2)
     ));
     let verdict = match (&report.added_id, report.passes()) {
         (None, true) => "RESULT: the pattern in place PASSES in every zone.".to_string(),
@@ -304,7 +302,7 @@ pub fn check_report(report: &CheckReport) -> Report {
                 row.role.clone(),
                 spacing(row.existing_mm),
                 row.added_mm.map(spacing).unwrap_or_else(|| "-".to_string()),
-                format!("{:.2}", row.utilization),
+                fixed(row.utilization, 2),
                 if row.passes { "pass" } else { "FAILS" }.to_string(),
                 row.what_to_add.clone(),
             ]
@@ -380,7 +378,7 @@ pub fn check_report(report: &CheckReport) -> Report {
                     row.zone.clone(),
                     row.role.clone(),
                     row.line.to_string(),
-                    format!("{:.2}", row.utilization),
+                    fixed(row.utilization, 2),
                 ]
             })
             .collect(),

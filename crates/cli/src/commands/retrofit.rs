@@ -2,6 +2,7 @@
 //! support role. Exit 1 when some zone cannot be made to work with the added fastener.
 
 use anyhow::{Context, Result};
+use deckhold_schedule::format::fixed;
 use serde_json::json;
 
 use super::{caution_lines, spacing_text};
@@ -87,14 +88,14 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
     let units = project.units;
     let is_us = units.is_us();
     let mut text = format!(
-        "Retrofit: existing {} ({}), {} per fastener, credit {:.2}: {} counted\n\
+        "Retrofit: existing {} ({}), {} per fastener, credit {}: {} counted\n\
          Added: {} ({}), {} per fastener ({})\n\
          Closest spacing between any two fasteners: {}\n\
          Combination: {COMBINATION_RULE}\n\n",
         retrofit.existing.id,
         retrofit.existing.description,
         force_label(retrofit.existing_resistance.governing_n, is_us),
-        retrofit.credit,
+        fixed(retrofit.credit, 2),
         force_label(
             retrofit.existing_resistance.governing_n * retrofit.credit,
             is_us
@@ -125,7 +126,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
             row.added_spacing_mm
                 .map(|mm| spacing_text(Some(mm), units))
                 .unwrap_or_else(|| "-".to_string()),
-            format!("{:.2}", row.utilization),
+            fixed(row.utilization, 2),
             row.governing_line.to_string(),
             if row.passes {
                 "ok".to_string()

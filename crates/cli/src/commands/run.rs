@@ -1,6 +1,7 @@
 //! `deckhold run`: the whole job, printed as the crew's per-zone schedule and written as CSV + PDF.
 
 use anyhow::{Context, Result};
+use deckhold_schedule::format::fixed;
 use serde_json::json;
 use std::time::Instant;
 
@@ -234,7 +235,7 @@ fn summary_text(schedule: &Schedule) -> String {
             spacing_text(zone.spacing_mm, units),
             pressure_value(zone.net_uplift_kpa, us),
             force_value(zone.demand_n, us),
-            format!("{:.2}", zone.utilization),
+            fixed(zone.utilization, 2),
             zone.nail_count.to_string(),
             zone.governing_check.clone(),
             zone.governing_line.to_string(),

@@ -1,6 +1,7 @@
 //! `deckhold zones`: the roof's wind zones and their net design uplift at one effective wind area.
 
 use anyhow::{bail, Context, Result};
+use deckhold_schedule::format::fixed;
 use serde_json::json;
 
 use super::{caution_lines, load_project};
@@ -99,9 +100,9 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
         table.row(vec![
             zone.label.as_str().to_string(),
             zone.code_zone.clone(),
-            format!("{zone_area:.1}"),
-            format!("{:.2}", uplift.cp_ext),
-            format!("{:.2}", uplift.cp_int),
+            fixed(zone_area, 1),
+            fixed(uplift.cp_ext, 2),
+            fixed(uplift.cp_int, 2),
             pressure_value(uplift.wind_factored_kpa, us),
             pressure_value(uplift.dead_counteracting_kpa, us),
             pressure_value(uplift.net_uplift_kpa, us),
@@ -111,9 +112,9 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
     outln!("\nFactors:");
     for factor in &wind.factors {
         outln!(
-            "  {} = {:.4}  ({})",
+            "  {} = {}  ({})",
             factor.name,
-            factor.value,
+            fixed(factor.value, 4),
             factor.source
         );
     }
