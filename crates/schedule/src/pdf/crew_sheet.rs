@@ -658,7 +658,7 @@ fn footnotes(
         ),
     };
     let members = crate::format::plural(member);
-    // Most important first: a full column drops the notes at the end, never the sign-off block below.
+    // Most important first: a full column drops notes that do not fit, never the sign-off block below.
     let mut text: Vec<(String, Font)> = Vec::new();
     if let Some(warning) = super::crew_notes::closer_intermediate_warning(schedule) {
         text.push((warning, Font::Bold));
@@ -692,8 +692,9 @@ fn footnotes(
     for (paragraph, font) in text {
         let lines = wrap(&paragraph, font, NOTE_PT, column.w);
         let h = lines.len() as f64 * line_height_mm(NOTE_PT);
+        // A note that does not fit gives way; a shorter one after it may still fit.
         if y - h < column.y {
-            return y;
+            continue;
         }
         for line in lines {
             y -= line_height_mm(NOTE_PT);

@@ -32,57 +32,63 @@ pub(crate) struct ZoneStyle {
     pub hatch: Hatch,
 }
 
-/// The style of a zone by its label: lighter and plainer where the uplift is lower.
+/// The style of a zone by its label: lighter and plainer where the uplift is lower. The hatch tells
+/// the zones apart (each kind has its own); the grey only adds the order of severity, and stays light
+/// (no fill darker than [`DARKEST_FILL`]) so that a black-and-white copy, which turns greys into a
+/// halftone, does not drown the hatch.
 pub(crate) fn zone_style(kind: ZoneKind) -> ZoneStyle {
     match kind {
         ZoneKind::Interior => ZoneStyle {
-            fill: 0.95,
+            fill: 1.0,
             hatch: Hatch::Plain,
         },
         ZoneKind::Edge => ZoneStyle {
-            fill: 0.82,
+            fill: 0.9,
             hatch: Hatch::Diagonal,
         },
         ZoneKind::Corner => ZoneStyle {
-            fill: 0.64,
+            fill: 0.72,
             hatch: Hatch::Cross,
         },
         ZoneKind::OverhangInterior => ZoneStyle {
-            fill: 0.90,
+            fill: 0.95,
             hatch: Hatch::Horizontal,
         },
         ZoneKind::OverhangEdge => ZoneStyle {
-            fill: 0.76,
+            fill: 0.81,
             hatch: Hatch::Dots,
         },
         ZoneKind::OverhangCorner => ZoneStyle {
-            fill: 0.56,
+            fill: 0.675,
             hatch: Hatch::Grid,
         },
         // Monoslope high-eave zones: darker than their low-eave kin, hatched the other way.
         ZoneKind::HighEdge => ZoneStyle {
-            fill: 0.70,
+            fill: 0.765,
             hatch: Hatch::AntiDiagonal,
         },
         ZoneKind::HighCorner => ZoneStyle {
-            fill: 0.48,
+            fill: 0.63,
             hatch: Hatch::CrossBar,
         },
         ZoneKind::OverhangHighEdge => ZoneStyle {
-            fill: 0.86,
+            fill: 0.855,
             hatch: Hatch::Vertical,
         },
         ZoneKind::OverhangHighCorner => ZoneStyle {
-            fill: 0.40,
+            fill: 0.585,
             hatch: Hatch::GridDiagonal,
         },
     }
 }
 
+/// The darkest zone fill (0 black, 1 white).
+pub(crate) const DARKEST_FILL: f64 = 0.58;
+
 /// Hatch line spacing, width and grey, mm.
 const HATCH_STEP_MM: f64 = 2.4;
-const HATCH_WIDTH_MM: f64 = 0.16;
-const HATCH_GREY: f64 = 0.15;
+const HATCH_WIDTH_MM: f64 = 0.2;
+const HATCH_GREY: f64 = 0.0;
 
 /// Lines of a family `a·x + b·y = c` (a, b in {-1, 0, 1}) across `box` = [x0, y0, x1, y1], spaced `step`.
 fn hatch_lines(canvas: &mut Canvas, bbox: [f64; 4], direction: [f64; 2], step: f64) {
@@ -147,7 +153,7 @@ pub(crate) fn fill_zone(canvas: &mut Canvas, points: &[[f64; 2]], style: ZoneSty
     if points.len() < 3 {
         return;
     }
-    canvas.fill_polygon(points, style.fill);
+    canvas.fill_polygon(points, style.fill.max(DARKEST_FILL));
     let Some(bbox) = bounds(points.iter()) else {
         return;
     };
@@ -931,6 +937,9 @@ mod tests {
                 assert_ne!(a.hatch, b.hatch);
             }
         }
+        // Light enough that a black-and-white copy keeps the hatch readable (common practice, no
+        // source; looked at with `pdftoppm -mono`).
+        assert!(styles.iter().all(|style| style.fill >= DARKEST_FILL));
     }
 
     #[test]
