@@ -182,8 +182,9 @@ mod tests {
 
     #[test]
     fn rsrs_nails_match_astm_f1667() {
-        // Length x shank: tiemax.com RSRS article quoting ASTM F1667 (checked): RSRS-01 2-3/8 x 0.113,
-        // RSRS-03 2-1/2 x 0.131, RSRS-04 3 x 0.120. Head 0.281 in: from memory, ASTM F1667-17.
+        // Length x shank, from memory (ASTM F1667-17): RSRS-01 2-3/8 x 0.113, RSRS-03 2-1/2 x 0.131,
+        // RSRS-04 3 x 0.120 in. Head 0.281 in: from memory, ASTM F1667-17. (A web article once cited here
+        // for the sizes is neither a standard, a handbook nor a research report: not a source.)
         assert_dims("rsrs-01", 2.375, 0.113, 0.281);
         assert_dims("rsrs-03", 2.5, 0.131, 0.281);
         assert_dims("rsrs-04", 3.0, 0.120, 0.281);
