@@ -1,22 +1,11 @@
 //! Every project under `fixtures/` runs (or is refused) as it should, through the library pipeline.
 
 use deckhold_project::{check_pattern, parse_project, run_job, schedule_for};
-use deckhold_tests::fixture_text;
+use deckhold_tests::{fixture_text, GOOD_FIXTURES};
 
 #[test]
 fn every_good_fixture_runs_to_a_schedule_with_cautions() {
-    for name in [
-        "demo-ca-gable.json",
-        "us-hip.json",
-        "ca-l-shaped-flat.json",
-        "ca-l-hip-bungalow.json",
-        "us-t-cross-gable.json",
-        "ca-existing-pattern.json",
-        "ca-no-feasible-nail.json",
-        "template-ca.json",
-        "template-us.json",
-        "us-retrofit-1970s.json",
-    ] {
+    for name in GOOD_FIXTURES {
         let project =
             parse_project(&fixture_text(name)).unwrap_or_else(|error| panic!("{name}: {error}"));
         let job = run_job(&project).unwrap_or_else(|error| panic!("{name}: {error}"));

@@ -115,6 +115,17 @@ fn l_hip_bungalow_by_hand() {
         12.0,
         max_relative = 1e-9
     );
+    // True lengths (the plan's roof-line table): each hip and the valley rise 4.6 × 5/12 m over
+    // 4.6√2 m in plan; a ridge is level.
+    let on_slope = diagonal.hypot(4.6 * 5.0 / 12.0);
+    for line in &schedule.plan.roof_lines {
+        let expected = if line.kind == EdgeKind::Ridge {
+            6.0
+        } else {
+            on_slope
+        };
+        assert_relative_eq!(line.length_on_slope_m, expected, max_relative = 1e-9);
+    }
 
     let net_kpa = 1.4 * 0.45 * 0.6f64.powf(0.2) * (2.5 + 0.6) - 0.9 * 0.5 * 12.0 / 13.0;
     let (interior_kpa, row) = interior(&schedule);

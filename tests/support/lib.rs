@@ -9,6 +9,20 @@ pub use golden::{golden_path, Goldens};
 
 use std::path::PathBuf;
 
+/// Every project under `fixtures/` that runs to a schedule.
+pub const GOOD_FIXTURES: &[&str] = &[
+    "demo-ca-gable.json",
+    "us-hip.json",
+    "ca-l-shaped-flat.json",
+    "ca-l-hip-bungalow.json",
+    "us-t-cross-gable.json",
+    "ca-existing-pattern.json",
+    "ca-no-feasible-nail.json",
+    "template-ca.json",
+    "template-us.json",
+    "us-retrofit-1970s.json",
+];
+
 /// Path of a file under `fixtures/`.
 pub fn fixture_path(name: &str) -> PathBuf {
     PathBuf::from(env!("CARGO_MANIFEST_DIR"))

@@ -114,6 +114,9 @@ pub struct PlanEdge {
     pub to_m: [f64; 2],
     /// Length in plan, m (a hip or valley is longer on the slope).
     pub length_m: f64,
+    /// True length along the line, m: the plan length with the rise between its ends (a ridge, eave
+    /// or level edge: the plan length). What a framer cuts a hip or valley rafter to, before bevels.
+    pub length_on_slope_m: f64,
 }
 
 /// One roof plane: where it is, how big and how steep, and the lines that bound it.

@@ -15,7 +15,7 @@ use deckhold_model::{
     PlanLine, PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow,
     ZoneRow,
 };
-use deckhold_wind::{Footprint, PlaneEdge, WindAnalysis};
+use deckhold_wind::{Footprint, PlaneEdge, RoofPlane, WindAnalysis};
 
 /// The report for the job's chosen nail.
 pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
@@ -413,18 +413,29 @@ fn plan_planes(wind: &WindAnalysis) -> Vec<PlanPlane> {
                 downslope_m: plane.downslope_m,
                 area_plan_m2,
                 area_on_slope_m2: area_plan_m2 / plane.slope_deg.to_radians().cos(),
-                edges: plane.edges.iter().map(plan_edge).collect(),
+                edges: plane
+                    .edges
+                    .iter()
+                    .map(|edge| plan_edge(edge, plane))
+                    .collect(),
             }
         })
         .collect()
 }
 
-fn plan_edge(edge: &PlaneEdge) -> PlanEdge {
+/// One side of `plane` with its plan and true lengths: the rise between the ends is the slope times
+/// their plan distance measured down the plane's slope.
+fn plan_edge(edge: &PlaneEdge, plane: &RoofPlane) -> PlanEdge {
+    let d = [edge.to_m[0] - edge.from_m[0], edge.to_m[1] - edge.from_m[1]];
+    let length_m = d[0].hypot(d[1]);
+    let down = plane.downslope_m;
+    let rise_m = plane.slope_deg.to_radians().tan() * (d[0] * down[0] + d[1] * down[1]).abs();
     PlanEdge {
         kind: edge.kind,
         from_m: edge.from_m,
         to_m: edge.to_m,
-        length_m: (edge.to_m[0] - edge.from_m[0]).hypot(edge.to_m[1] - edge.from_m[1]),
+        length_m,
+        length_on_slope_m: length_m.hypot(rise_m),
     }
 }
 
@@ -432,7 +443,11 @@ fn plan_edge(edge: &PlaneEdge) -> PlanEdge {
 fn roof_lines(wind: &WindAnalysis) -> Vec<PlanEdge> {
     let same = |p: [f64; 2], q: [f64; 2]| (p[0] - q[0]).abs() + (p[1] - q[1]).abs() < 1e-6;
     let mut lines: Vec<PlanEdge> = Vec::new();
-    for edge in wind.planes.iter().flat_map(|p| &p.edges) {
+    for (plane, edge) in wind
+        .planes
+        .iter()
+        .flat_map(|p| p.edges.iter().map(move |e| (p, e)))
+    {
         if edge.kind.is_outer() {
             continue;
         }
@@ -441,7 +456,7 @@ fn roof_lines(wind: &WindAnalysis) -> Vec<PlanEdge> {
                 || (same(l.from_m, edge.to_m) && same(l.to_m, edge.from_m))
         });
         if !seen {
-            lines.push(plan_edge(edge));
+            lines.push(plan_edge(edge, plane));
         }
     }
     lines

@@ -29,6 +29,6 @@ pub mod format {
     pub use deckhold_model::format::*;
 }
 pub use pdf::{
-    crew_sheet_pages, report_pdf, schedule_pdf, unshowable_chars, BarChart, Block, ChartColumn,
-    ChartPanel, ChartRow, Part, PdfOptions, Report,
+    crew_sheet_pages, plan_label_boxes, report_pdf, schedule_pdf, unshowable_chars, BarChart,
+    Block, ChartColumn, ChartPanel, ChartRow, Part, PdfOptions, PlanLabelBox, Report,
 };

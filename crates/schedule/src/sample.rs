@@ -271,6 +271,7 @@ pub fn sample_schedule_with_lines(line_count: u32, units: Units) -> Schedule {
             from_m: [-overhang_m, width_m / 2.0],
             to_m: [length_m + overhang_m, width_m / 2.0],
             length_m: length_m + 2.0 * overhang_m,
+            length_on_slope_m: length_m + 2.0 * overhang_m,
         }],
     };
 

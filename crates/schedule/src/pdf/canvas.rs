@@ -112,12 +112,14 @@ fn grey(level: f64) -> Color {
     Color::Greyscale(Greyscale::new(level.clamp(0.0, 1.0) as f32, None))
 }
 
-/// The operations of one page.
+/// The operations of one page, and the boxes of the text set on its plan drawing (kept so that a
+/// check can see that no two of them overlap; they draw nothing).
 #[derive(Debug, Default)]
 pub(crate) struct Canvas {
     ops: Vec<Op>,
     /// Characters shown in the embedded face, so the document embeds just those glyphs.
     embedded: EmbeddedChars,
+    plan_labels: Vec<(String, Area)>,
 }
 
 impl Canvas {
@@ -133,10 +135,21 @@ impl Canvas {
     pub(crate) fn append(&mut self, other: Canvas) {
         self.ops.extend(other.ops);
         self.embedded.merge(&other.embedded);
+        self.plan_labels.extend(other.plan_labels);
     }
 
     pub(crate) fn embedded_chars(&self) -> &EmbeddedChars {
         &self.embedded
+    }
+
+    /// Notes that `text` was set in `area` on the plan drawing.
+    pub(crate) fn note_plan_label(&mut self, text: &str, area: Area) {
+        self.plan_labels.push((text.to_string(), area));
+    }
+
+    /// The boxes noted with [`Canvas::note_plan_label`], in drawing order.
+    pub(crate) fn plan_labels(&self) -> &[(String, Area)] {
+        &self.plan_labels
     }
 
     fn stroke_state(&mut self, width_mm: f64, level: f64, stroke: Stroke) {

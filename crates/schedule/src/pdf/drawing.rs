@@ -1,11 +1,13 @@
 //! The roof plan to scale: zones in grey tones with hatches (so a black-and-white copy still tells them
 //! apart), wall and roof lines, ridges and hips, framing lines with their numbers, panel joints, the
-//! building's overall dimensions and a scale bar.
+//! building's overall dimensions and a scale bar; then the names of the planes, a label per zone and
+//! the table of roof lines, none of them over another.
 
 use super::canvas::{Align, Area, Canvas, Stroke};
 use super::geometry::{area, bounds, label_anchor};
-use super::labels::{place_labels, ZoneLabel};
+use super::labels::{place_labels, LabelStyle, PlanLabel, Taken};
 use super::page::Paper;
+use super::plan_marks::{plane_name_labels, roof_line_rows};
 use super::text::{width_mm, Font};
 use crate::format::{plan_length_label, spacing_label, MM_PER_FT};
 use crate::{EdgeKind, Schedule, SupportRole, Units, ZoneKind};
@@ -440,12 +442,14 @@ pub(crate) fn draw_plan(
     );
     // The scale bar sits under the dimensions when there is room, else at the foot of the drawing.
     let bar_y = (lowest - 7.0).max(area.y + 2.2);
-    obstacles.push(Area {
+    let bar_band = Area {
         x: area.x,
         y: bar_y - 1.0,
         w: area.w,
         h: 6.5,
-    });
+    };
+    canvas.note_plan_label("scale bar and note", bar_band);
+    obstacles.push(bar_band);
     draw_scale_bar(
         canvas,
         area,
@@ -462,7 +466,13 @@ pub(crate) fn draw_plan(
         w: area.w,
         h: area.top() - bar_y - 6.0,
     };
-    draw_zone_labels(canvas, schedule, &transform, bounds, &obstacles, imperial);
+    // Zones first (their labels matter most to the crew), then the planes' names and the roof lines.
+    let mut taken = Taken {
+        boxes: obstacles,
+        leaders: Vec::new(),
+    };
+    draw_zone_labels(canvas, schedule, &transform, bounds, &mut taken, imperial);
+    draw_roof_marks(canvas, schedule, &transform, bounds, &mut taken);
     PlanNotes {
         scale_denominator: Some(denominator),
         numbered_every,
@@ -553,73 +563,59 @@ fn draw_line_numbers(
         let text = line.number.to_string();
         let w = width_mm(&text, Font::Regular, NUMBER_PT);
         let side = label_side(line, center_m);
-        if side == LabelSide::Above {
-            let high = if a[1] >= b[1] { a } else { b };
-            let baseline = high[1] + 1.0;
-            canvas.text(
-                high[0],
-                baseline,
-                &text,
-                Font::Regular,
-                NUMBER_PT,
-                Align::Center,
-            );
-            obstacles.push(Area {
-                x: high[0] - w / 2.0,
-                y: baseline - 0.4,
-                w,
-                h: 2.6,
-            });
-        } else if side == LabelSide::Right {
-            let right = if a[0] >= b[0] { a } else { b };
-            canvas.text(
-                right[0] + 1.2,
-                right[1] - 0.75,
-                &text,
-                Font::Regular,
-                NUMBER_PT,
-                Align::Left,
-            );
-            obstacles.push(Area {
-                x: right[0] + 1.2,
-                y: right[1] - 1.2,
-                w,
-                h: 2.6,
-            });
-        } else if side == LabelSide::Below {
-            let low = if a[1] <= b[1] { a } else { b };
-            let baseline = low[1] - 3.0;
-            canvas.text(
-                low[0],
-                baseline,
-                &text,
-                Font::Regular,
-                NUMBER_PT,
-                Align::Center,
-            );
-            obstacles.push(Area {
-                x: low[0] - w / 2.0,
-                y: baseline - 0.4,
-                w,
-                h: 2.6,
-            });
-        } else {
-            let left = if a[0] <= b[0] { a } else { b };
-            canvas.text(
-                left[0] - 1.2,
-                left[1] - 0.75,
-                &text,
-                Font::Regular,
-                NUMBER_PT,
-                Align::Right,
-            );
-            obstacles.push(Area {
-                x: left[0] - 1.2 - w,
-                y: left[1] - 1.2,
-                w,
-                h: 2.6,
-            });
+        // Baseline point, alignment and the box the number takes.
+        let (at, align, area) = match side {
+            LabelSide::Above => {
+                let high = if a[1] >= b[1] { a } else { b };
+                let baseline = high[1] + 1.0;
+                let area = Area {
+                    x: high[0] - w / 2.0,
+                    y: baseline - 0.4,
+                    w,
+                    h: 2.6,
+                };
+                ([high[0], baseline], Align::Center, area)
+            }
+            LabelSide::Right => {
+                let right = if a[0] >= b[0] { a } else { b };
+                let area = Area {
+                    x: right[0] + 1.2,
+                    y: right[1] - 1.2,
+                    w,
+                    h: 2.6,
+                };
+                ([right[0] + 1.2, right[1] - 0.75], Align::Left, area)
+            }
+            LabelSide::Below => {
+                let low = if a[1] <= b[1] { a } else { b };
+                let baseline = low[1] - 3.0;
+                let area = Area {
+                    x: low[0] - w / 2.0,
+                    y: baseline - 0.4,
+                    w,
+                    h: 2.6,
+                };
+                ([low[0], baseline], Align::Center, area)
+            }
+            LabelSide::Left => {
+                let left = if a[0] <= b[0] { a } else { b };
+                let area = Area {
+                    x: left[0] - 1.2 - w,
+                    y: left[1] - 1.2,
+                    w,
+                    h: 2.6,
+                };
+                ([left[0] - 1.2, left[1] - 0.75], Align::Right, area)
+            }
+        };
+        // Two numbers never share a place (lines of two planes can end side by side at a valley):
+        // the later one is left off; the line table lists every line.
+        if obstacles.iter().any(|other| area.overlaps(other, 0.0)) {
+            continue;
         }
+        canvas.text(at[0], at[1], &text, Font::Regular, NUMBER_PT, align);
+        canvas.note_plan_label(&text, area);
+        obstacles.push(area);
     }
     step
 }
@@ -689,12 +685,14 @@ fn draw_dimensions(
         Align::Center,
     );
     let w = width_mm(&length, Font::Bold, 7.5);
-    obstacles.push(Area {
+    let length_box = Area {
         x: (low[0] + high[0] - w) / 2.0,
         y: text_y - 0.6,
         w,
         h: 3.4,
-    });
+    };
+    canvas.note_plan_label(&length, length_box);
+    obstacles.push(length_box);
 
     // Width, left of the plan.
     let x_dim = drawn[0] - left_numbers - 3.5;
@@ -726,22 +724,26 @@ fn draw_dimensions(
             Font::Bold,
             7.5,
         );
-        obstacles.push(Area {
+        let width_box = Area {
             x: x_dim - 4.0,
             y: (low[1] + high[1] - text_len) / 2.0,
             w: 4.0,
             h: text_len,
-        });
+        };
+        canvas.note_plan_label(&width, width_box);
+        obstacles.push(width_box);
     } else {
         // A plan too shallow for the text along the line: set it level, above the line's top end.
         let baseline = high[1] + 2.0;
         canvas.text(x_dim - 2.0, baseline, &width, Font::Bold, 7.5, Align::Left);
-        obstacles.push(Area {
+        let width_box = Area {
             x: x_dim - 2.0,
             y: baseline - 0.6,
             w: text_len,
             h: 3.4,
-        });
+        };
+        canvas.note_plan_label(&width, width_box);
+        obstacles.push(width_box);
     }
     text_y - 0.6
 }
@@ -754,13 +756,57 @@ pub(crate) fn role_words(role: SupportRole) -> &'static str {
     }
 }
 
+/// Each plane's name inside it and, for a roof with hips or valleys, the table of roof-line lengths,
+/// off the roof where there is room (the drawing's corners are tried first).
+fn draw_roof_marks(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    transform: &Transform,
+    bounds: Area,
+    taken: &mut Taken,
+) {
+    let plan = &schedule.plan;
+    let planes_page: Vec<Vec<[f64; 2]>> = plan
+        .planes
+        .iter()
+        .map(|plane| transform.polygon(&plane.polygon_m))
+        .collect();
+    let names: Vec<String> = plan.planes.iter().map(|plane| plane.name.clone()).collect();
+    let plane_regions: Vec<Vec<Vec<[f64; 2]>>> = planes_page
+        .iter()
+        .map(|polygon| vec![polygon.clone()])
+        .collect();
+    place_labels(
+        canvas,
+        &plane_name_labels(&names, &planes_page),
+        &plane_regions,
+        bounds,
+        taken,
+    );
+    let imperial = schedule.basis.units == Units::Imperial;
+    if let Some(rows) = roof_line_rows(&plan.roof_lines, imperial) {
+        let table = PlanLabel {
+            lines: rows,
+            region: None,
+            style: LabelStyle::Table,
+            anchors: vec![
+                [bounds.right(), bounds.top()],
+                [bounds.right(), bounds.y],
+                [bounds.x, bounds.top()],
+                [bounds.x, bounds.y],
+            ],
+        };
+        place_labels(canvas, &[table], &[planes_page], bounds, taken);
+    }
+}
+
 /// A label for every zone on the plan, with its spacings, placed within `bounds`.
 fn draw_zone_labels(
     canvas: &mut Canvas,
     schedule: &Schedule,
     transform: &Transform,
     bounds: Area,
-    obstacles: &[Area],
+    taken: &mut Taken,
     imperial: bool,
 ) {
     let page_zones: Vec<Vec<Vec<[f64; 2]>>> = schedule
@@ -774,7 +820,7 @@ fn draw_zone_labels(
                 .collect()
         })
         .collect();
-    let mut labels: Vec<(f64, ZoneLabel)> = schedule
+    let mut labels: Vec<(f64, PlanLabel)> = schedule
         .plan
         .zones
         .iter()
@@ -803,10 +849,10 @@ fn draw_zone_labels(
             let anchors = polygons.iter().take(4).map(|p| label_anchor(p)).collect();
             (
                 largest,
-                ZoneLabel {
+                PlanLabel {
                     lines,
-                    zone: index,
-                    emphasis,
+                    region: Some(index),
+                    style: LabelStyle::Zone { emphasis },
                     anchors,
                 },
             )
@@ -814,8 +860,8 @@ fn draw_zone_labels(
         .collect();
     // Small zones first: they have the fewest good places.
     labels.sort_by(|a, b| a.0.total_cmp(&b.0));
-    let labels: Vec<ZoneLabel> = labels.into_iter().map(|(_, label)| label).collect();
-    place_labels(canvas, &labels, &page_zones, bounds, obstacles);
+    let labels: Vec<PlanLabel> = labels.into_iter().map(|(_, label)| label).collect();
+    place_labels(canvas, &labels, &page_zones, bounds, taken);
 }
 
 /// A bar of alternating black and white parts, with its ends labelled, under the plan.

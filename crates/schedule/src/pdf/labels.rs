@@ -1,5 +1,7 @@
-//! Zone labels on the plan: a boxed block of text near each zone's anchor, moved off its neighbours and
-//! tied back to the zone with a leader when it had to move.
+//! Labels on the plan: boxed blocks of text near their anchors (a zone's spacings, a plane's name, the
+//! table of roof lines), moved off each other and off everything already set, and tied back to a zone
+//! with a leader when a zone label had to move. No label is ever set over another: one that finds no
+//! free place is left off (its content is in the tables beside the plan).
 
 use super::canvas::{Align, Area, Canvas, Stroke};
 use super::geometry::{bounds, contains};
@@ -7,35 +9,57 @@ use super::text::{line_height_mm, width_mm, Font};
 
 /// Type size of zone labels, pt.
 const LABEL_PT: f64 = 7.5;
+/// Type size of plane names and the roof-line table, pt.
+const SMALL_PT: f64 = 6.5;
 /// Clear gap kept between labels and other obstacles, mm.
 const GAP_MM: f64 = 0.8;
+/// Leaders longer than this cost more the longer they are, mm.
+const LONG_LEADER_MM: f64 = 15.0;
+/// Step of the search over the whole drawing when no place near the anchors is free, mm.
+const SCAN_STEP_MM: f64 = 2.0;
 
-/// One label to place: its lines (the first set bold), the zone it names (an index into the zone
-/// polygons given to [`place_labels`]) and the points it may point at, best first.
+/// What a label is, which sets its type, frame and whether it may have a leader.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub(crate) enum LabelStyle {
+    /// A zone's spacings, centred; a heavy frame when the zone has no working spacing.
+    Zone { emphasis: bool },
+    /// A plane's name, small and bold, kept inside its plane where it fits (never a leader).
+    Plane,
+    /// A small table, left-aligned, kept off the roof where there is room.
+    Table,
+}
+
+impl LabelStyle {
+    fn size_pt(self) -> f64 {
+        match self {
+            LabelStyle::Zone { .. } => LABEL_PT,
+            LabelStyle::Plane | LabelStyle::Table => SMALL_PT,
+        }
+    }
+}
+
+/// One label to place: its lines (the first set bold), the region it belongs to (an index into the
+/// regions given to [`place_labels`]; None: it belongs to no region and prefers to sit off all of them)
+/// and the points it may point at, best first.
 #[derive(Debug, Clone)]
-pub(crate) struct ZoneLabel {
+pub(crate) struct PlanLabel {
     pub lines: Vec<String>,
-    pub zone: usize,
-    /// Drawn with a heavy frame: the zone has no working spacing.
-    pub emphasis: bool,
+    pub region: Option<usize>,
+    pub style: LabelStyle,
     pub anchors: Vec<[f64; 2]>,
 }
 
-fn box_size(lines: &[String]) -> (f64, f64) {
+fn box_size(lines: &[String], style: LabelStyle) -> (f64, f64) {
+    let size = style.size_pt();
     let width = lines
         .iter()
         .enumerate()
-        .map(|(i, line)| {
-            width_mm(
-                line,
-                if i == 0 { Font::Bold } else { Font::Regular },
-                LABEL_PT,
-            )
-        })
+        .map(|(i, line)| width_mm(line, if i == 0 { Font::Bold } else { Font::Regular }, size))
         .fold(0.0, f64::max);
+    let pad = if style == LabelStyle::Plane { 1.2 } else { 2.4 };
     (
-        width + 2.4,
-        lines.len() as f64 * line_height_mm(LABEL_PT) + 1.4,
+        width + pad,
+        lines.len() as f64 * line_height_mm(size) + pad * 0.6,
     )
 }
 
@@ -88,37 +112,53 @@ impl<'a> ZoneMap<'a> {
         ZoneMap { polygons }
     }
 
-    /// Share of the box that covers zones other than `own` (outside the roof counts as free).
-    fn foreign_share(&self, area: &Area, own: usize) -> f64 {
+    /// Share of the box that covers regions other than `own` (outside every region counts as free;
+    /// with no `own`, every region is foreign).
+    fn foreign_share(&self, area: &Area, own: Option<usize>) -> f64 {
+        self.share(area, own, |on_any, on_own| on_any && !on_own)
+    }
+
+    /// Share of the box outside region `own`.
+    fn outside_share(&self, area: &Area, own: Option<usize>) -> f64 {
+        self.share(area, own, |_, on_own| !on_own)
+    }
+
+    /// Share of sample points over the box for which `bad(on any region, on region own)` says yes.
+    fn share(&self, area: &Area, own: Option<usize>, bad: impl Fn(bool, bool) -> bool) -> f64 {
         const NX: usize = 5;
         const NY: usize = 3;
-        let mut foreign = 0;
+        let mut count = 0;
         for i in 0..NX {
             for j in 0..NY {
                 let p = [
                     area.x + area.w * (i as f64 + 0.5) / NX as f64,
                     area.y + area.h * (j as f64 + 0.5) / NY as f64,
                 ];
-                let mut here = self
-                    .polygons
-                    .iter()
-                    .filter(|(_, _, b)| {
-                        p[0] >= b[0] && p[0] <= b[2] && p[1] >= b[1] && p[1] <= b[3]
-                    })
-                    .filter(|(_, polygon, _)| contains(polygon, p))
-                    .map(|(zone, _, _)| *zone);
-                let first = here.next();
-                let mut all_own = first.is_none_or(|zone| zone == own);
-                for zone in here {
-                    all_own |= zone == own;
+                let (mut on_any, mut on_own) = (false, false);
+                for (zone, _, _) in self.polygons.iter().filter(|(_, polygon, b)| {
+                    p[0] >= b[0]
+                        && p[0] <= b[2]
+                        && p[1] >= b[1]
+                        && p[1] <= b[3]
+                        && contains(polygon, p)
+                }) {
+                    on_any = true;
+                    on_own |= Some(*zone) == own;
                 }
-                if !all_own {
-                    foreign += 1;
+                if bad(on_any, on_own) {
+                    count += 1;
                 }
             }
         }
-        foreign as f64 / (NX * NY) as f64
+        count as f64 / (NX * NY) as f64
     }
+}
+
+/// What is already set on the drawing: boxes no label may overlap, and zone leaders no label may sit on.
+#[derive(Debug, Default)]
+pub(crate) struct Taken {
+    pub boxes: Vec<Area>,
+    pub leaders: Vec<[[f64; 2]; 2]>,
 }
 
 /// The leader from `anchor` to the nearest point of `area`, or None when the anchor is inside.
@@ -146,111 +186,184 @@ fn crosses(segment: [[f64; 2]; 2], area: &Area) -> bool {
     })
 }
 
-/// How poor a place is: covering other zones costs most, then leaders crossing labels, then needing a
-/// leader at all, then distance.
+/// How poor a place is: covering other regions (for a plane's name: anything outside its plane) costs
+/// most, then leaders crossing labels, then needing a leader at all, then distance.
 fn badness(
     area: &Area,
     anchor: [f64; 2],
-    own: usize,
+    label: &PlanLabel,
     zones: &ZoneMap,
-    placed: &[Area],
-    leaders: &[[[f64; 2]; 2]],
+    taken: &Taken,
 ) -> f64 {
-    let own_leader = leader(area, anchor);
+    let own = label.region;
+    // A zone label may sit off the roof; a plane's name belongs inside its plane.
+    let misplaced = match label.style {
+        LabelStyle::Plane => zones.outside_share(area, own),
+        LabelStyle::Zone { .. } | LabelStyle::Table => zones.foreign_share(area, own),
+    };
+    let own_leader = match label.style {
+        LabelStyle::Zone { .. } => leader(area, anchor),
+        LabelStyle::Plane | LabelStyle::Table => None,
+    };
+    // A long leader is hard to follow across the drawing.
+    let leader_mm = own_leader.map_or(0.0, |[a, b]| (b[0] - a[0]).hypot(b[1] - a[1]));
     let center = [area.x + area.w / 2.0, area.y + area.h / 2.0];
     let distance = ((center[0] - anchor[0]).powi(2) + (center[1] - anchor[1]).powi(2)).sqrt();
-    let crossing = own_leader
-        .is_some_and(|segment| placed.iter().any(|other| crosses(segment, other)))
-        || leaders.iter().any(|segment| crosses(*segment, area));
-    zones.foreign_share(area, own) * 4.0
+    let crossing =
+        own_leader.is_some_and(|segment| taken.boxes.iter().any(|other| crosses(segment, other)));
+    misplaced * 4.0
         + if crossing { 2.0 } else { 0.0 }
         + if own_leader.is_some() { 1.0 } else { 0.0 }
+        + (leader_mm - LONG_LEADER_MM).max(0.0) / LONG_LEADER_MM
         + distance / 40.0
 }
 
-/// Places and draws `labels` inside `bounds`, keeping clear of `obstacles` and of each other, preferring
-/// places over the label's own zone or off the roof (with a leader) to places over other zones.
+/// Places and draws `labels` inside `bounds`, clear of everything `taken` (each placed label and its
+/// leader are added to it), preferring places over the label's own region, or off the roof, to places
+/// over other regions. Returns how many labels found no free place and were left off.
 pub(crate) fn place_labels(
     canvas: &mut Canvas,
-    labels: &[ZoneLabel],
-    zones: &[Vec<Vec<[f64; 2]>>],
+    labels: &[PlanLabel],
+    regions: &[Vec<Vec<[f64; 2]>>],
     bounds: Area,
-    obstacles: &[Area],
-) {
-    let zone_map = ZoneMap::new(zones);
-    let mut taken: Vec<Area> = obstacles.to_vec();
-    let mut placed: Vec<Area> = Vec::new();
-    let mut leaders: Vec<[[f64; 2]; 2]> = Vec::new();
+    taken: &mut Taken,
+) -> usize {
+    let zone_map = ZoneMap::new(regions);
     let offsets = offsets();
+    let mut left_off = 0;
     for label in labels {
-        let Some(&first_anchor) = label.anchors.first() else {
+        if label.anchors.is_empty() {
+            continue;
+        }
+        let (w, h) = box_size(&label.lines, label.style);
+        let search = Search {
+            label,
+            size: (w, h),
+            bounds,
+            taken,
+            zones: &zone_map,
+        };
+        let near = label.anchors.iter().flat_map(|anchor| {
+            offsets.iter().map(move |offset| {
+                (
+                    *anchor,
+                    [anchor[0] + offset[0] * w, anchor[1] + offset[1] * h],
+                )
+            })
+        });
+        let best = search.best(near).or_else(|| {
+            // Nothing free near the anchors: every place on the drawing, on a grid.
+            let columns = ((bounds.w - w) / SCAN_STEP_MM).max(0.0) as usize;
+            let rows = ((bounds.h - h) / SCAN_STEP_MM).max(0.0) as usize;
+            let anchor = label.anchors[0];
+            search.best((0..=rows).flat_map(|row| {
+                (0..=columns).map(move |column| {
+                    (
+                        anchor,
+                        [
+                            bounds.x + w / 2.0 + column as f64 * SCAN_STEP_MM,
+                            bounds.y + h / 2.0 + row as f64 * SCAN_STEP_MM,
+                        ],
+                    )
+                })
+            }))
+        });
+        let Some((anchor, area)) = best else {
+            left_off += 1;
             continue;
         };
-        let (w, h) = box_size(&label.lines);
+        draw_label(canvas, label, area, anchor);
+        if matches!(label.style, LabelStyle::Zone { .. }) {
+            taken.leaders.extend(leader(&area, anchor));
+        }
+        taken.boxes.push(area);
+    }
+    left_off
+}
+
+/// One label's search for the best free place.
+struct Search<'a> {
+    label: &'a PlanLabel,
+    size: (f64, f64),
+    bounds: Area,
+    taken: &'a Taken,
+    zones: &'a ZoneMap<'a>,
+}
+
+impl Search<'_> {
+    /// The least bad free place among `candidates` (anchor, box centre): its anchor and box. A place
+    /// is free when it is inside the bounds, clear of every box and on no leader.
+    fn best(
+        &self,
+        candidates: impl Iterator<Item = ([f64; 2], [f64; 2])>,
+    ) -> Option<([f64; 2], Area)> {
+        let (w, h) = self.size;
         let mut best: Option<(f64, [f64; 2], Area)> = None;
-        for anchor in &label.anchors {
-            for offset in &offsets {
-                let area = centered([anchor[0] + offset[0] * w, anchor[1] + offset[1] * h], w, h);
-                if !bounds.contains_area(&area)
-                    || taken.iter().any(|other| area.overlaps(other, GAP_MM))
-                {
-                    continue;
-                }
-                let score = badness(&area, *anchor, label.zone, &zone_map, &placed, &leaders);
-                if best
-                    .as_ref()
-                    .is_none_or(|(best_score, _, _)| score < *best_score - 1e-9)
-                {
-                    best = Some((score, *anchor, area));
-                }
+        for (anchor, center) in candidates {
+            let area = centered(center, w, h);
+            if !self.bounds.contains_area(&area)
+                || self
+                    .taken
+                    .boxes
+                    .iter()
+                    .any(|other| area.overlaps(other, GAP_MM))
+                || self
+                    .taken
+                    .leaders
+                    .iter()
+                    .any(|segment| crosses(*segment, &area))
+            {
+                continue;
+            }
+            let score = badness(&area, anchor, self.label, self.zones, self.taken);
+            if best
+                .as_ref()
+                .is_none_or(|(best_score, _, _)| score < *best_score - 1e-9)
+            {
+                best = Some((score, anchor, area));
             }
         }
-        let (anchor, area) = match best {
-            Some((_, anchor, area)) => (anchor, area),
-            None => {
-                // Nowhere free: sit on the best anchor, kept inside the drawing.
-                let mut area = centered(first_anchor, w, h);
-                area.x = area.x.clamp(bounds.x, (bounds.right() - w).max(bounds.x));
-                area.y = area.y.clamp(bounds.y, (bounds.top() - h).max(bounds.y));
-                (first_anchor, area)
-            }
-        };
-        draw_label(canvas, label, area, anchor);
-        leaders.extend(leader(&area, anchor));
-        taken.push(area);
-        placed.push(area);
+        best.map(|(_, anchor, area)| (anchor, area))
     }
 }
 
-fn draw_label(canvas: &mut Canvas, label: &ZoneLabel, area: Area, anchor: [f64; 2]) {
+fn draw_label(canvas: &mut Canvas, label: &PlanLabel, area: Area, anchor: [f64; 2]) {
     let lines = &label.lines;
-    if let Some([anchor, nearest]) = leader(&area, anchor) {
-        canvas.line(anchor, nearest, 0.25, 0.0, Stroke::Solid);
-        let dot = 0.5;
-        canvas.fill_area(
-            Area {
-                x: anchor[0] - dot,
-                y: anchor[1] - dot,
-                w: 2.0 * dot,
-                h: 2.0 * dot,
-            },
-            0.0,
-        );
+    if matches!(label.style, LabelStyle::Zone { .. }) {
+        if let Some([anchor, nearest]) = leader(&area, anchor) {
+            canvas.line(anchor, nearest, 0.25, 0.0, Stroke::Solid);
+            let dot = 0.5;
+            canvas.fill_area(
+                Area {
+                    x: anchor[0] - dot,
+                    y: anchor[1] - dot,
+                    w: 2.0 * dot,
+                    h: 2.0 * dot,
+                },
+                0.0,
+            );
+        }
     }
     canvas.fill_area(area, 1.0);
-    canvas.stroke_area(area, if label.emphasis { 0.8 } else { 0.25 }, 0.0);
-    let line_h = line_height_mm(LABEL_PT);
-    let mut baseline = area.top() - 0.7 - line_h * 0.78;
+    let frame_mm = match label.style {
+        LabelStyle::Zone { emphasis: true } => 0.8,
+        LabelStyle::Zone { emphasis: false } | LabelStyle::Table => 0.25,
+        LabelStyle::Plane => 0.15,
+    };
+    canvas.stroke_area(area, frame_mm, 0.0);
+    let size = label.style.size_pt();
+    let line_h = line_height_mm(size);
+    let pad = (area.h - lines.len() as f64 * line_h) / 2.0;
+    let mut baseline = area.top() - pad - line_h * 0.78;
+    let (x, align) = if label.style == LabelStyle::Table {
+        (area.x + 1.2, Align::Left)
+    } else {
+        (area.x + area.w / 2.0, Align::Center)
+    };
     for (i, line) in lines.iter().enumerate() {
         let font = if i == 0 { Font::Bold } else { Font::Regular };
-        canvas.text(
-            area.x + area.w / 2.0,
-            baseline,
-            line,
-            font,
-            LABEL_PT,
-            Align::Center,
-        );
+        canvas.text(x, baseline, line, font, size, align);
         baseline -= line_h;
     }
+    canvas.note_plan_label(&lines.join(" / "), area);
 }

@@ -19,6 +19,7 @@ mod geometry;
 mod labels;
 mod line_table;
 mod page;
+mod plan_marks;
 mod report;
 mod text;
 
@@ -234,6 +235,11 @@ const SCHEDULE_KIND: &str = "Roof sheathing nailing schedule";
 /// the caller warns when this is more than `options.crew_pages` asked for. The pattern is never cut
 /// short to fit.
 pub fn crew_sheet_pages(schedule: &Schedule, options: &PdfOptions) -> usize {
+    crew_sheet_alone(schedule, options).len()
+}
+
+/// The crew sheet's pages on their own, laid out as `options` ask.
+fn crew_sheet_alone(schedule: &Schedule, options: &PdfOptions) -> Vec<Canvas> {
     let landscape = Frame::new(
         Paper::for_units(schedule.basis.units, true),
         &cautions_of(schedule),
@@ -248,7 +254,40 @@ pub fn crew_sheet_pages(schedule: &Schedule, options: &PdfOptions) -> usize {
             basis_pages: 0,
         },
     )
-    .len()
+}
+
+/// One piece of text set on the crew sheet's plan drawing and the box it takes, mm from the page's
+/// lower-left corner.
+#[derive(Debug, Clone, PartialEq)]
+pub struct PlanLabelBox {
+    /// The text (a label's lines joined by " / ").
+    pub text: String,
+    pub x_mm: f64,
+    pub y_mm: f64,
+    pub w_mm: f64,
+    pub h_mm: f64,
+}
+
+/// Every label on the crew sheet's plan (line numbers, dimensions, the scale bar, plane names, zone
+/// labels and the roof-line table) with its box, as `options` lay the sheet out: for checks that no
+/// two of them overlap.
+pub fn plan_label_boxes(schedule: &Schedule, options: &PdfOptions) -> Vec<PlanLabelBox> {
+    let pages = crew_sheet_alone(schedule, options);
+    pages
+        .first()
+        .map(|page| {
+            page.plan_labels()
+                .iter()
+                .map(|(text, area)| PlanLabelBox {
+                    text: text.clone(),
+                    x_mm: area.x,
+                    y_mm: area.y,
+                    w_mm: area.w,
+                    h_mm: area.h,
+                })
+                .collect()
+        })
+        .unwrap_or_default()
 }
 
 /// The document's metadata.
