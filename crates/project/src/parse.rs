@@ -438,6 +438,7 @@ fn read_overrides(root: &ObjectReader) -> Result<Vec<CurveOverride>, ProjectErro
                     path: format!("{path}.source (where the values come from)"),
                 })?
                 .to_string();
+            limits::SOURCE_CHARS.check_count(&format!("{path}.source"), source.chars().count())?;
             let Some(Value::Array(raw_points)) = block.get("points") else {
                 return Err(ProjectError::WrongType {
                     path: format!("{path}.points"),
