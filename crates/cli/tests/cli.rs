@@ -483,29 +483,28 @@ fn a_closed_pipe_ends_the_run_quietly() {
     );
 }
 
-/// `--crew-pages 1`: the demo's pattern fits under its plan (no warning); the US hip roof's 88 lines in
-/// 14 patterns do not, and the run says so instead of cutting rows. Regression values of our own layout.
+/// `--crew-pages 1`: the demo's and the US hip roof's patterns fit under their plans (no warning); the L
+/// hip bungalow's 102 lines do not, and the run says so instead of cutting rows. Regression values of
+/// our own layout.
 #[test]
 fn crew_pages_warns_when_the_pattern_does_not_fit() {
     let folder = tempfile::tempdir().expect("temp dir");
-    let demo = folder.path().join("demo");
-    deckhold()
-        .args(["run", "--crew-pages", "1", "--out"])
-        .arg(&demo)
-        .assert()
-        .success()
-        .stdout(predicate::str::contains("--crew-pages").not());
-    let hip = folder.path().join("hip");
-    deckhold()
-        .args(["run"])
-        .arg(fixture("us-hip.json"))
-        .args(["--crew-pages", "1", "--out"])
-        .arg(&hip)
-        .assert()
-        .success()
-        .stdout(predicate::str::contains(
-            "--crew-pages 1: the nailing pattern of the 88 framing lines does not fit; the crew sheet takes 2 pages",
-        ));
+    let one_page = |name: &str| {
+        let output = deckhold()
+            .arg("run")
+            .arg(fixture(name))
+            .args(["--crew-pages", "1", "--out"])
+            .arg(folder.path().join(name))
+            .output()
+            .expect("runs");
+        assert!(output.status.success(), "{name}");
+        String::from_utf8(output.stdout).expect("UTF-8")
+    };
+    assert!(!one_page("demo-ca-gable.json").contains("--crew-pages"));
+    assert!(!one_page("us-hip.json").contains("--crew-pages"));
+    assert!(one_page("ca-l-hip-bungalow.json").contains(
+        "--crew-pages 1: the nailing pattern of the 102 framing lines does not fit; the crew sheet takes 2 pages",
+    ));
     deckhold()
         .args(["run", "--crew-pages", "0"])
         .assert()

@@ -91,8 +91,15 @@ pub(crate) fn pattern_rows(schedule: &Schedule) -> Vec<PatternRow> {
     rows
 }
 
-/// The pattern table into `flow`: a heading, how to read it, and one row per pattern.
-pub(crate) fn pattern_table(flow: &mut Flow, schedule: &Schedule, rows: &[PatternRow]) {
+/// The pattern table into `flow`: a heading, how to read it, and one row per pattern; `with_notes` puts
+/// how the lines are numbered and where laying starts above it (when the crew sheet's column has no
+/// room for them).
+pub(crate) fn pattern_table(
+    flow: &mut Flow,
+    schedule: &Schedule,
+    rows: &[PatternRow],
+    with_notes: bool,
+) {
     let member = &schedule.framing_member;
     flow.heading(&format!(
         "NAILING ALONG EACH {} LINE ({} lines, {} patterns)",
@@ -100,26 +107,28 @@ pub(crate) fn pattern_table(flow: &mut Flow, schedule: &Schedule, rows: &[Patter
         schedule.lines.len(),
         rows.len()
     ));
-    if let Some(numbering) = super::crew_notes::numbering_sentence(schedule) {
-        flow.paragraph(&numbering, 7.0);
+    if with_notes {
+        if let Some(numbering) = super::crew_notes::numbering_sentence(schedule) {
+            flow.paragraph(&numbering, 7.0);
+        }
     }
     flow.paragraph(
-        &format!(
-            "Lines nailed alike share a row; the spacing holds up to each mark. Kind: common {member}, \
-             end-wall (over a wall along the framing), hip, jack (eave to hip or valley), valley, blocking."
-        ),
+        "Lines nailed alike share a row; the spacing holds up to each mark. Kind: end-wall is over a wall \
+         along the framing, jack runs from the eave to a hip or valley.",
         7.0,
     );
-    flow.paragraph(&super::crew_notes::laying_sentence(schedule), 7.0);
+    if with_notes {
+        flow.paragraph(&super::crew_notes::laying_sentence(schedule), 7.0);
+    }
     let marks_title = if schedule.basis.units.is_us() {
         "spacing (in o.c.) up to each mark (ft-in up from the eave end)"
     } else {
         "spacing (mm o.c.) up to each mark (m up from the eave end)"
     };
     let columns = [
-        Column::new("lines", 0.33, Align::Left),
-        Column::new("kind", 0.1, Align::Left),
-        Column::new(marks_title, 0.57, Align::Left),
+        Column::new("lines", 0.36, Align::Left),
+        Column::new("kind", 0.09, Align::Left),
+        Column::new(marks_title, 0.55, Align::Left),
     ];
     let groups: Vec<Vec<Row>> = rows
         .iter()

@@ -79,7 +79,7 @@ pub(crate) struct CrewLayout<'a> {
 
 /// Share of the plan's column the pattern table may take on a one-page crew sheet: the plan keeps at
 /// least the rest, so it stays readable.
-const PATTERN_SHARE_MAX: f64 = 0.55;
+const PATTERN_SHARE_MAX: f64 = 0.58;
 
 /// The crew sheet's pages: page 1 (plan, nail, spacing per zone and role, notes, sign-off), then the
 /// nailing pattern line group by line group, under the plan when one page was asked for and it fits,
@@ -123,8 +123,37 @@ pub(crate) fn crew_sheet(schedule: &Schedule, frame: &Frame, layout: &CrewLayout
         w: body.w * DRAWING_SHARE,
         h: body.h - HEADING_H_MM,
     };
-    let (drawing, mut pages) = if layout.crew_pages == Some(1) {
-        let table_h = pattern_height_mm(schedule, frame, left, layout.pattern)
+    let column = Area {
+        x: left.right() + 5.0,
+        y: body.y,
+        w: body.right() - left.right() - 5.0,
+        h: body.h - HEADING_H_MM,
+    };
+    let one_page = layout.crew_pages == Some(1);
+    // How the lines are numbered and where laying starts go in the right-hand column when they fit
+    // there (a trial run of the column says), else with the pattern table under the plan.
+    let in_column = !one_page || {
+        let trial_refs = PageRefs {
+            pattern: "under the plan".to_string(),
+            plan_notes: true,
+            one_page,
+            line_table: 2 + layout.basis_pages,
+        };
+        let trial_notes = PlanNotes {
+            scale_denominator: None,
+            numbered_every: 1,
+        };
+        right_column(
+            &mut Canvas::new(),
+            schedule,
+            column,
+            &trial_notes,
+            &trial_refs,
+        )
+    };
+    let with_notes = !in_column;
+    let (drawing, mut pages) = if one_page {
+        let table_h = pattern_height_mm(schedule, frame, left, layout.pattern, with_notes)
             .min(left.h * PATTERN_SHARE_MAX);
         let drawing = Area {
             y: left.y + table_h,
@@ -132,7 +161,7 @@ pub(crate) fn crew_sheet(schedule: &Schedule, frame: &Frame, layout: &CrewLayout
             ..left
         };
         let mut flow = Flow::within(frame, Area { h: table_h, ..left });
-        pattern_table(&mut flow, schedule, layout.pattern);
+        pattern_table(&mut flow, schedule, layout.pattern, with_notes);
         let mut pages = flow.finish();
         if !pages.is_empty() {
             canvas.append(pages.remove(0));
@@ -140,32 +169,40 @@ pub(crate) fn crew_sheet(schedule: &Schedule, frame: &Frame, layout: &CrewLayout
         (drawing, pages)
     } else {
         let mut flow = Flow::new(frame);
-        pattern_table(&mut flow, schedule, layout.pattern);
+        pattern_table(&mut flow, schedule, layout.pattern, true);
         (left, flow.finish())
     };
     let notes = draw_plan(&mut canvas, drawing, schedule, &frame.paper);
-    let pattern_on_page = layout.crew_pages == Some(1);
     let refs = PageRefs {
-        pattern: match (pattern_on_page, pages.is_empty()) {
+        pattern: match (one_page, pages.is_empty()) {
             (true, true) => "under the plan",
             (true, false) => "under the plan, continued on page 2",
             (false, _) => "on page 2",
         }
         .to_string(),
-        pattern_on_page,
+        plan_notes: in_column,
+        one_page,
         line_table: 2 + pages.len() + layout.basis_pages,
     };
+    right_column(&mut canvas, schedule, column, &notes, &refs);
+    pages.insert(0, canvas);
+    pages
+}
 
-    let column = Area {
-        x: drawing.right() + 5.0,
-        y: body.y,
-        w: body.right() - drawing.right() - 5.0,
-        h: body.h - HEADING_H_MM,
-    };
+/// The right-hand column: nail, spacing per zone and role, legend, notes, sign-off. True when the
+/// numbering and laying notes (asked for by `refs.plan_notes`) found room.
+fn right_column(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    column: Area,
+    notes: &PlanNotes,
+    refs: &PageRefs,
+) -> bool {
+    let imperial = schedule.basis.units == Units::Imperial;
     let mut y = column.top();
-    y = nail_block(&mut canvas, schedule, column, y, imperial);
+    y = nail_block(canvas, schedule, column, y, imperial);
     if !schedule.feasible || schedule.zones.iter().any(|row| row.spacing_mm.is_none()) {
-        y = infeasible_box(&mut canvas, schedule, column, y);
+        y = infeasible_box(canvas, schedule, column, y);
     }
     // The sign-off block is always drawn: the notes above give way to it, never the other way round.
     let above_sign_off = Area {
@@ -173,27 +210,34 @@ pub(crate) fn crew_sheet(schedule: &Schedule, frame: &Frame, layout: &CrewLayout
         h: column.h - SIGN_OFF_H_MM - 1.0,
         ..column
     };
-    y = spacing_table(&mut canvas, schedule, above_sign_off, y, imperial);
-    y = line_legend(&mut canvas, schedule, above_sign_off, y, &notes);
-    footnotes(&mut canvas, schedule, above_sign_off, y, &notes, &refs);
-    sign_off(&mut canvas, schedule, column);
-    pages.insert(0, canvas);
-    pages
+    y = spacing_table(canvas, schedule, above_sign_off, y, imperial);
+    y = line_legend(canvas, schedule, above_sign_off, y, notes);
+    let placed = footnotes(canvas, schedule, above_sign_off, y, notes, refs);
+    sign_off(canvas, schedule, column);
+    placed
 }
 
 /// Where the crew finds the rest: the pattern by line group, and the engineer's line-by-line table.
 struct PageRefs {
     pattern: String,
-    /// The pattern (with the numbering and laying notes) starts on page 1, under the plan.
-    pattern_on_page: bool,
+    /// The numbering and laying notes belong in this column (else they head the pattern table).
+    plan_notes: bool,
+    /// The pattern is under the plan (`--crew-pages 1`).
+    one_page: bool,
     line_table: usize,
 }
 
 /// Height the pattern table takes at the foot of `left`, mm; more than `left` holds when it would run
 /// onto a second page.
-fn pattern_height_mm(schedule: &Schedule, frame: &Frame, left: Area, rows: &[PatternRow]) -> f64 {
+fn pattern_height_mm(
+    schedule: &Schedule,
+    frame: &Frame,
+    left: Area,
+    rows: &[PatternRow],
+    with_notes: bool,
+) -> f64 {
     let mut trial = Flow::within(frame, left);
-    pattern_table(&mut trial, schedule, rows);
+    pattern_table(&mut trial, schedule, rows, with_notes);
     let (pages, y) = trial.position();
     if pages > 1 {
         f64::INFINITY
@@ -633,6 +677,7 @@ fn line_legend(
 /// Size of the crew sheet's notes, pt.
 const NOTE_PT: f64 = 7.0;
 
+/// The notes under the legend; true when the numbering and laying notes, if asked for, were placed.
 fn footnotes(
     canvas: &mut Canvas,
     schedule: &Schedule,
@@ -640,7 +685,7 @@ fn footnotes(
     mut y: f64,
     notes: &PlanNotes,
     refs: &PageRefs,
-) -> f64 {
+) -> bool {
     let member = &schedule.framing_member;
     let first = schedule
         .plan
@@ -659,26 +704,35 @@ fn footnotes(
     };
     let members = crate::format::plural(member);
     // Most important first: a full column drops notes that do not fit, never the sign-off block below.
-    let mut text: Vec<(String, Font)> = Vec::new();
-    if let Some(warning) = super::crew_notes::closer_intermediate_warning(schedule) {
-        text.push((warning, Font::Bold));
-    }
-    text.extend([
-        (
-            format!(
-                "The nailing along each {member} line, lines nailed alike grouped, is {}; the engineer's \
-                 line-by-line table starts on page {}.",
-                refs.pattern, refs.line_table
-            ),
-            Font::Regular,
+    // The pointer to the pattern matters less when the pattern is right under the plan.
+    let pointer = (
+        format!(
+            "The nailing along each {member} line, lines nailed alike grouped, is {}; the engineer's \
+             line-by-line table starts on page {}.",
+            refs.pattern, refs.line_table
         ),
-    ]);
-    // Under the plan, the pattern table already says how lines are numbered and where laying starts.
-    if !refs.pattern_on_page {
+        Font::Regular,
+        false,
+    );
+    let mut text: Vec<(String, Font, bool)> = Vec::new();
+    if let Some(warning) = super::crew_notes::closer_intermediate_warning(schedule) {
+        text.push((warning, Font::Bold, false));
+    }
+    if !refs.one_page {
+        text.push(pointer.clone());
+    }
+    if refs.plan_notes {
         if let Some(sentence) = super::crew_notes::numbering_sentence(schedule) {
-            text.push((sentence, Font::Regular));
+            text.push((sentence, Font::Regular, true));
         }
-        text.push((super::crew_notes::laying_sentence(schedule), Font::Regular));
+        text.push((
+            super::crew_notes::laying_sentence(schedule),
+            Font::Regular,
+            true,
+        ));
+    }
+    if refs.one_page {
+        text.push(pointer);
     }
     text.extend([
         (
@@ -686,14 +740,17 @@ fn footnotes(
                 "Panel edges: where two panels end on one {member}. Intermediate: the other {members} under a panel."
             ),
             Font::Regular,
+            false,
         ),
-        (numbering, Font::Regular),
+        (numbering, Font::Regular, false),
     ]);
-    for (paragraph, font) in text {
+    let mut placed = true;
+    for (paragraph, font, needed) in text {
         let lines = wrap(&paragraph, font, NOTE_PT, column.w);
         let h = lines.len() as f64 * line_height_mm(NOTE_PT);
         // A note that does not fit gives way; a shorter one after it may still fit.
         if y - h < column.y {
+            placed &= !needed;
             continue;
         }
         for line in lines {
@@ -702,7 +759,7 @@ fn footnotes(
         }
         y -= 1.0;
     }
-    y
+    placed
 }
 
 #[cfg(test)]
