@@ -26,6 +26,11 @@ pub struct Cli {
     /// psf, lb). Default: the basis's customary units (us for ASCE 7 with NDS, si for NBC with O86).
     #[arg(long, global = true, value_enum)]
     pub units: Option<UnitsArg>,
+    /// A coefficient table of your own (JSON, the form `deckhold catalog coefficients --template`
+    /// writes): its rows replace the built-in rows they name, for run, zones, check and compare. Takes
+    /// the place of the project file's `coefficients`.
+    #[arg(long, global = true, value_name = "FILE")]
+    pub coefficients: Option<PathBuf>,
 }
 
 /// The `--units` choice.
@@ -253,6 +258,29 @@ pub struct CatalogArgs {
     pub kind: CatalogKind,
     #[arg(long)]
     pub json: bool,
+    /// With `coefficients`: print a template of a coefficient table for this edition (the built-in
+    /// rows, an empty source to fill in) to pass to --coefficients once edited.
+    #[arg(long, value_enum, value_name = "EDITION")]
+    pub template: Option<EditionArg>,
+}
+
+/// An edition with built-in coefficient data.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, ValueEnum)]
+pub enum EditionArg {
+    #[value(name = "nbc2020")]
+    Nbc2020,
+    #[value(name = "asce7-22")]
+    Asce722,
+}
+
+impl EditionArg {
+    /// The edition's name as the data writes it.
+    pub fn edition(self) -> &'static str {
+        match self {
+            EditionArg::Nbc2020 => "NBC 2020",
+            EditionArg::Asce722 => "ASCE 7-22",
+        }
+    }
 }
 
 #[derive(Debug, Args)]

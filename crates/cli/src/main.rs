@@ -28,12 +28,13 @@ pub enum Outcome {
 fn main() -> ExitCode {
     let cli = Cli::parse();
     let units = cli.units.map(args::UnitsArg::units);
+    let table = cli.coefficients.as_deref();
     let result = match cli.command {
-        Command::Run(args) => commands::run::run(&args, units),
-        Command::Batch(args) => commands::batch::run(&args),
-        Command::Zones(args) => commands::zones::run(&args, units),
-        Command::Check(args) => commands::check::run(&args, units),
-        Command::Compare(args) => commands::compare::run(&args, units),
+        Command::Run(args) => commands::run::run(&args, units, table),
+        Command::Batch(args) => commands::batch::run(&args, table),
+        Command::Zones(args) => commands::zones::run(&args, units, table),
+        Command::Check(args) => commands::check::run(&args, units, table),
+        Command::Compare(args) => commands::compare::run(&args, units, table),
         Command::Capacity(args) => commands::capacity::run(&args, units),
         Command::Catalog(args) => commands::catalog::run(&args),
         Command::Init(args) => commands::init::run(&args),

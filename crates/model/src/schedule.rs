@@ -308,13 +308,23 @@ pub struct Schedule {
 
 /// The cautions every schedule carries. Kept here so that every writer prints the same words.
 pub fn standard_cautions() -> Vec<String> {
+    cautions_for(true)
+}
+
+/// The cautions of a schedule; `built_in_coefficients`: some zone uses a built-in coefficient row, so
+/// the 'from memory' caution stays (a user's table that gives every zone's curve drops it).
+pub fn cautions_for(built_in_coefficients: bool) -> Vec<String> {
+    let last = if built_in_coefficients {
+        "Coefficients marked 'from memory' must be checked against the printed standard before use."
+    } else {
+        "Every wind coefficient is from the user's table: check that it is the edition and figure this roof needs."
+    };
     vec![
         "For use by a qualified person: this schedule is a design aid, not a design.".to_string(),
         "Verify against the governing local building code and the nail manufacturer's specification."
             .to_string(),
         "The design must be reviewed, and sealed by a registered professional where the law requires."
             .to_string(),
-        "Coefficients marked 'from memory' must be checked against the printed standard before use."
-            .to_string(),
+        last.to_string(),
     ]
 }

@@ -96,6 +96,14 @@ pub fn run_job(project: &Project) -> Result<Job, JobError> {
 
 /// Runs the job for the given candidate nails (ids checked against the catalog).
 pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job, JobError> {
+    if let (Some(file), None) = (&project.coefficients_file, &project.wind.table) {
+        // Never a silent fallback to the built-in rows the user meant to replace.
+        return Err(crate::ProjectError::Invalid {
+            path: "coefficients".to_string(),
+            message: format!("the table {file} was not read: only run, zones, check and compare read coefficient tables"),
+        }
+        .into());
+    }
     let wind = deckhold_wind::analyze(&project.wind)?;
     let layout = deck_layout(project, &wind)?;
     let mut candidates = Vec::with_capacity(nail_ids.len());

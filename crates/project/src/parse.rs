@@ -48,6 +48,7 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
     let roof = read_roof(&root.require_object("roof")?)?;
     let site = read_wind(&root.require_object("wind")?, basis)?;
     let overrides = read_overrides(&root)?;
+    let coefficients_file = root.string("coefficients")?.map(str::to_string);
     let framing = read_framing(&root.require_object("framing")?, basis)?;
     let deck = read_deck(&root.require_object("deck")?, basis)?;
     let fasteners = crate::fasteners::read_fasteners(&root)?;
@@ -65,11 +66,13 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
             roof,
             site,
             overrides,
+            table: None,
         },
         framing,
         deck,
         nails,
         existing,
+        coefficients_file,
         units: basis.units(),
         as_written: crate::as_written::rows_from_value(value),
         fasteners,

@@ -130,6 +130,9 @@ pub struct Project {
     pub as_written: Vec<deckhold_model::InputRow>,
     /// Fasteners stated in the project file, used by id like catalog ones.
     pub fasteners: Vec<Nail>,
+    /// `coefficients`: the user's coefficient table file as written (relative to the project file).
+    /// The binary reads it into `wind.table`; a job refuses to run while it is unread.
+    pub coefficients_file: Option<String>,
 }
 
 impl Project {

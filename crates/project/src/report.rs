@@ -11,7 +11,7 @@ use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_model::format::{feet_inches, fixed, m_to_ft, thickness_label, trimmed};
 use deckhold_model::Units;
 use deckhold_model::{
-    plane_name, standard_cautions, BasisInfo, FactorRow, LayingRow, LineRow, NailInfo, PlanEdge,
+    cautions_for, plane_name, BasisInfo, FactorRow, LayingRow, LineRow, NailInfo, PlanEdge,
     PlanLine, PlanPlane, PlanView, PlanZone, ResistanceInfo, Schedule, SegmentRow, ZonePressureRow,
     ZoneRow,
 };
@@ -155,7 +155,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         warnings,
         feasible: outcome.feasible,
         alternatives: alternatives(job),
-        cautions: standard_cautions(),
+        cautions: cautions_for(wind.built_in_rows_used()),
     }
 }
 

@@ -4,12 +4,12 @@ use deckhold_core::ZoneKind;
 use serde::Serialize;
 
 use crate::basis::{Factor, PressureBasis, StandardBasis};
-use crate::coefficients::{blend, check_points, table, ZoneCurve};
+use crate::coefficients::{blend, check_points, table, Table, ZoneCurve};
 use crate::edges::{polygon_edges, wall_lines, EdgeKind, PlaneEdge, RectangleEdges};
 use crate::error::WindError;
 use crate::geometry::{area_m2, Point};
 use crate::outline::{local_roof, validate_footprint, Plan};
-use crate::types::{CurveOverride, RoofShape, SiteWind, WindInput};
+use crate::types::{CoefficientTable, CurveOverride, RoofShape, SiteWind, WindInput};
 use crate::uplift::{evaluate, evaluate_pressures, Uplift};
 use crate::zone_maps::CoefficientStatus;
 use crate::zones::{layout, Region};
@@ -80,6 +80,12 @@ pub struct WindAnalysis {
 }
 
 impl WindAnalysis {
+    /// True when some zone uses a built-in coefficient row (so the built-in data's cautions apply);
+    /// false when the user's table or overrides give every zone's whole curve.
+    pub fn built_in_rows_used(&self) -> bool {
+        self.curves.iter().any(|curve| !curve.all_user_supplied())
+    }
+
     /// Net uplift on zone `zone_index` (order of `zones`) at an effective wind area, m².
     pub fn uplift(&self, zone_index: usize, effective_area_m2: f64) -> Result<Uplift, WindError> {
         let (curve, overhang) = self.curve(zone_index)?;
@@ -189,10 +195,19 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
             )
         }
     };
-    let zones_and_curves = build_zones(&plan, &local, &basis)?;
+    let user = user_table(input.table.as_ref(), &basis)?;
+    let zones_and_curves = build_zones(&plan, &local, &basis, user)?;
     let (zones, mut curves): (Vec<Zone>, Vec<ZoneCurve>) = zones_and_curves.into_iter().unzip();
     apply_overrides(&zones, &mut curves, &input.overrides)?;
-    let mut warnings = basis.warnings.clone();
+    // The built-in data's warnings first (as before user tables), and only while some zone uses it.
+    let mut warnings = Vec::new();
+    if curves.iter().any(|curve| !curve.all_user_supplied()) {
+        warnings.extend(basis.data_warnings.iter().cloned());
+    }
+    warnings.extend(basis.warnings.iter().cloned());
+    if let Some(user) = user {
+        warnings.push(table_use(user, &zones, &curves));
+    }
     // Only when the user gave a rake overhang that differs from the eave's: a single `overhang` key
     // sets both, and then nothing is dropped.
     if roof.shape == RoofShape::Hip && roof.rake_overhang_mm != roof.eave_overhang_mm {
@@ -295,10 +310,69 @@ fn pitched_warnings(
     warnings
 }
 
+/// The user's table, checked against the edition of the analysis.
+fn user_table<'a>(
+    user: Option<&'a CoefficientTable>,
+    basis: &StandardBasis,
+) -> Result<Option<&'a CoefficientTable>, WindError> {
+    let data = table(basis.edition)?;
+    match user {
+        Some(user) if user.edition != data.edition => Err(WindError::range(
+            "coefficients",
+            format!(
+                "the table {} is for {}, but the project's basis uses {}",
+                user.file, user.edition, data.edition
+            ),
+        )),
+        other => Ok(other),
+    }
+}
+
+/// The report line naming the user's table, its stated source and the zones it gave.
+fn table_use(user: &CoefficientTable, zones: &[Zone], curves: &[ZoneCurve]) -> String {
+    let given: Vec<&str> = zones
+        .iter()
+        .zip(curves)
+        .filter(|(_, curve)| curve.status == CoefficientStatus::UserSupplied)
+        .map(|(zone, _)| zone.code_zone.as_str())
+        .collect();
+    let which = if given.is_empty() {
+        "none of this roof's zones (its rows name other figures or bands); every zone uses the built-in rows".to_string()
+    } else if given.len() == zones.len() {
+        format!("every zone ({})", given.join(", "))
+    } else {
+        format!(
+            "zones {} (the others use the built-in rows)",
+            given.join(", ")
+        )
+    };
+    format!(
+        "coefficients: the user's table {} ({}; stated source: {}) gives {which}",
+        user.file, user.edition, user.source
+    )
+}
+
+/// A zone's curve: the user's row for the set and region if the table has one, else the built-in row;
+/// overhangs add the built-in soffit.
+fn zone_curve(
+    data: &Table,
+    user: Option<&CoefficientTable>,
+    set: &str,
+    region: Region,
+    overhang: bool,
+) -> Result<ZoneCurve, WindError> {
+    let soffit = overhang.then_some(&data.soffit);
+    match user.and_then(|user| user.row(set, region).map(|row| (user, row))) {
+        Some((user, row)) => Ok(ZoneCurve::from_user(row, user, soffit)),
+        None => Ok(ZoneCurve::from_data(data.curve(set, region)?, soffit)),
+    }
+}
+
 fn build_zones(
     plan: &Plan,
     local: &crate::outline::LocalRoof,
     basis: &StandardBasis,
+    user: Option<&CoefficientTable>,
 ) -> Result<Vec<(Zone, ZoneCurve)>, WindError> {
     let data = table(basis.edition)?;
     let pieces = match (plan, &local.pitched) {
@@ -326,19 +400,18 @@ fn build_zones(
             } else {
                 name.to_string()
             };
-            let mut curve = ZoneCurve::from_data(curve_data, overhang.then_some(&data.soffit));
+            let mut curve = zone_curve(data, user, &basis.slope_set, region, overhang)?;
             if let Some(slope_blend) = &basis.slope_blend {
-                let upper = data.curve(&slope_blend.upper_set, region)?;
-                let upper_points = ZoneCurve::from_data(upper, None).points;
-                curve.points = blend(&curve.points, &upper_points, slope_blend.fraction);
+                let upper = zone_curve(data, user, &slope_blend.upper_set, region, false)?;
+                curve.points = blend(&curve.points, &upper.points, slope_blend.fraction);
                 curve.figure = format!("{} blended into {}", curve.figure, upper.figure);
                 if upper.status != curve.status {
                     // Two rows of different standing: the blend is no better than from memory.
                     curve.status = CoefficientStatus::FromMemory;
                 }
                 curve.source = format!(
-                    "{}; blended with {} zone {} ({}): {}",
-                    curve.source, upper.figure, upper.code_zone, upper.confidence, slope_blend.rule
+                    "{}; blended with {}: {}",
+                    curve.source, upper.source, slope_blend.rule
                 );
             }
             result.push((
@@ -402,8 +475,8 @@ fn apply_overrides(
 mod tests {
     use super::*;
     use crate::types::{
-        AsceWind, Building, CurvePoint, Enclosure, Exposure, Footprint, Importance, NbcWind,
-        RidgeAlong, Roof, StrengthMethod, Terrain,
+        AsceWind, Building, CoefficientTable, CurvePoint, Enclosure, Exposure, Footprint,
+        Importance, NbcWind, RidgeAlong, Roof, StrengthMethod, Terrain,
     };
     use approx::assert_relative_eq;
     use proptest::prelude::*;
@@ -454,6 +527,7 @@ mod tests {
             },
             site,
             overrides: Vec::new(),
+            table: None,
         }
     }
 
@@ -905,6 +979,59 @@ mod tests {
             );
             assert!(analysis.warnings.iter().any(|w| w.contains("reentrant")));
         }
+    }
+
+    #[test]
+    fn a_table_covering_every_zone_drops_the_built_in_cautions() {
+        // A user's table (test values, not the standard's) for all three NBC low-slope rows on a flat roof
+        // without overhangs: every curve is user-supplied, the built-in data warnings go, the table is
+        // named. With overhangs the soffit stays built-in, so the built-in rows are still in use.
+        let row = |region: &str, code_zone: &str, value: f64| crate::types::TableRow {
+            set: "slope-0-7".to_string(),
+            region: region.to_string(),
+            code_zone: code_zone.to_string(),
+            figure: "NBC 2020 Figure 4.1.7.6.-C".to_string(),
+            points: vec![CurvePoint {
+                area_m2: 1.0,
+                coefficient: value,
+            }],
+        };
+        let table = CoefficientTable {
+            file: "mine.json".to_string(),
+            edition: "NBC 2020".to_string(),
+            source: "my copy".to_string(),
+            rows: vec![
+                row("interior", "r", -1.9),
+                row("edge", "s", -2.6),
+                row("corner", "c", -5.5),
+            ],
+        };
+        let mut case = input(RoofShape::Flat, 0.0, RidgeAlong::Length, nbc_site(0.5));
+        case.roof.eave_overhang_mm = 0.0;
+        case.roof.rake_overhang_mm = 0.0;
+        case.table = Some(table.clone());
+        let analysis = analyze(&case).expect("analysis");
+        assert!(!analysis.built_in_rows_used());
+        assert!(
+            analysis.warnings.iter().all(|w| !w.contains("from memory")),
+            "{:?}",
+            analysis.warnings
+        );
+        assert!(analysis
+            .warnings
+            .iter()
+            .any(|w| w.contains("mine.json") && w.contains("every zone")));
+        assert_relative_eq!(analysis.curves[2].coefficient_at(0.5), -5.5);
+        case.roof.eave_overhang_mm = 300.0;
+        assert!(analyze(&case).expect("analysis").built_in_rows_used());
+        // A table of the other edition is refused on the key the user wrote.
+        let mut wrong = input(RoofShape::Flat, 0.0, RidgeAlong::Length, asce_site(130.0));
+        wrong.table = Some(table);
+        let error = analyze(&wrong).expect_err("edition").to_string();
+        assert!(
+            error.starts_with("coefficients: the table mine.json is for NBC 2020"),
+            "{error}"
+        );
     }
 
     #[test]

@@ -149,14 +149,15 @@ pub(crate) fn basis(
         Factor::new("wind_load_factor", wind_factor, wind_source),
         Factor::new("dead_load_factor", dead_factor, dead_source),
     ];
-    let mut warnings = vec![
+    let mut data_warnings = vec![
         "ASCE 7-22 GC_p curves are from memory or the more severe of two unconfirmed readings (severe-of-two: low-slope zone 2, gable 27-45 zone 3, hip 7-20 zones 1 and 2); check them against the printed Figure 30.3-2 series or override them".to_string(),
     ];
+    let mut warnings = Vec::new();
     if sloped && shape == RoofShape::Hip {
         warnings.push("ASCE 7-22 hip roofs: zone 3 is taken along every eave, not only at the corners (the more severe of two unconfirmed readings of the 7-22 hip zone map)".to_string());
     }
     if monoslope {
-        warnings.push("ASCE 7-22 monoslope roofs (Figures 30.3-5A and 30.3-5B): coefficients are the more severe of the figure as recalled and the rows that apply at the band's lower boundary; the zone map is from memory, with the high-eave corners taken at their larger recalled extent; check them against the printed figures or override them (--coefficients)".to_string());
+        data_warnings.push("ASCE 7-22 monoslope roofs (Figures 30.3-5A and 30.3-5B): coefficients are the more severe of the figure as recalled and the rows that apply at the band's lower boundary; the zone map is from memory, with the high-eave corners taken at their larger recalled extent; check them against the printed figures or override them (--coefficients)".to_string());
     }
     if !sloped && !monoslope {
         warnings.push("ASCE 7-22 Figure 30.3-2A: zone 1' is taken as zone 1 and the corner zone 3 as the full 0.6 h square (conservative simplification)".to_string());
@@ -185,6 +186,7 @@ pub(crate) fn basis(
         slope_blend: hip_blend(shape, slope_deg),
         factors,
         warnings,
+        data_warnings,
     })
 }
 

@@ -66,6 +66,9 @@ pub(crate) struct StandardBasis {
     pub zone_map: String,
     pub factors: Vec<Factor>,
     pub warnings: Vec<String>,
+    /// Warnings about the built-in coefficient rows (from memory, severe-of-two): printed only when some
+    /// zone uses a built-in row.
+    pub data_warnings: Vec<String>,
 }
 
 /// Edge width rule shared by both standards (NBC 2020 4.1.7.6 figures, ASCE 7-22 Figure 30.3-2 notes,

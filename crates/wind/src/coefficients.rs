@@ -210,6 +210,44 @@ impl ZoneCurve {
         }
     }
 
+    /// The curve of a user's row (the soffit, for overhangs, stays built-in and is named).
+    pub(crate) fn from_user(
+        row: &crate::types::TableRow,
+        user: &crate::types::CoefficientTable,
+        soffit: Option<&SoffitData>,
+    ) -> Self {
+        let mut source = format!(
+            "{} zone {} from the user's table {} (stated source: {})",
+            row.figure, row.code_zone, user.file, user.source
+        );
+        if let Some(soffit) = soffit {
+            source.push_str(&format!(
+                " plus soffit from {} ({})",
+                soffit.figure, soffit.confidence
+            ));
+        }
+        Self {
+            points: row.points.clone(),
+            soffit: soffit.map(|s| {
+                s.points
+                    .iter()
+                    .map(|p| CurvePoint {
+                        area_m2: p.area_m2,
+                        coefficient: p.coefficient,
+                    })
+                    .collect()
+            }),
+            source,
+            figure: format!("{} (user's table {})", row.figure, user.file),
+            status: CoefficientStatus::UserSupplied,
+        }
+    }
+
+    /// True when the curve uses no built-in row: a user's row with no built-in soffit added.
+    pub fn all_user_supplied(&self) -> bool {
+        self.status == CoefficientStatus::UserSupplied && self.soffit.is_none()
+    }
+
     /// Coefficient at an effective area, m².
     pub fn coefficient_at(&self, area_m2: f64) -> f64 {
         let roof = interpolate(&self.points, area_m2);

@@ -17,6 +17,7 @@ mod pitched_zones;
 mod roof;
 mod types;
 mod uplift;
+mod user_table;
 mod zone_maps;
 mod zones;
 
@@ -27,8 +28,10 @@ pub use deckhold_core::{RoofShape, ZoneKind};
 pub use edges::{EdgeKind, PlaneEdge};
 pub use error::WindError;
 pub use types::{
-    AsceWind, Building, CurveOverride, CurvePoint, Enclosure, Exposure, Footprint, Importance,
-    NbcWind, RidgeAlong, Roof, SiteWind, StrengthMethod, Terrain, WindInput,
+    AsceWind, Building, CoefficientTable, CurveOverride, CurvePoint, Enclosure, Exposure,
+    Footprint, Importance, NbcWind, RidgeAlong, Roof, SiteWind, StrengthMethod, TableRow, Terrain,
+    WindInput,
 };
 pub use uplift::Uplift;
+pub use user_table::{coefficient_table_template, parse_coefficient_table};
 pub use zone_maps::CoefficientStatus;

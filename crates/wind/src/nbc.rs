@@ -107,14 +107,15 @@ pub(crate) fn basis(
         Factor::new("wind_load_factor", wind_factor, wind_source),
         Factor::new("dead_load_factor", dead_factor, dead_source),
     ];
-    let mut warnings = vec![
+    let mut data_warnings = vec![
         "NBC 2020 C_pC_g curves are from memory; check them against the printed Figures 4.1.7.6.-C and -E or override them".to_string(),
     ];
+    let warnings = Vec::new();
     if monoslope {
-        warnings.push("NBC 2020 monoslope roofs: the values of the Commentary I monoslope figure could not be recalled or confirmed; each zone takes the more severe of the Figure 4.1.7.6.-C row and the sloped-roof reading (a stand-in), on a zone map from memory with the high eave zoned apart; check against the printed figure or override them (--coefficients)".to_string());
+        data_warnings.push("NBC 2020 monoslope roofs: the values of the Commentary I monoslope figure could not be recalled or confirmed; each zone takes the more severe of the Figure 4.1.7.6.-C row and the sloped-roof reading (a stand-in), on a zone map from memory with the high eave zoned apart; check against the printed figure or override them (--coefficients)".to_string());
     }
     if sloped {
-        warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
+        data_warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
     }
     // The figure of the band decides which strips the layout draws (zone_maps.rs).
     let band_figure = figure(&data.figures, &slope_set, &data.edition)?;
@@ -139,6 +140,7 @@ pub(crate) fn basis(
         slope_blend: None,
         factors,
         warnings,
+        data_warnings,
     })
 }
 
@@ -193,7 +195,10 @@ mod tests {
         // q C_e with h_ref = 6 m (open terrain): 0.5 × 0.6^0.2.
         assert_relative_eq!(result.q_kpa, 0.5 * 0.6f64.powf(0.2), max_relative = 1e-12);
         assert_eq!(result.slope_set, "gable-hip-7-27");
-        assert!(result.warnings.iter().any(|w| w.contains("more severe")));
+        assert!(result
+            .data_warnings
+            .iter()
+            .any(|w| w.contains("more severe")));
     }
 
     #[test]

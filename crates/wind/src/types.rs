@@ -126,10 +126,34 @@ pub struct CurveOverride {
     pub source: String,
 }
 
+/// One row of a user's coefficient table: replaces the built-in row of the same set and region.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct TableRow {
+    pub set: String,
+    pub region: String,
+    pub code_zone: String,
+    pub figure: String,
+    pub points: Vec<CurvePoint>,
+}
+
+/// A user's coefficient table (`--coefficients FILE`), parsed by `parse_coefficient_table`.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct CoefficientTable {
+    /// The file as the user named it, for the reports.
+    pub file: String,
+    /// The edition the rows belong to (`NBC 2020` or `ASCE 7-22`).
+    pub edition: String,
+    /// Where the values come from, as the user stated it.
+    pub source: String,
+    pub rows: Vec<TableRow>,
+}
+
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct WindInput {
     pub building: Building,
     pub roof: Roof,
     pub site: SiteWind,
     pub overrides: Vec<CurveOverride>,
+    /// The user's own coefficient table, if any: its rows replace the built-in rows they name.
+    pub table: Option<CoefficientTable>,
 }

@@ -48,6 +48,7 @@ fn input(shape: RoofShape, slope_deg: f64, eave_height_m: f64, site: SiteWind) -
         },
         site,
         overrides: Vec::new(),
+        table: None,
     }
 }
 

@@ -18,7 +18,13 @@ use crate::batch::work::{work_row, BatchContext, Counts, RowResult, STAGES};
 use crate::Outcome;
 use deckhold_schedule::summary_header_csv;
 
-pub fn run(args: &BatchArgs) -> Result<Outcome> {
+pub fn run(args: &BatchArgs, table: Option<&std::path::Path>) -> Result<Outcome> {
+    if let Some(table) = table {
+        anyhow::bail!(
+            "--coefficients {}: batch does not read coefficient tables; run the roofs one by one with run --coefficients",
+            table.display()
+        );
+    }
     let started = Instant::now();
     let base = read_base(&args.base)?;
     let file = File::open(&args.roofs)

@@ -142,6 +142,6 @@ pub fn run(args: &CapacityArgs, units: Option<Units>) -> Result<Outcome> {
     for warning in &resistance.warnings {
         outln!("Warning: {warning}");
     }
-    out!("{}", caution_lines());
+    out!("{}", caution_lines(true));
     Ok(Outcome::Works)
 }

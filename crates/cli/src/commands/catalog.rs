@@ -8,6 +8,9 @@ use crate::table::Table;
 use crate::Outcome;
 
 pub fn run(args: &CatalogArgs) -> Result<Outcome> {
+    if args.template.is_some() && !matches!(args.kind, CatalogKind::Coefficients) {
+        anyhow::bail!("--template: only `deckhold catalog coefficients` writes a template");
+    }
     match args.kind {
         CatalogKind::Nails => {
             let nails = deckhold_fasten::nails();
@@ -82,7 +85,13 @@ pub fn run(args: &CatalogArgs) -> Result<Outcome> {
             }
             out!("{}", table.render());
         }
-        CatalogKind::Coefficients => coefficients(args.json)?,
+        CatalogKind::Coefficients => match args.template {
+            Some(edition) => {
+                let template = deckhold_wind::coefficient_table_template(edition.edition())?;
+                outln!("{}", serde_json::to_string_pretty(&template)?);
+            }
+            None => coefficients(args.json)?,
+        },
     }
     Ok(Outcome::Works)
 }

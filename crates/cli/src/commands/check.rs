@@ -13,8 +13,12 @@ use deckhold_project::{check_pattern, ExistingPattern, PatternSpacing};
 use deckhold_schedule::format::force_label;
 use deckhold_schedule::Units;
 
-pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
-    let project = load_project(Some(&args.project), units)?;
+pub fn run(
+    args: &CheckArgs,
+    units: Option<Units>,
+    table: Option<&std::path::Path>,
+) -> Result<Outcome> {
+    let project = load_project(Some(&args.project), units, table)?;
     let pattern = pattern_from(args, project.existing.as_ref())?;
     let wind =
         deckhold_wind::analyze(&project.wind).context("the wind zones could not be computed")?;
@@ -125,7 +129,7 @@ pub fn run(args: &CheckArgs, units: Option<Units>) -> Result<Outcome> {
                 "The pattern FAILS."
             }
         );
-        out!("{}", caution_lines());
+        out!("{}", caution_lines(wind.built_in_rows_used()));
     }
     Ok(if passes {
         Outcome::Works

@@ -96,8 +96,12 @@ fn compare_row(
     })
 }
 
-pub fn run(args: &CompareArgs, units: Option<Units>) -> Result<Outcome> {
-    let project = load_project(args.project.as_deref(), units)?;
+pub fn run(
+    args: &CompareArgs,
+    units: Option<Units>,
+    table: Option<&std::path::Path>,
+) -> Result<Outcome> {
+    let project = load_project(args.project.as_deref(), units, table)?;
     let nail_ids: Vec<String> = if args.nails.is_empty() {
         fitting_nails(&project)
     } else {
@@ -146,7 +150,7 @@ pub fn run(args: &CompareArgs, units: Option<Units>) -> Result<Outcome> {
         );
     } else {
         out!("{}", console_text(&job, &order, &comparison));
-        out!("{}", caution_lines());
+        out!("{}", caution_lines(job.wind.built_in_rows_used()));
     }
     Ok(Outcome::Works)
 }

@@ -21,8 +21,13 @@ use deckhold_schedule::Units;
 use std::path::Path;
 
 /// Reads and validates the project file, or the built-in demo when none is given; `units` (from
-/// `--units`) replaces the basis's customary units for every output.
-pub fn load_project(path: Option<&Path>, units: Option<Units>) -> Result<Project> {
+/// `--units`) replaces the basis's customary units for every output; `table` (from `--coefficients`)
+/// is read in place of the project file's `coefficients` (a path relative to the project file).
+pub fn load_project(
+    path: Option<&Path>,
+    units: Option<Units>,
+    table: Option<&Path>,
+) -> Result<Project> {
     let mut project = match path {
         None => parse_project(DEMO_PROJECT_JSON).context("the built-in demo project")?,
         Some(path) => {
@@ -33,31 +38,53 @@ pub fn load_project(path: Option<&Path>, units: Option<Units>) -> Result<Project
     if let Some(units) = units {
         project.units = units;
     }
+    let table_path = match (table, &project.coefficients_file) {
+        (Some(table), _) => Some(table.to_path_buf()),
+        (None, Some(file)) => Some(
+            path.and_then(Path::parent)
+                .unwrap_or_else(|| Path::new(""))
+                .join(file),
+        ),
+        (None, None) => None,
+    };
+    if let Some(table_path) = table_path {
+        let text = read_bounded_as(&table_path, "coefficient table")?;
+        let name = table_path.display().to_string();
+        let table = deckhold_wind::parse_coefficient_table(&name, &text)?;
+        project.coefficients_file = Some(name);
+        project.wind.table = Some(table);
+    }
     Ok(project)
 }
 
 /// Reads a project file as text, stopping at the file-size limit: a huge file or an endless stream
 /// (`/dev/zero`) is refused at once instead of filling memory.
 pub fn read_bounded(path: &Path) -> Result<String> {
+    read_bounded_as(path, "project file")
+}
+
+/// Reads a file the user named (`what` says which, in messages) as text, stopping at the file-size
+/// limit.
+pub fn read_bounded_as(path: &Path, what: &str) -> Result<String> {
     use std::io::Read;
     let limit = deckhold_core::limits::FILE_SIZE;
     let max_bytes = limit.max_count();
     let file = std::fs::File::open(path)
-        .with_context(|| format!("cannot read the project file {}", path.display()))?;
+        .with_context(|| format!("cannot read the {what} {}", path.display()))?;
     let mut bytes = Vec::new();
     file.take(max_bytes as u64 + 1)
         .read_to_end(&mut bytes)
-        .with_context(|| format!("cannot read the project file {}", path.display()))?;
+        .with_context(|| format!("cannot read the {what} {}", path.display()))?;
     if bytes.len() > max_bytes {
         anyhow::bail!(
-            "the project file {} is larger than {max_bytes} bytes, the limit for a project file ({})",
+            "the {what} {} is larger than {max_bytes} bytes, the limit for a file ({})",
             path.display(),
             limit.reason
         );
     }
     String::from_utf8(bytes).map_err(|error| {
         anyhow::anyhow!(
-            "the project file {} is not UTF-8 text (invalid byte at offset {})",
+            "the {what} {} is not UTF-8 text (invalid byte at offset {})",
             path.display(),
             error.utf8_error().valid_up_to()
         )
@@ -109,12 +136,18 @@ pub fn write_csv_and_pdf(
     Ok(())
 }
 
-/// The cautions printed under every table.
-pub fn caution_lines() -> String {
+/// The cautions printed under every table; `built_in_coefficients`: some zone uses a built-in
+/// coefficient row (`WindAnalysis::built_in_rows_used`), so the 'from memory' caution stays.
+pub fn caution_lines(built_in_coefficients: bool) -> String {
+    caution_lines_of(&deckhold_schedule::cautions_for(built_in_coefficients))
+}
+
+/// The cautions of a schedule, as printed under its table.
+pub fn caution_lines_of(cautions: &[String]) -> String {
     let mut text = String::from("\nCautions:\n");
-    for caution in deckhold_schedule::standard_cautions() {
+    for caution in cautions {
         text.push_str("  - ");
-        text.push_str(&caution);
+        text.push_str(caution);
         text.push('\n');
     }
     text

@@ -37,7 +37,7 @@ pub fn run(
         );
     } else {
         out!("{}", console_text(project, &retrofit));
-        out!("{}", caution_lines());
+        out!("{}", caution_lines(wind.built_in_rows_used()));
     }
     Ok(if retrofit.passes() {
         Outcome::Works

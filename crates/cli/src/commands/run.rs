@@ -5,7 +5,7 @@ use deckhold_schedule::format::fixed;
 use serde_json::json;
 use std::time::Instant;
 
-use super::{caution_lines, load_project, spacing_text};
+use super::{caution_lines_of, load_project, spacing_text};
 use crate::args::RunArgs;
 use crate::output::{write_all_atomically, OutputSet};
 use crate::table::Table;
@@ -22,14 +22,18 @@ use deckhold_schedule::{
 /// The files `run --out` writes, in order (schedule.json only with --json).
 const FILE_NAMES: [&str; 3] = ["schedule.csv", "rafter-lines.csv", "schedule.pdf"];
 
-pub fn run(args: &RunArgs, units: Option<Units>) -> Result<Outcome> {
+pub fn run(
+    args: &RunArgs,
+    units: Option<Units>,
+    table: Option<&std::path::Path>,
+) -> Result<Outcome> {
     let mut stages: Vec<(&str, f64)> = Vec::new();
     let mut clock = Instant::now();
     let mut lap = |name: &'static str| {
         stages.push((name, clock.elapsed().as_secs_f64() * 1000.0));
         clock = Instant::now();
     };
-    let project = load_project(args.project.as_deref(), units)?;
+    let project = load_project(args.project.as_deref(), units, table)?;
     lap("parse");
     let job = run_job(&project).context("the job could not be run")?;
     lap("wind + resistance + spacing");
@@ -259,6 +263,6 @@ fn summary_text(schedule: &Schedule) -> String {
             text.push_str(&format!("  - {warning}\n"));
         }
     }
-    text.push_str(&caution_lines());
+    text.push_str(&caution_lines_of(&schedule.cautions));
     text
 }

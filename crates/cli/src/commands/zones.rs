@@ -16,8 +16,12 @@ use deckhold_schedule::Units;
 /// A nail holds well under a square metre; 0.1 m² is on the figures' small-area plateau.
 const DEFAULT_AREA_M2: f64 = 0.1;
 
-pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
-    let project = load_project(args.project.as_deref(), units)?;
+pub fn run(
+    args: &ZonesArgs,
+    units: Option<Units>,
+    table: Option<&std::path::Path>,
+) -> Result<Outcome> {
+    let project = load_project(args.project.as_deref(), units, table)?;
     let area_m2 = match (args.area_m2, args.area_ft2) {
         (Some(area_m2), _) => area_m2,
         (None, Some(area_ft2)) => area_ft2 * M_PER_FT * M_PER_FT,
@@ -60,7 +64,7 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
             "mean_roof_height_m": wind.mean_roof_height_m,
             "zones": zones,
             "warnings": wind.warnings,
-            "cautions": deckhold_schedule::standard_cautions(),
+            "cautions": deckhold_schedule::cautions_for(wind.built_in_rows_used()),
         });
         outln!("{}", serde_json::to_string_pretty(&value)?);
         return Ok(Outcome::Works);
@@ -121,6 +125,6 @@ pub fn run(args: &ZonesArgs, units: Option<Units>) -> Result<Outcome> {
     for warning in &wind.warnings {
         outln!("Warning: {warning}");
     }
-    out!("{}", caution_lines());
+    out!("{}", caution_lines(wind.built_in_rows_used()));
     Ok(Outcome::Works)
 }
