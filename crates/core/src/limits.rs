@@ -263,7 +263,7 @@ pub const MONOSLOPE_SLOPE_DEG: Limit = limit(
     0.0,
     30.0,
     "deg",
-    "up to 3 deg the low-slope figures apply; 3 to 30 deg the monoslope figures (ASCE 7-22 Figures 30.3-5A and 5B, NBC 2020 Structural Commentary I); they stop at 30 deg",
+    "up to 3 deg the low-slope figures apply; 3 to 30 deg the monoslope figures (ASCE 7-22 Figures 30.3-5A and 5B, NBC 2020 Figure 4.1.7.6.-G per 4.1.7.6.(8)); they stop at 30 deg",
 );
 pub const OVERHANG_MM: Limit = limit(
     "roof.overhang_mm, .eave_overhang_mm, .rake_overhang_mm",

@@ -139,7 +139,7 @@ pub fn analyze(input: &WindInput) -> Result<WindAnalysis, WindError> {
             return Err(WindError::unsupported(
                 "roof.slope_deg",
                 format!(
-                    "{:.1} deg is over 30 deg for a monoslope roof: the monoslope figures (ASCE 7-22 Figure 30.3-5B, NBC 2020 Commentary I) stop at 30 deg",
+                    "{:.1} deg is over 30 deg for a monoslope roof: the monoslope figures (ASCE 7-22 Figure 30.3-5B, NBC 2020 Figure 4.1.7.6.-G) stop at 30 deg",
                     roof.slope_deg
                 ),
             ));

@@ -18,7 +18,8 @@ pub(crate) fn exposure_factor(terrain: Terrain, height_m: f64) -> f64 {
     }
 }
 
-/// Monoslope roofs up to this slope use Figure 4.1.7.6.-C (4.1.7.6.(8), as the limits table says), deg.
+/// Monoslope roofs up to this slope use Figure 4.1.7.6.-C, steeper ones Figure 4.1.7.6.-G (4.1.7.6.(8),
+/// checked against the clause text on codeindex.ca), deg.
 const MONOSLOPE_FROM_DEG: f64 = 3.0;
 
 /// The NBC part of an analysis.
@@ -112,7 +113,7 @@ pub(crate) fn basis(
     ];
     let warnings = Vec::new();
     if monoslope {
-        data_warnings.push("NBC 2020 monoslope roofs: the values of the Commentary I monoslope figure could not be recalled or confirmed; each zone takes the more severe of the Figure 4.1.7.6.-C row and the sloped-roof reading (a stand-in), on a zone map from memory with the high eave zoned apart; check against the printed figure or override them (--coefficients)".to_string());
+        data_warnings.push("NBC 2020 monoslope roofs (Figure 4.1.7.6.-G): its values could not be recalled or confirmed; each zone takes the more severe of the Figure 4.1.7.6.-C row and the sloped-roof reading (a stand-in), on a zone map from memory with the high eave zoned apart; check against the printed figure or override them (--coefficients)".to_string());
     }
     if sloped {
         data_warnings.push("NBC 2020 Figure 4.1.7.6.-E (sloped roofs): two readings differ and neither is confirmed; the more severe is used (corner / edge / interior -5.0 / -3.6 / -2.5, held at all areas, against -3.8 / -2.5 / -1.3 from memory)".to_string());
