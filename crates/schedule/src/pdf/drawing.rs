@@ -546,78 +546,129 @@ fn draw_line_numbers(
         .map(|line| width_mm(&line.number.to_string(), Font::Regular, NUMBER_PT))
         .fold(0.0, f64::max);
     let needed = if vertical_lines { max_w + 1.0 } else { 2.6 };
-    let step = [1u32, 2, 5, 10, 20, 50, 100, 200, 500, 1000]
-        .into_iter()
-        .find(|step| f64::from(*step) * typical_gap >= needed)
-        .unwrap_or(1000);
     let first = lines[0].number;
-    let last_labelled = |number: u32| (number - first).is_multiple_of(step);
     let final_number = lines[lines.len() - 1].number;
-    let previous_labelled = final_number - (final_number - first) % step;
-    let label_final = f64::from(final_number - previous_labelled) * typical_gap >= needed;
-    for line in &lines {
-        if !(last_labelled(line.number) || (line.number == final_number && label_final)) {
+    // The numbers drawn every `step` lines (and the last line's when there is room for it).
+    let numbered = |step: u32| -> Vec<NumberPlace> {
+        let previous_labelled = final_number - (final_number - first) % step;
+        let label_final = f64::from(final_number - previous_labelled) * typical_gap >= needed;
+        lines
+            .iter()
+            .filter(|line| {
+                (line.number - first).is_multiple_of(step)
+                    || (line.number == final_number && label_final)
+            })
+            .map(|line| number_place(line, transform, center_m))
+            .collect()
+    };
+    // The first step that leaves room by the typical gap, made coarser while two numbers would still
+    // share a place (lines of two planes ending side by side, as at an inside corner).
+    let steps = [1u32, 2, 5, 10, 20, 50, 100, 200, 500, 1000];
+    let start = steps
+        .iter()
+        .position(|step| f64::from(*step) * typical_gap >= needed)
+        .unwrap_or(steps.len() - 1);
+    let mut step = steps[steps.len() - 1];
+    let mut places = Vec::new();
+    for candidate in &steps[start..] {
+        let tried = numbered(*candidate);
+        let clear = tried.iter().enumerate().all(|(i, p)| {
+            tried[i + 1..]
+                .iter()
+                .all(|q| !p.area.overlaps(&q.area, 0.0))
+        });
+        step = *candidate;
+        places = tried;
+        if clear {
+            break;
+        }
+    }
+    for place in places {
+        // Never one number over another, even when no step clears them all.
+        if obstacles
+            .iter()
+            .any(|other| place.area.overlaps(other, 0.0))
+        {
             continue;
         }
-        let (a, b) = (transform.page(line.start_m), transform.page(line.end_m));
-        let text = line.number.to_string();
-        let w = width_mm(&text, Font::Regular, NUMBER_PT);
-        let side = label_side(line, center_m);
-        // Baseline point, alignment and the box the number takes.
-        let (at, align, area) = match side {
-            LabelSide::Above => {
-                let high = if a[1] >= b[1] { a } else { b };
-                let baseline = high[1] + 1.0;
-                let area = Area {
-                    x: high[0] - w / 2.0,
-                    y: baseline - 0.4,
-                    w,
-                    h: 2.6,
-                };
-                ([high[0], baseline], Align::Center, area)
-            }
-            LabelSide::Right => {
-                let right = if a[0] >= b[0] { a } else { b };
-                let area = Area {
-                    x: right[0] + 1.2,
-                    y: right[1] - 1.2,
-                    w,
-                    h: 2.6,
-                };
-                ([right[0] + 1.2, right[1] - 0.75], Align::Left, area)
-            }
-            LabelSide::Below => {
-                let low = if a[1] <= b[1] { a } else { b };
-                let baseline = low[1] - 3.0;
-                let area = Area {
-                    x: low[0] - w / 2.0,
-                    y: baseline - 0.4,
-                    w,
-                    h: 2.6,
-                };
-                ([low[0], baseline], Align::Center, area)
-            }
-            LabelSide::Left => {
-                let left = if a[0] <= b[0] { a } else { b };
-                let area = Area {
-                    x: left[0] - 1.2 - w,
-                    y: left[1] - 1.2,
-                    w,
-                    h: 2.6,
-                };
-                ([left[0] - 1.2, left[1] - 0.75], Align::Right, area)
-            }
-        };
-        // Two numbers never share a place (lines of two planes can end side by side at a valley):
-        // the later one is left off; the line table lists every line.
-        if obstacles.iter().any(|other| area.overlaps(other, 0.0)) {
-            continue;
-        }
-        canvas.text(at[0], at[1], &text, Font::Regular, NUMBER_PT, align);
-        canvas.note_plan_label(&text, area);
-        obstacles.push(area);
+        canvas.text(
+            place.at[0],
+            place.at[1],
+            &place.text,
+            Font::Regular,
+            NUMBER_PT,
+            place.align,
+        );
+        canvas.note_plan_label(&place.text, place.area);
+        obstacles.push(place.area);
     }
     step
+}
+
+/// Where a line's number is set: the baseline point, its alignment and the box it takes.
+struct NumberPlace {
+    text: String,
+    at: [f64; 2],
+    align: Align,
+    area: Area,
+}
+
+fn number_place(line: &crate::PlanLine, transform: &Transform, center_m: [f64; 2]) -> NumberPlace {
+    let (a, b) = (transform.page(line.start_m), transform.page(line.end_m));
+    let text = line.number.to_string();
+    let w = width_mm(&text, Font::Regular, NUMBER_PT);
+    let side = label_side(line, center_m);
+    // Baseline point, alignment and the box the number takes.
+    let (at, align, area) = match side {
+        LabelSide::Above => {
+            let high = if a[1] >= b[1] { a } else { b };
+            let baseline = high[1] + 1.0;
+            let area = Area {
+                x: high[0] - w / 2.0,
+                y: baseline - 0.4,
+                w,
+                h: 2.6,
+            };
+            ([high[0], baseline], Align::Center, area)
+        }
+        LabelSide::Right => {
+            let right = if a[0] >= b[0] { a } else { b };
+            let area = Area {
+                x: right[0] + 1.2,
+                y: right[1] - 1.2,
+                w,
+                h: 2.6,
+            };
+            ([right[0] + 1.2, right[1] - 0.75], Align::Left, area)
+        }
+        LabelSide::Below => {
+            let low = if a[1] <= b[1] { a } else { b };
+            let baseline = low[1] - 3.0;
+            let area = Area {
+                x: low[0] - w / 2.0,
+                y: baseline - 0.4,
+                w,
+                h: 2.6,
+            };
+            ([low[0], baseline], Align::Center, area)
+        }
+        LabelSide::Left => {
+            let left = if a[0] <= b[0] { a } else { b };
+            let area = Area {
+                x: left[0] - 1.2 - w,
+                y: left[1] - 1.2,
+                w,
+                h: 2.6,
+            };
+            ([left[0] - 1.2, left[1] - 0.75], Align::Right, area)
+        }
+    };
+    NumberPlace {
+        text,
+        at,
+        align,
+        area,
+    }
 }
 
 /// Overall length (along x) and width (along y) of the building, on its wall line; returns the lowest
