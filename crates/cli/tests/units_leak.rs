@@ -128,15 +128,33 @@ fn run_outputs(project: &Path, units: Option<&str>, out: &Path) -> Vec<(String, 
         let text = std::fs::read_to_string(out.join(file)).expect("the CSV was written");
         outputs.push((file.to_string(), text));
     }
-    let pdf = std::process::Command::new("pdftotext")
-        .arg(out.join("schedule.pdf"))
-        .arg("-")
+    // The crew sheet's pattern page, and the same pattern under the plan with --crew-pages 1.
+    let one_page = out.join("one-page");
+    let status = deckhold()
+        .args(&args)
+        .args([
+            "--crew-pages",
+            "1",
+            "--out",
+            &one_page.display().to_string(),
+        ])
         .output()
-        .expect("`pdftotext` is missing: install poppler-utils");
-    outputs.push((
-        "schedule.pdf text".to_string(),
-        String::from_utf8_lossy(&pdf.stdout).into_owned(),
-    ));
+        .expect("runs");
+    assert!(status.status.success() || status.status.code() == Some(1));
+    for (name, folder) in [
+        ("schedule.pdf text", out.to_path_buf()),
+        ("schedule.pdf text (--crew-pages 1)", one_page),
+    ] {
+        let pdf = std::process::Command::new("pdftotext")
+            .arg(folder.join("schedule.pdf"))
+            .arg("-")
+            .output()
+            .expect("`pdftotext` is missing: install poppler-utils");
+        outputs.push((
+            name.to_string(),
+            String::from_utf8_lossy(&pdf.stdout).into_owned(),
+        ));
+    }
     let zones = deckhold()
         .args(["zones", &project.display().to_string()])
         .args(units.map(|u| vec!["--units", u]).unwrap_or_default())
@@ -197,14 +215,18 @@ fn the_units_option_overrides_the_basis() {
         &["8d common wire nail, 2-1/2 in x 0.131 in, head 0.281 in"],
         // The PDF shows the keys as the user wrote them (in feet and psf) and cites the ASCE 7 and
         // NDS clauses in their own units: by design, so its text is not read here.
-        &["zones console", "schedule.pdf text"],
+        &[
+            "zones console",
+            "schedule.pdf text",
+            "schedule.pdf text (--crew-pages 1)",
+        ],
     );
     assert_clean(
         "demo-ca-gable.json",
         Some("us"),
         true,
         &["common nail 63 mm x 3.25 mm (2-1/2 in), head 7.14 mm"],
-        &["schedule.pdf text"],
+        &["schedule.pdf text", "schedule.pdf text (--crew-pages 1)"],
     );
 }
 

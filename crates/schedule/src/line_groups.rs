@@ -4,8 +4,9 @@
 //! use this, so both say the same thing about which lines are alike.
 //!
 //! Two lines are alike when they are the same kind of member (common, end-wall, jack, ...) and carry the
-//! same stretches from their low end: the same boundaries (to the millimetre), and on each stretch the same
-//! zone, support role and spacing. Utilization may differ; the group keeps the highest on each stretch,
+//! same stretches from their low end: the same boundaries (within 1 mm of the group's first line: two
+//! lines whose zone edge falls at 4.7124 and 4.7126 m are alike), and on each stretch the same zone,
+//! support role and spacing. Utilization may differ; the group keeps the highest on each stretch,
 //! so a grouped table never shows a line as less loaded than it is. Position and plane are not compared:
 //! a pattern measured from the eave is nailed the same way wherever the line stands.
 //!
@@ -38,18 +39,34 @@ pub struct LineGroup {
     pub stretches: Vec<SegmentRow>,
 }
 
-/// Groups `lines` by nailing pattern. Groups come in the order of their lowest line number, so the
-/// output is the same for the same input whatever the hashing.
+/// Boundaries closer than this are the same mark, m.
+const SAME_MARK_M: f64 = 0.001;
+
+/// Groups `lines` by nailing pattern. A line joins the first group (in input order) whose first line
+/// it matches, so the output is the same for the same input whatever the hashing. Groups come in the
+/// order of their lowest line number.
 pub fn group_lines(lines: &[LineRow]) -> Vec<LineGroup> {
     let mut groups: Vec<LineGroup> = Vec::new();
-    let mut index_of: HashMap<PatternKey, usize> = HashMap::new();
+    // Groups by what must match exactly; the boundaries are then compared within SAME_MARK_M.
+    let mut candidates: HashMap<PatternKey, Vec<usize>> = HashMap::new();
     for line in lines {
         let stretches = stretches_of(&line.segments);
         let key = PatternKey::new(line.kind, &stretches);
-        match index_of.get(&key) {
-            Some(&index) => groups[index].add(line, &stretches),
+        let same_marks = |group: &LineGroup| {
+            group.stretches.iter().zip(&stretches).all(|(a, b)| {
+                (a.from_m - b.from_m).abs() < SAME_MARK_M && (a.to_m - b.to_m).abs() < SAME_MARK_M
+            })
+        };
+        let found = candidates.get(&key).and_then(|indices| {
+            indices
+                .iter()
+                .copied()
+                .find(|&index| same_marks(&groups[index]))
+        });
+        match found {
+            Some(index) => groups[index].add(line, &stretches),
             None => {
-                index_of.insert(key, groups.len());
+                candidates.entry(key).or_default().push(groups.len());
                 groups.push(LineGroup {
                     numbers: vec![line.number],
                     kind: line.kind,
@@ -130,28 +147,25 @@ pub fn runs_text(numbers: &[u32]) -> String {
     parts.join(", ")
 }
 
-/// What two lines must share to be one group: kind, and per stretch the boundaries to 1 mm, the zone,
-/// the role and the spacing to 0.1 mm.
+/// What two lines must share exactly to be one group: kind, and per stretch the zone, the role and the
+/// spacing to 0.1 mm (the boundaries are compared apart, within [`SAME_MARK_M`]).
 #[derive(Debug, PartialEq, Eq, Hash)]
 struct PatternKey {
     kind: LineKind,
-    stretches: Vec<(i64, i64, ZoneKind, SupportRole, Option<i64>)>,
+    stretches: Vec<(ZoneKind, SupportRole, Option<i64>)>,
 }
 
 impl PatternKey {
     fn new(kind: LineKind, stretches: &[SegmentRow]) -> Self {
-        // `as` saturates, so even a non-finite value cannot panic here (the writers refuse those).
-        let mm = |m: f64| (m * 1000.0).round() as i64;
         Self {
             kind,
             stretches: stretches
                 .iter()
                 .map(|s| {
                     (
-                        mm(s.from_m),
-                        mm(s.to_m),
                         s.zone_label,
                         s.support_role,
+                        // `as` saturates, so even a non-finite value cannot panic here.
                         s.spacing_mm.map(|spacing| (spacing * 10.0).round() as i64),
                     )
                 })
@@ -243,11 +257,18 @@ mod tests {
     }
 
     #[test]
-    fn boundaries_within_half_a_millimetre_are_the_same() {
-        let mut lines = vec![common(1, 0.5), common(2, 0.5)];
-        lines[1].segments[0].to_m = 1.0002;
-        lines[1].segments[1].from_m = 1.0002;
-        assert_eq!(group_lines(&lines).len(), 1);
+    fn boundaries_within_a_millimetre_are_the_same() {
+        // 4.7124 and 4.7126 m round to different millimetres, yet mark the same place.
+        let mut lines = vec![common(1, 0.5), common(2, 0.5), common(3, 0.5)];
+        lines[0].segments[0].to_m = 1.0004;
+        lines[0].segments[1].from_m = 1.0004;
+        lines[1].segments[0].to_m = 1.0006;
+        lines[1].segments[1].from_m = 1.0006;
+        lines[2].segments[0].to_m = 1.0015;
+        lines[2].segments[1].from_m = 1.0015;
+        let groups = group_lines(&lines);
+        let texts: Vec<String> = groups.iter().map(|g| runs_text(&g.numbers)).collect();
+        assert_eq!(texts, ["1, 2", "3"]);
     }
 
     #[test]

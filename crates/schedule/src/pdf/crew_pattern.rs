@@ -113,8 +113,8 @@ pub(crate) fn pattern_table(
         }
     }
     flow.paragraph(
-        "Lines nailed alike share a row; the spacing holds up to each mark. Kind: end-wall is over a wall \
-         along the framing, jack runs from the eave to a hip or valley.",
+        "Lines nailed alike share a row; the spacing holds up to each mark. End-wall: over a wall along \
+         the framing; jack: eave to hip or valley.",
         7.0,
     );
     if with_notes {

@@ -79,7 +79,7 @@ pub(crate) struct CrewLayout<'a> {
 
 /// Share of the plan's column the pattern table may take on a one-page crew sheet: the plan keeps at
 /// least the rest, so it stays readable.
-const PATTERN_SHARE_MAX: f64 = 0.58;
+const PATTERN_SHARE_MAX: f64 = 0.55;
 
 /// The crew sheet's pages: page 1 (plan, nail, spacing per zone and role, notes, sign-off), then the
 /// nailing pattern line group by line group, under the plan when one page was asked for and it fits,
