@@ -11,6 +11,7 @@ mod courses;
 mod framing;
 mod geometry;
 mod lines;
+mod pieces;
 mod zones;
 
 use serde::{Deserialize, Serialize};
@@ -20,11 +21,12 @@ pub use blocking::EdgeBlocking;
 use blocking::{blocking_lines, BlockingPlane};
 pub use changes::{si_words, LayoutChange, LengthWords};
 pub use courses::SLIVER_M;
-use courses::{bearing_at, course_bands, course_pieces, CourseLayer, StripCache};
+use courses::{bearing_at, course_bands, CourseLayer, StripCache};
 use deckhold_core::limits;
 use framing::framing_lines;
 use geometry::{validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
+use pieces::PieceCutter;
 use zones::{zone_pieces, LineStrip, ZoneShapes};
 
 /// One roof plane in plan.
@@ -88,6 +90,28 @@ pub struct PanelInput {
     pub first_panel_length_mm: f64,
 }
 
+impl PanelInput {
+    /// Whole panels laid from the smaller coordinate, no blocking: the defaults of every setting but
+    /// the panel, its stagger and the narrowest piece.
+    pub fn whole_panels(
+        length_mm: f64,
+        width_mm: f64,
+        stagger: Stagger,
+        min_piece_mm: f64,
+    ) -> Self {
+        PanelInput {
+            length_mm,
+            width_mm,
+            stagger,
+            min_piece_mm,
+            blocking: EdgeBlocking::None,
+            start: StartCorner::SmallerCoordinate,
+            first_course_width_mm: width_mm,
+            first_panel_length_mm: length_mm,
+        }
+    }
+}
+
 /// The eave corner each plane's panel laying starts from, across the framing.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
 #[serde(rename_all = "kebab-case")]
@@ -139,6 +163,10 @@ pub struct Bearing {
     pub support_role: SupportRole,
     /// One strip for an intermediate support or a deck edge, two at a panel end joint.
     pub strips: Vec<PanelStrip>,
+    /// Where along the line the strips were taken, m from the line's start: the middle of the
+    /// stretch, or on a plane cut along a hip or valley the height (5 %, 50 % or 95 % of the stretch)
+    /// whose strip loads the line most.
+    pub strip_at_m: f64,
 }
 
 /// One stretch of a line in one governing zone.
@@ -224,9 +252,18 @@ pub struct DeckPiece {
     /// last member (a cantilever) or a cut along a hip or valley.
     pub start_line: Option<u32>,
     pub end_line: Option<u32>,
-    /// Deck past the outermost member under the piece, on the slope, m (0: no cantilever).
+    /// Deck past the outermost member under the piece, on the slope, m (0: no cantilever): the
+    /// largest within the course band (see `cantilever_at_m`).
     pub cantilever_start_m: f64,
     pub cantilever_end_m: f64,
+    /// Where in the band the cantilevers were taken: up the slope from the plane's low edge, m (the
+    /// conservative strip: the height with the largest cantilever).
+    pub cantilever_at_m: f64,
+    /// The piece's end is cut along a hip or valley (somewhere in its band).
+    pub start_cut: bool,
+    pub end_cut: bool,
+    /// The piece's outline in plan, cut along the hips and valleys, m.
+    pub outline_m: Vec<[f64; 2]>,
 }
 
 /// Where and how panel laying starts on one plane.
@@ -315,12 +352,17 @@ pub fn layout_deck(
             });
         }
         let first_number = number + 1;
+        let has_cuts = plane.polygon_m.iter().enumerate().any(|(i, a)| {
+            let b = plane.polygon_m[(i + 1) % plane.polygon_m.len()];
+            (a[0] - b[0]).abs() > 1e-9 && (a[1] - b[1]).abs() > 1e-9
+        });
         // Slivers at hip and valley cuts, by course, said once each.
         let mut notes: Vec<(usize, LayoutChange)> = Vec::new();
         for line in 0..grid.len() {
             number += 1;
             let context = PlaneContext {
                 plane,
+                has_cuts,
                 frame: &frame,
                 grid: &grid,
                 courses: &plane_courses,
@@ -351,7 +393,13 @@ pub fn layout_deck(
                 .map(|change| si_words(change, course.index, panel.min_piece_mm / 1000.0))
                 .collect();
         }
-        pieces.extend(course_pieces(&frame, &grid, first_number, &plane_courses));
+        let cutter = PieceCutter {
+            polygon_m: &plane.polygon_m,
+            frame: &frame,
+            grid: &grid,
+            first_number,
+        };
+        pieces.extend(cutter.pieces(&plane_courses));
         let low_along_m = frame.along_at_m(0.0);
         let corner_cross_m = match panel.start {
             StartCorner::SmallerCoordinate => frame.cross_range_m[0],
@@ -398,6 +446,8 @@ pub fn layout_deck(
 
 struct PlaneContext<'a> {
     plane: &'a PlaneGeometry,
+    /// The plane has an edge oblique to the framing (a hip or valley cut).
+    has_cuts: bool,
     frame: &'a PlaneFrame,
     grid: &'a [GridLine],
     courses: &'a [Course],
@@ -460,16 +510,47 @@ fn lay_out_line(
             if to - from < MIN_PIECE_M {
                 continue;
             }
-            let along_m = frame.along_at_m(0.5 * (from + to));
-            let bearing = bearing_at(
-                &context.plane.polygon_m,
-                frame,
-                context.grid,
-                &course.joints_m,
-                line,
-                along_m,
-                cache,
-            )?;
+            // Where the plane is cut along a hip or valley the strip across the lines changes with
+            // the height: the strip with the largest reaction on this line among 5 %, 50 % and 95 %
+            // of its stretch in the course is the one used (a panel edge wherever one is found).
+            let heights: &[f64] = if context.has_cuts {
+                &[0.5, 0.05, 0.95]
+            } else {
+                &[0.5]
+            };
+            let mut governing: Option<(f64, courses::LineBearing)> = None;
+            let mut edge_anywhere = false;
+            for share in heights {
+                let height = from + share * (to - from);
+                let found = bearing_at(
+                    &context.plane.polygon_m,
+                    frame,
+                    context.grid,
+                    &course.joints_m,
+                    line,
+                    frame.along_at_m(height),
+                    cache,
+                )?;
+                edge_anywhere |= found.role == SupportRole::PanelEdge;
+                let largest = |b: &courses::LineBearing| {
+                    b.strips
+                        .iter()
+                        .map(|s| s.reaction_width_mm)
+                        .fold(f64::NEG_INFINITY, f64::max)
+                };
+                if governing
+                    .as_ref()
+                    .is_none_or(|(_, g)| largest(&found) > largest(g) + 1e-9)
+                {
+                    governing = Some((height, found));
+                }
+            }
+            let Some((strip_at_m, mut bearing)) = governing else {
+                continue;
+            };
+            if edge_anywhere {
+                bearing.role = SupportRole::PanelEdge;
+            }
             for width_m in &bearing.slivers_m {
                 let sliver = LayoutChange::Sliver {
                     line: number,
@@ -483,6 +564,7 @@ fn lay_out_line(
                 to_m: to - start_m,
                 support_role: bearing.role,
                 strips: bearing.strips,
+                strip_at_m: strip_at_m - start_m,
             });
         }
     }

@@ -3,8 +3,8 @@
 
 use approx::assert_relative_eq;
 use deckhold_deck::layout::{
-    layout_deck, DeckLayout, EdgeBlocking, FramingInput, LayoutChange, PanelInput, PlaneGeometry,
-    Stagger, StartCorner, ZoneRegion,
+    layout_deck, DeckLayout, FramingInput, LayoutChange, PanelInput, PlaneGeometry, Stagger,
+    StartCorner, ZoneRegion,
 };
 
 fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
@@ -12,16 +12,7 @@ fn rectangle(x0: f64, y0: f64, x1: f64, y1: f64) -> Vec<[f64; 2]> {
 }
 
 fn panel() -> PanelInput {
-    PanelInput {
-        length_mm: 2440.0,
-        width_mm: 1220.0,
-        stagger: Stagger::Half,
-        min_piece_mm: 600.0,
-        blocking: EdgeBlocking::None,
-        start: StartCorner::SmallerCoordinate,
-        first_course_width_mm: 1220.0,
-        first_panel_length_mm: 2440.0,
-    }
+    PanelInput::whole_panels(2440.0, 1220.0, Stagger::Half, 600.0)
 }
 
 /// A flat-framed plane 0..`length_m` by 0..4 m (rafters along y at 610 mm, level across), walls on

@@ -107,6 +107,7 @@ pub(crate) fn blocking_lines(
                 to_m: to_slope(stretch[1]),
                 support_role: SupportRole::PanelEdge,
                 strips: Vec::new(),
+                strip_at_m: 0.0,
             });
         }
         lines.push(LayoutLine {

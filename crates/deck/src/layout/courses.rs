@@ -11,7 +11,7 @@ use std::collections::HashMap;
 use super::changes::LayoutChange;
 use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
-use super::{Course, DeckPiece, PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
+use super::{PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
 use crate::error::SpacingError;
 
@@ -251,51 +251,10 @@ impl CourseLayer<'_> {
 /// `lo <= position <= hi`, found by bisection: a big roof has hundreds of lines and thousands of panel
 /// pieces and bearings, and scanning every line for each made the layout grow with the square of the
 /// roof's length.
-fn grid_between(grid: &[GridLine], lo: f64, hi: f64) -> &[GridLine] {
+pub(crate) fn grid_between(grid: &[GridLine], lo: f64, hi: f64) -> &[GridLine] {
     let start = grid.partition_point(|g| g.position_m < lo);
     let end = grid.partition_point(|g| g.position_m <= hi);
     &grid[start..end.max(start)]
-}
-
-/// The pieces of every course of one plane, with the lines under their ends. `first_number` is the
-/// number of the plane's first grid line.
-pub(crate) fn course_pieces(
-    frame: &PlaneFrame,
-    grid: &[GridLine],
-    first_number: u32,
-    courses: &[Course],
-) -> Vec<DeckPiece> {
-    let line_at = |position: f64| {
-        let index = grid.partition_point(|g| g.position_m < position - SAME_POSITION_M);
-        grid.get(index)
-            .filter(|g| (g.position_m - position).abs() <= SAME_POSITION_M)
-            .map(|_| first_number + index as u32)
-    };
-    let mut pieces = Vec::new();
-    for course in courses {
-        for pair in course.joints_m.windows(2) {
-            let [start_m, end_m] = [pair[0], pair[1]];
-            let inside = grid_between(grid, start_m - SAME_POSITION_M, end_m + SAME_POSITION_M);
-            let cantilever = |edge: f64, nearest: Option<&GridLine>| {
-                nearest.map_or(0.0, |g| (g.position_m - edge).abs() * frame.cross_factor)
-            };
-            pieces.push(DeckPiece {
-                plane_index: course.plane_index,
-                course: course.index,
-                start_m,
-                end_m,
-                from_slope_m: course.from_m,
-                to_slope_m: course.to_m,
-                length_m: (end_m - start_m) * frame.cross_factor,
-                width_m: course.to_m - course.from_m,
-                start_line: line_at(start_m),
-                end_line: line_at(end_m),
-                cantilever_start_m: cantilever(start_m, inside.first()),
-                cantilever_end_m: cantilever(end_m, inside.last()),
-            });
-        }
-    }
-    pieces
 }
 
 /// A strip of deck narrower than this between a hip or valley cut and the nearest line is a sliver:
