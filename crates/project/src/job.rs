@@ -96,6 +96,24 @@ pub fn run_job(project: &Project) -> Result<Job, JobError> {
 
 /// Runs the job for the given candidate nails (ids checked against the catalog).
 pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job, JobError> {
+    job_for(project, nail_ids, Candidates::All)
+}
+
+/// Runs the job for the project's candidates up to the first that works in every zone, and no
+/// further: the same chosen nail and plan as [`run_job`], for a caller that reads only the chosen
+/// nail (a batch summary line). `candidates` then holds the nails tried, not every one listed.
+pub fn run_job_to_chosen(project: &Project) -> Result<Job, JobError> {
+    job_for(project, &project.nails, Candidates::UpToChosen)
+}
+
+/// How many candidates a job works through.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Candidates {
+    All,
+    UpToChosen,
+}
+
+fn job_for(project: &Project, nail_ids: &[String], which: Candidates) -> Result<Job, JobError> {
     if let (Some(file), None) = (&project.coefficients_file, &project.wind.table) {
         // Never a silent fallback to the built-in rows the user meant to replace.
         return Err(crate::ProjectError::Invalid {
@@ -106,11 +124,21 @@ pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job,
     }
     let wind = deckhold_wind::analyze(&project.wind)?;
     let layout = deck_layout(project, &wind)?;
+    // Every id is looked up first, so an unknown nail refuses the job whichever nail is chosen.
+    let nails = nail_ids
+        .iter()
+        .map(|id| project.fastener(id))
+        .collect::<Result<Vec<_>, _>>()?;
     let mut candidates = Vec::with_capacity(nail_ids.len());
-    for id in nail_ids {
-        let nail = project.fastener(id)?.clone();
+    for nail in nails {
+        let nail = nail.clone();
         let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
-        candidates.push(work_nail(project, &wind, &layout, nail, &rules)?);
+        let outcome = work_nail(project, &wind, &layout, nail, &rules)?;
+        let feasible = outcome.feasible;
+        candidates.push(outcome);
+        if feasible && which == Candidates::UpToChosen {
+            break;
+        }
     }
     if candidates.is_empty() {
         return Err(crate::ProjectError::Missing {
@@ -342,4 +370,29 @@ pub fn plan_with_resistance(
         mass_g: nail.mass_g,
     };
     Ok(plan_on_layout(layout, &uplift, &option, rules)?)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::{parse_project, DEMO_PROJECT_JSON};
+
+    #[test]
+    fn stopping_at_the_chosen_nail_chooses_the_same_nail_and_plan() {
+        // Regression check against the full job on the demo (its first candidate fails, the second works).
+        let project = parse_project(DEMO_PROJECT_JSON).expect("demo parses");
+        let full = run_job(&project).expect("runs");
+        let short = run_job_to_chosen(&project).expect("runs");
+        assert_eq!(short.chosen().nail.id, full.chosen().nail.id);
+        assert_eq!(short.chosen().plan, full.chosen().plan);
+        assert_eq!(short.candidates.len(), full.chosen + 1);
+        assert!(short.candidates.len() < full.candidates.len());
+    }
+
+    #[test]
+    fn an_unknown_nail_after_the_chosen_one_still_refuses_the_job() {
+        let mut project = parse_project(DEMO_PROJECT_JSON).expect("demo parses");
+        project.nails.push("no-such-nail".to_string());
+        assert!(run_job_to_chosen(&project).is_err());
+    }
 }

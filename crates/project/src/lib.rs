@@ -31,6 +31,6 @@ pub mod retrofit;
 pub mod rules;
 
 pub use check::{check_pattern, CheckRow, PatternCheck};
-pub use job::{run_job, run_job_with_nails, Job, NailOutcome};
+pub use job::{run_job, run_job_to_chosen, run_job_with_nails, Job, NailOutcome};
 pub use report::schedule_for;
 pub use retrofit::{plan_retrofit, Placement, Retrofit, RetrofitRow, COMBINATION_RULE};

@@ -8,7 +8,7 @@ use std::time::{Duration, Instant};
 use super::rows::OwnedRow;
 use crate::output::{write_all_atomically, OutputSet};
 use deckhold_project::batch::{job_refusal, refused, row_project, summarize, Columns, Row};
-use deckhold_project::{run_job, schedule_for};
+use deckhold_project::{run_job, run_job_to_chosen, schedule_for};
 use deckhold_schedule::{
     rafter_lines_csv, schedule_csv, schedule_pdf, summary_record, PdfOptions, RoofStatus,
 };
@@ -58,9 +58,17 @@ pub fn work_row(context: &BatchContext, owned: &OwnedRow) -> Result<RowResult> {
         None => row_project(context.base, context.columns, &row),
     };
     lap(0);
+    // The summary reads only the chosen nail; the roof's own files list every candidate.
+    let job_of = |project: &deckhold_project::Project| {
+        if context.roof_files.is_some() {
+            run_job(project)
+        } else {
+            run_job_to_chosen(project)
+        }
+    };
     let summary = match project {
         Err(refusal) => *refusal,
-        Ok(project) => match run_job(&project) {
+        Ok(project) => match job_of(&project) {
             Err(error) => {
                 lap(1);
                 job_refusal(context.columns, &row, &error)
