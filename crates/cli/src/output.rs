@@ -171,24 +171,23 @@ mod platform {
         let set_state = state.join(set.key());
         ensure_state_dir(&set_state)?;
         let current = set_state.join(CURRENT);
-        let previous = current_generation(&current)?;
+        let mut previous = current_generation(&current)?;
         remove_leftovers(&set_state, previous.as_deref())?;
+        take_over_earlier_layout(folder, &set_state, set, files, &mut previous)?;
 
         let generation = format!("gen-{}", unique_suffix());
         let generation_path = set_state.join(&generation);
         fs::create_dir(&generation_path)
             .with_context(|| format!("cannot create {}", generation_path.display()))?;
+        fault_point();
         for (name, bytes) in files {
             write_new_file(&generation_path.join(name), bytes)?;
+            fault_point();
         }
         sync_dir(&generation_path)?;
 
         // The one step that makes the new set visible.
-        let next = set_state.join(format!("next-{}", unique_suffix()));
-        symlink(&generation, &next).with_context(|| format!("cannot create {}", next.display()))?;
-        fs::rename(&next, &current)
-            .with_context(|| format!("cannot swap in the new set at {}", current.display()))?;
-        sync_dir(&set_state)?;
+        swap_current(&set_state, &generation)?;
 
         let mut written = Vec::new();
         for name in set.names() {
@@ -196,6 +195,7 @@ mod platform {
             let in_set = files.iter().any(|(file, _)| file == name);
             if in_set {
                 make_visible_link(folder, &set_state, set, name)?;
+                fault_point();
                 written.push(path);
             } else if is_our_link(&path, set, name)? {
                 // A name of an earlier set that this one lacks (schedule.json without --json).
@@ -210,6 +210,82 @@ mod platform {
         remove_legacy_state(folder, &state)?;
         drop(lock);
         Ok(written)
+    }
+
+    /// Points the set's `current` at `generation` in one rename, and syncs it.
+    fn swap_current(set_state: &Path, generation: &str) -> Result<()> {
+        let current = set_state.join(CURRENT);
+        let next = set_state.join(format!("next-{}", unique_suffix()));
+        symlink(generation, &next).with_context(|| format!("cannot create {}", next.display()))?;
+        fs::rename(&next, &current)
+            .with_context(|| format!("cannot swap in the new set at {}", current.display()))?;
+        sync_dir(set_state)?;
+        fault_point();
+        Ok(())
+    }
+
+    /// A folder written by an earlier deckhold shows this set's names as plain files, or as links of the
+    /// shared layout (one `.deckhold/current` for every command). Turning them into this layout's links
+    /// one by one after the new set is in force would show a mix for a moment; so first the earlier files
+    /// are adopted as a generation of their own (copied, made `current` in one rename), then each name
+    /// becomes a link to `current`, which still shows the same earlier bytes. A kill at any step leaves
+    /// every name showing the earlier set; the new set then comes in with the one swap of `current`.
+    fn take_over_earlier_layout(
+        folder: &Path,
+        set_state: &Path,
+        set: OutputSet,
+        files: &[(&str, Vec<u8>)],
+        previous: &mut Option<String>,
+    ) -> Result<()> {
+        let mut earlier = Vec::new();
+        for (name, _) in files {
+            let path = folder.join(name);
+            let plain = fs::symlink_metadata(&path).is_ok_and(|meta| meta.file_type().is_file());
+            let shared = fs::read_link(&path).is_ok_and(|target| target == legacy_target(name));
+            if plain || shared {
+                earlier.push(*name);
+            }
+        }
+        if earlier.is_empty() {
+            return Ok(());
+        }
+        if previous.is_none() {
+            let adopted = format!("gen-{}", unique_suffix());
+            let adopted_path = set_state.join(&adopted);
+            fs::create_dir(&adopted_path)
+                .with_context(|| format!("cannot create {}", adopted_path.display()))?;
+            for name in &earlier {
+                // A plain file, or the shared layout's link (deckhold's own, checked above): copied.
+                fs::copy(folder.join(name), adopted_path.join(name))
+                    .with_context(|| format!("cannot keep the earlier {name}"))?;
+                fault_point();
+            }
+            sync_dir(&adopted_path)?;
+            swap_current(set_state, &adopted)?;
+            *previous = Some(adopted);
+        }
+        for name in &earlier {
+            make_visible_link(folder, set_state, set, name)?;
+            fault_point();
+        }
+        sync_dir(folder)
+    }
+
+    /// Test hook, debug builds only: with `DECKHOLD_FAULT_AFTER=N` the process aborts after the N-th step
+    /// of writing a set, exactly as a kill at that instant would leave the folder. Release builds ignore it.
+    fn fault_point() {
+        #[cfg(debug_assertions)]
+        {
+            use std::sync::atomic::{AtomicUsize, Ordering};
+            static STEPS: AtomicUsize = AtomicUsize::new(0);
+            let step = STEPS.fetch_add(1, Ordering::SeqCst) + 1;
+            let limit = std::env::var("DECKHOLD_FAULT_AFTER")
+                .ok()
+                .and_then(|text| text.parse::<usize>().ok());
+            if limit == Some(step) {
+                std::process::abort();
+            }
+        }
     }
 
     fn ensure_state_dir(state: &Path) -> Result<()> {

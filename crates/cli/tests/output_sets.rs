@@ -257,20 +257,11 @@ fn a_schedule_written_after_a_check_report_leaves_the_report_alone() {
 /// the schedule's old links working; once every set is rewritten, the old state goes.
 #[test]
 fn a_folder_of_the_earlier_shared_layout_is_taken_over_set_by_set() {
-    use std::os::unix::fs::symlink;
     let folder = tempfile::tempdir().expect("temp dir");
     let out = folder.path().join("earlier");
+    let names: Vec<&str> = SET.iter().chain(&CHECK_SET).copied().collect();
+    earlier_folder(&out, false, &names);
     let generation = out.join(".deckhold").join("gen-1-2-3");
-    fs::create_dir_all(&generation).expect("generation");
-    for name in SET.iter().chain(&CHECK_SET) {
-        fs::write(generation.join(name), format!("earlier {name}")).expect("file");
-        symlink(
-            Path::new(".deckhold").join("current").join(name),
-            out.join(name),
-        )
-        .expect("link");
-    }
-    symlink("gen-1-2-3", out.join(".deckhold").join("current")).expect("current");
 
     assert!(check_into(&out).status().expect("runs").success());
     assert_eq!(
@@ -332,4 +323,82 @@ fn a_comparison_written_beside_a_schedule_and_a_report_leaves_both_alone() {
         read_names(&out, &["compare.csv", "compare.pdf"]),
         comparison
     );
+}
+
+/// Lays out a folder as an earlier deckhold left it: `plain` writes the set as plain files (before the
+/// set layout), otherwise as links of the shared layout (one `.deckhold/current` for every command).
+fn earlier_folder(out: &Path, plain: bool, names: &[&str]) {
+    use std::os::unix::fs::symlink;
+    if plain {
+        fs::create_dir_all(out).expect("folder");
+        for name in names {
+            fs::write(out.join(name), format!("earlier {name}")).expect("file");
+        }
+        return;
+    }
+    let generation = out.join(".deckhold").join("gen-1-2-3");
+    fs::create_dir_all(&generation).expect("generation");
+    for name in names {
+        fs::write(generation.join(name), format!("earlier {name}")).expect("file");
+        symlink(
+            Path::new(".deckhold").join("current").join(name),
+            out.join(name),
+        )
+        .expect("link");
+    }
+    symlink("gen-1-2-3", out.join(".deckhold").join("current")).expect("current");
+}
+
+#[test]
+fn taking_over_an_earlier_folder_stopped_at_every_step_never_shows_a_mix() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let new_set = reference_set(None, &folder.path().join("reference"));
+    let earlier_set: Vec<Option<Vec<u8>>> = SET
+        .iter()
+        .map(|name| Some(format!("earlier {name}").into_bytes()))
+        .collect();
+    let mut report = Vec::new();
+    for plain in [true, false] {
+        let (mut stopped, mut mixed, mut steps) = (0, 0, 0);
+        // Stop the run after step 1, 2, ... of writing the set (an abort, as a kill there would), until
+        // a run gets through every step; each stop starts again from the earlier folder.
+        for step in 1..=64 {
+            let out = folder.path().join(format!("earlier-{plain}-{step}"));
+            earlier_folder(&out, plain, &SET);
+            let status = run_into(None, &out)
+                .env("DECKHOLD_FAULT_AFTER", step.to_string())
+                .status()
+                .expect("runs");
+            let set = read_set(&out);
+            if set != earlier_set && set != new_set {
+                mixed += 1;
+                eprintln!("stopped after step {step} (plain {plain}): a mix");
+            }
+            if status.success() {
+                steps = step - 1;
+                assert_eq!(set, new_set, "a run through every step shows the new set");
+                break;
+            }
+            stopped += 1;
+            if step % 3 != 0 {
+                continue;
+            }
+            // The next run completes and cleans up after the stopped one (every third stop, for time).
+            assert!(run_into(None, &out).status().expect("runs").success());
+            assert_eq!(read_set(&out), new_set);
+            assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+        }
+        assert!(steps > 4, "the write has steps to stop at ({steps})");
+        assert_eq!(stopped, steps, "every step was stopped at once");
+        assert_eq!(mixed, 0, "a take-over stopped part-way showed a mix");
+        report.push(format!(
+            "{}: {stopped} runs stopped, {mixed} mixed",
+            if plain {
+                "plain files"
+            } else {
+                "shared layout"
+            }
+        ));
+    }
+    eprintln!("earlier-folder take-over: {}", report.join("; "));
 }
