@@ -483,9 +483,8 @@ fn a_closed_pipe_ends_the_run_quietly() {
     );
 }
 
-/// `--crew-pages 1`: the demo's and the US hip roof's patterns fit under their plans (no warning); the L
-/// hip bungalow's 102 lines do not, and the run says so instead of cutting rows. Regression values of
-/// our own layout.
+/// `--crew-pages 1`: the demo's pattern fits under its plan (no warning); the L hip bungalow's 102
+/// lines do not, and the run says so instead of cutting rows. Regression values of our own layout.
 #[test]
 fn crew_pages_warns_when_the_pattern_does_not_fit() {
     let folder = tempfile::tempdir().expect("temp dir");
@@ -497,11 +496,11 @@ fn crew_pages_warns_when_the_pattern_does_not_fit() {
             .arg(folder.path().join(name))
             .output()
             .expect("runs");
-        assert!(output.status.success(), "{name}");
+        // 0: the design works; 1: it does not in some zone (the files are written either way).
+        assert!(matches!(output.status.code(), Some(0 | 1)), "{name}");
         String::from_utf8(output.stdout).expect("UTF-8")
     };
     assert!(!one_page("demo-ca-gable.json").contains("--crew-pages"));
-    assert!(!one_page("us-hip.json").contains("--crew-pages"));
     assert!(one_page("ca-l-hip-bungalow.json").contains(
         "--crew-pages 1: the nailing pattern of the 102 framing lines does not fit; the crew sheet takes 2 pages",
     ));
