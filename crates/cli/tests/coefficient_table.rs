@@ -113,6 +113,17 @@ fn run_names_the_table_on_the_console_and_the_design_basis_page() {
         console.contains("stated source: test copy of Figure 30.3-2F"),
         "{console}"
     );
+    // schedule.csv names each row's coefficient status and figure: zone 3 from the user's table.
+    let csv = std::fs::read_to_string(out.join("schedule.csv")).expect("schedule.csv");
+    let zone_three: Vec<&str> = csv
+        .lines()
+        .filter(|line| line.starts_with("corner,3,"))
+        .collect();
+    assert!(!zone_three.is_empty(), "{csv}");
+    for line in zone_three {
+        assert!(line.contains(",user-supplied,"), "{line}");
+        assert!(line.contains("my-table.json"), "{line}");
+    }
     let text = std::process::Command::new("pdftotext")
         .args([
             "-layout",

@@ -7,7 +7,7 @@ use crate::format::{escape_controls, fixed, kpa_to_psf, mm_to_in, n_to_lbf, plac
 use crate::{finite, Schedule, ScheduleError, Units};
 
 /// Column names of `schedule.csv` in SI, units in the names.
-pub const SCHEDULE_HEADER: [&str; 14] = [
+pub const SCHEDULE_HEADER: [&str; 16] = [
     "zone",
     "code_zone",
     "support_role",
@@ -22,10 +22,12 @@ pub const SCHEDULE_HEADER: [&str; 14] = [
     "nail_count",
     "governing_check",
     "governing_line",
+    "coefficient_status",
+    "coefficient_figure",
 ];
 
 /// Column names of `schedule.csv` in US customary units.
-pub const SCHEDULE_HEADER_US: [&str; 14] = [
+pub const SCHEDULE_HEADER_US: [&str; 16] = [
     "zone",
     "code_zone",
     "support_role",
@@ -40,6 +42,8 @@ pub const SCHEDULE_HEADER_US: [&str; 14] = [
     "nail_count",
     "governing_check",
     "governing_line",
+    "coefficient_status",
+    "coefficient_figure",
 ];
 
 /// What a spacing cell holds when no practical spacing works with the nail.
@@ -79,6 +83,18 @@ pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
         Units::Si => fixed(n, places::FORCE_N),
     };
     for row in &schedule.zones {
+        // Where the zone's coefficient comes from: built-in figure and status, or the user's table.
+        let coefficient = schedule
+            .zone_pressures
+            .iter()
+            .find(|zone| zone.label == row.label && zone.code_zone == row.code_zone)
+            .ok_or_else(|| ScheduleError::Csv {
+                file: FILE,
+                message: format!(
+                    "zone {} ({}) has no coefficient row",
+                    row.label, row.code_zone
+                ),
+            })?;
         writer
             .write_record([
                 row.label.as_str(),
@@ -95,6 +111,8 @@ pub fn schedule_csv(schedule: &Schedule) -> Result<Vec<u8>, ScheduleError> {
                 &row.nail_count.to_string(),
                 &row.governing_check,
                 &row.governing_line.to_string(),
+                &coefficient.coefficient_status,
+                &escape_controls(&coefficient.figure),
             ])
             .map_err(fail)?;
     }
@@ -120,7 +138,8 @@ mod tests {
         assert_eq!(
             header,
             "zone,code_zone,support_role,nail_id,nail_description,spacing_mm,net_uplift_kpa,demand_n,\
-             resistance_n,governing_mode,utilization,nail_count,governing_check,governing_line"
+             resistance_n,governing_mode,utilization,nail_count,governing_check,governing_line,\
+             coefficient_status,coefficient_figure"
         );
     }
 
@@ -132,7 +151,8 @@ mod tests {
         assert_eq!(
             header,
             "zone,code_zone,support_role,nail_id,nail_description,spacing_in,net_uplift_psf,demand_lb,\
-             resistance_lb,governing_mode,utilization,nail_count,governing_check,governing_line"
+             resistance_lb,governing_mode,utilization,nail_count,governing_check,governing_line,\
+             coefficient_status,coefficient_figure"
         );
         // The sample's 150 mm interior edge spacing is rounded to 6 in (152.4 mm) on the US basis.
         let first = text(&bytes).lines().nth(1).expect("a row").to_string();
@@ -149,7 +169,7 @@ mod tests {
         assert_eq!(
             lines[1],
             "interior,r,panel-edge,sample-nail-a,Sample ring-shank nail 3.3 x 63 mm,150,1.100,50,400,\
-             withdrawal,0.126,240,strength,1"
+             withdrawal,0.126,240,strength,1,from memory,\"sample figure, invented for tests\""
         );
         assert!(lines[2].starts_with("interior,r,intermediate,"));
         assert!(lines[10].starts_with("overhang-corner,oh-c,intermediate,sample-nail-a,"));
