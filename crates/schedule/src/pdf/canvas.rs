@@ -66,6 +66,8 @@ pub(crate) enum Stroke {
     Solid,
     Dashed,
     DashDot,
+    /// A long dash and two dots: hips on the plan, apart from ridges (dash-dot) in black and white.
+    DashDotDot,
     Dotted,
 }
 
@@ -81,6 +83,7 @@ impl Stroke {
             Stroke::Solid => LineDashPattern::solid(),
             Stroke::Dashed => LineDashPattern::new(0.0, &mm(&[3.0, 1.6])),
             Stroke::DashDot => LineDashPattern::new(0.0, &mm(&[6.0, 1.2, 0.9, 1.2])),
+            Stroke::DashDotDot => LineDashPattern::new(0.0, &mm(&[4.0, 1.0, 0.7, 1.0, 0.7, 1.0])),
             Stroke::Dotted => LineDashPattern::new(0.0, &mm(&[0.5, 1.0])),
         }
     }

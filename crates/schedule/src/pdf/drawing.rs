@@ -199,7 +199,7 @@ pub(crate) fn fill_zone(canvas: &mut Canvas, points: &[[f64; 2]], style: ZoneSty
 pub(crate) fn roof_line_style(kind: EdgeKind) -> (f64, f64, Stroke) {
     match kind {
         EdgeKind::Ridge => (0.5, 0.0, Stroke::DashDot),
-        EdgeKind::Hip => (0.4, 0.35, Stroke::DashDot),
+        EdgeKind::Hip => (0.45, 0.0, Stroke::DashDotDot),
         EdgeKind::Valley => (0.6, 0.0, Stroke::Dotted),
         EdgeKind::Eave | EdgeKind::Rake => (0.6, 0.0, Stroke::Solid),
     }
@@ -310,12 +310,7 @@ pub(crate) fn draw_plan(
     let number_w = width_mm(&max_number.to_string(), Font::Regular, NUMBER_PT);
     // Each line is numbered beside one of its ends (see `label_side`); leave room on each side that
     // carries numbers.
-    let plan_center_m = [(x0 + x1) / 2.0, (y0 + y1) / 2.0];
-    let sides: Vec<LabelSide> = plan
-        .rafter_lines
-        .iter()
-        .map(|line| label_side(line, plan_center_m))
-        .collect();
+    let sides: Vec<LabelSide> = plan.rafter_lines.iter().map(label_side).collect();
     let band = |side: LabelSide, size: f64| if sides.contains(&side) { size } else { 0.0 };
     let bottom_numbers = band(LabelSide::Below, NUMBER_BAND_MM);
     let top_numbers = band(LabelSide::Above, NUMBER_BAND_MM);
@@ -391,6 +386,14 @@ pub(crate) fn draw_plan(
     }
     for line in &plan.roof_lines {
         let (width, grey, stroke) = roof_line_style(line.kind);
+        // A white underlay keeps the pattern readable over the zone hatches.
+        canvas.line(
+            transform.page(line.from_m),
+            transform.page(line.to_m),
+            width + 0.6,
+            1.0,
+            Stroke::Solid,
+        );
         canvas.line(
             transform.page(line.from_m),
             transform.page(line.to_m),
@@ -422,14 +425,8 @@ pub(crate) fn draw_plan(
         [low[0], low[1], high[0], high[1]]
     };
     let mut obstacles = Vec::new();
-    let numbered_every = draw_line_numbers(
-        canvas,
-        schedule,
-        &transform,
-        vertical_lines,
-        plan_center_m,
-        &mut obstacles,
-    );
+    let numbered_every =
+        draw_line_numbers(canvas, schedule, &transform, vertical_lines, &mut obstacles);
     let lowest = draw_dimensions(
         canvas,
         schedule,
@@ -466,13 +463,15 @@ pub(crate) fn draw_plan(
         w: area.w,
         h: area.top() - bar_y - 6.0,
     };
-    // Zones first (their labels matter most to the crew), then the planes' names and the roof lines.
+    // The roof-line table first, in a corner (its lengths are nowhere else on the sheet), then the
+    // zone labels (their spacings are also in the table beside the plan), then the planes' names.
     let mut taken = Taken {
         boxes: obstacles,
         leaders: Vec::new(),
     };
+    draw_roof_line_table(canvas, schedule, &transform, bounds, &mut taken);
     draw_zone_labels(canvas, schedule, &transform, bounds, &mut taken, imperial);
-    draw_roof_marks(canvas, schedule, &transform, bounds, &mut taken);
+    draw_plane_names(canvas, schedule, &transform, bounds, &mut taken);
     PlanNotes {
         scale_denominator: Some(denominator),
         numbered_every,
@@ -490,19 +489,15 @@ enum LabelSide {
     Right,
 }
 
-/// A line is numbered beyond the end farther from the middle of the roof: the eave end of a rafter, so
-/// that the numbers of the two planes of a gable sit at their own eaves and not together along the ridge.
-fn label_side(line: &crate::PlanLine, center_m: [f64; 2]) -> LabelSide {
+/// A line is numbered beyond its eave end (its start: the low end of a sloped line), as the crew sheet
+/// says: the numbers of the two planes of a gable sit at their own eaves, and a line that runs down to
+/// a valley is numbered there, not at the ridge where it would sit among the next plane's lines.
+fn label_side(line: &crate::PlanLine) -> LabelSide {
     let along_y =
         (line.end_m[1] - line.start_m[1]).abs() >= (line.end_m[0] - line.start_m[0]).abs();
     let axis = usize::from(along_y);
-    let (low, high) = if line.start_m[axis] <= line.end_m[axis] {
-        (line.start_m[axis], line.end_m[axis])
-    } else {
-        (line.end_m[axis], line.start_m[axis])
-    };
-    let at_high_end = (high - center_m[axis]).abs() > (low - center_m[axis]).abs() + 1e-6;
-    match (along_y, at_high_end) {
+    let start_is_high = line.start_m[axis] > line.end_m[axis] + 1e-9;
+    match (along_y, start_is_high) {
         (true, false) => LabelSide::Below,
         (true, true) => LabelSide::Above,
         (false, false) => LabelSide::Left,
@@ -515,7 +510,6 @@ fn draw_line_numbers(
     schedule: &Schedule,
     transform: &Transform,
     vertical_lines: bool,
-    center_m: [f64; 2],
     obstacles: &mut Vec<Area>,
 ) -> u32 {
     let mut lines: Vec<_> = schedule.plan.rafter_lines.iter().collect();
@@ -558,7 +552,7 @@ fn draw_line_numbers(
                 (line.number - first).is_multiple_of(step)
                     || (line.number == final_number && label_final)
             })
-            .map(|line| number_place(line, transform, center_m))
+            .map(|line| number_place(line, transform))
             .collect()
     };
     // The first step that leaves room by the typical gap, made coarser while two numbers would still
@@ -613,11 +607,11 @@ struct NumberPlace {
     area: Area,
 }
 
-fn number_place(line: &crate::PlanLine, transform: &Transform, center_m: [f64; 2]) -> NumberPlace {
+fn number_place(line: &crate::PlanLine, transform: &Transform) -> NumberPlace {
     let (a, b) = (transform.page(line.start_m), transform.page(line.end_m));
     let text = line.number.to_string();
     let w = width_mm(&text, Font::Regular, NUMBER_PT);
-    let side = label_side(line, center_m);
+    let side = label_side(line);
     // Baseline point, alignment and the box the number takes.
     let (at, align, area) = match side {
         LabelSide::Above => {
@@ -807,22 +801,31 @@ pub(crate) fn role_words(role: SupportRole) -> &'static str {
     }
 }
 
-/// Each plane's name inside it and, for a roof with hips or valleys, the table of roof-line lengths,
-/// off the roof where there is room (the drawing's corners are tried first).
-fn draw_roof_marks(
+/// The planes' outlines on the page, in plane order.
+fn planes_on_page(schedule: &Schedule, transform: &Transform) -> Vec<Vec<[f64; 2]>> {
+    schedule
+        .plan
+        .planes
+        .iter()
+        .map(|plane| transform.polygon(&plane.polygon_m))
+        .collect()
+}
+
+/// Each plane's name, inside the plane where it fits.
+fn draw_plane_names(
     canvas: &mut Canvas,
     schedule: &Schedule,
     transform: &Transform,
     bounds: Area,
     taken: &mut Taken,
 ) {
-    let plan = &schedule.plan;
-    let planes_page: Vec<Vec<[f64; 2]>> = plan
+    let planes_page = planes_on_page(schedule, transform);
+    let names: Vec<String> = schedule
+        .plan
         .planes
         .iter()
-        .map(|plane| transform.polygon(&plane.polygon_m))
+        .map(|plane| plane.name.clone())
         .collect();
-    let names: Vec<String> = plan.planes.iter().map(|plane| plane.name.clone()).collect();
     let plane_regions: Vec<Vec<Vec<[f64; 2]>>> = planes_page
         .iter()
         .map(|polygon| vec![polygon.clone()])
@@ -834,10 +837,32 @@ fn draw_roof_marks(
         bounds,
         taken,
     );
+}
+
+/// For a roof with hips or valleys, the table of roof-line lengths, off the roof where there is room
+/// (the drawing's corners are tried first).
+fn draw_roof_line_table(
+    canvas: &mut Canvas,
+    schedule: &Schedule,
+    transform: &Transform,
+    bounds: Area,
+    taken: &mut Taken,
+) {
     let imperial = schedule.basis.units == Units::Imperial;
-    if let Some(rows) = roof_line_rows(&plan.roof_lines, imperial) {
+    let Some(rows) = roof_line_rows(&schedule.plan.roof_lines, imperial) else {
+        return;
+    };
+    let regions = [planes_on_page(schedule, transform)];
+    // Where the whole table finds no free place, the hips and valleys alone (the ridges are level:
+    // their lengths are plain from the drawing's dimensions).
+    let hips_and_valleys: Vec<String> = rows
+        .iter()
+        .filter(|row| !row.starts_with("ridge"))
+        .cloned()
+        .collect();
+    for lines in [rows, hips_and_valleys] {
         let table = PlanLabel {
-            lines: rows,
+            lines,
             region: None,
             style: LabelStyle::Table,
             anchors: vec![
@@ -847,7 +872,9 @@ fn draw_roof_marks(
                 [bounds.x, bounds.y],
             ],
         };
-        place_labels(canvas, &[table], &[planes_page], bounds, taken);
+        if place_labels(canvas, &[table], &regions, bounds, taken) == 0 {
+            return;
+        }
     }
 }
 
@@ -1116,28 +1143,22 @@ mod label_side_tests {
     #[test]
     fn each_gable_plane_is_numbered_at_its_own_eave() {
         // A 10 m deep gable, ridge at y = 5: the south rafter runs 0 -> 5, the north one 10 -> 5.
-        let center = [9.0, 5.0];
-        assert_eq!(
-            label_side(&line([2.0, 0.0], [2.0, 5.0]), center),
-            LabelSide::Below
-        );
-        assert_eq!(
-            label_side(&line([2.0, 10.0], [2.0, 5.0]), center),
-            LabelSide::Above
-        );
+        assert_eq!(label_side(&line([2.0, 0.0], [2.0, 5.0])), LabelSide::Below);
+        assert_eq!(label_side(&line([2.0, 10.0], [2.0, 5.0])), LabelSide::Above);
         // Hip-end jacks run along x: numbered at their eave, left or right.
+        assert_eq!(label_side(&line([0.0, 3.0], [2.0, 3.0])), LabelSide::Left);
         assert_eq!(
-            label_side(&line([0.0, 3.0], [2.0, 3.0]), center),
-            LabelSide::Left
-        );
-        assert_eq!(
-            label_side(&line([18.0, 3.0], [16.0, 3.0]), center),
+            label_side(&line([18.0, 3.0], [16.0, 3.0])),
             LabelSide::Right
         );
-        // A joist across a flat roof: both ends equally far, numbered below.
+        // A rafter of a T's main wing that runs down to a valley under the rear wing, from y = 20 to
+        // the ridge at y = 13: numbered at the valley, above, not at the ridge among the next
+        // plane's lines (farther from the middle of the plan, which is what used to decide).
         assert_eq!(
-            label_side(&line([2.0, 0.0], [2.0, 10.0]), center),
-            LabelSide::Below
+            label_side(&line([12.0, 20.0], [12.0, 13.0])),
+            LabelSide::Above
         );
+        // A joist across a flat roof: numbered at its start, below.
+        assert_eq!(label_side(&line([2.0, 0.0], [2.0, 10.0])), LabelSide::Below);
     }
 }
