@@ -6,7 +6,7 @@ use crate::basis::BasisStandards;
 use crate::job::{Job, NailOutcome};
 use crate::project::{EdgeBlocking, Project, StaggerChoice, StartCorner};
 use crate::rules::spacing_rule_sources;
-use deckhold_deck::layout::{Course, DeckLayout, SupportRole};
+use deckhold_deck::layout::{Course, DeckLayout, LineKind, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_model::format::{feet_inches, fixed, m_to_ft, thickness_label, trimmed};
 use deckhold_model::Units;
@@ -122,7 +122,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         framing_member: project.framing.member.as_str().to_string(),
         deck_description: deck_text(project, project.units),
         panel_laying: laying_text(project, &job.layout, project.units),
-        laying_starts: laying_rows(&job.layout),
+        laying_starts: laying_rows(&job.layout, project.deck.start_corner),
         nail: NailInfo {
             id: nail.id.clone(),
             description: nail.description.clone(),
@@ -225,20 +225,29 @@ fn laying_text(project: &Project, layout: &DeckLayout, units: Units) -> String {
     )
 }
 
-/// Where the first panel goes on each plane, with the plane's lowest-numbered line.
-fn laying_rows(layout: &DeckLayout) -> Vec<LayingRow> {
+/// Where the first panel goes on each plane, with the plane's framing line nearest the start corner
+/// (lines are numbered from the smaller coordinate: the lowest number, or the highest when laying
+/// starts at the larger coordinate; blocking is not a framing line here).
+fn laying_rows(layout: &DeckLayout, start_corner: StartCorner) -> Vec<LayingRow> {
     layout
         .laying_starts
         .iter()
         .map(|start| LayingRow {
             plane: plane_name(start.plane_index),
             corner_m: start.corner_m,
-            first_line: layout
-                .lines
-                .iter()
-                .filter(|line| line.plane_index == start.plane_index)
-                .map(|line| line.number)
-                .min(),
+            first_line: {
+                let numbers = layout
+                    .lines
+                    .iter()
+                    .filter(|line| {
+                        line.plane_index == start.plane_index && line.kind != LineKind::Blocking
+                    })
+                    .map(|line| line.number);
+                match start_corner {
+                    StartCorner::SmallerCoordinate => numbers.min(),
+                    StartCorner::LargerCoordinate => numbers.max(),
+                }
+            },
             first_course_offset_m: start.first_course_offset_m,
         })
         .collect()

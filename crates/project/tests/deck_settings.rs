@@ -93,3 +93,28 @@ fn a_nonsense_laying_start_is_refused_naming_the_key_written() {
         );
     }
 }
+
+#[test]
+fn laying_from_the_larger_coordinate_starts_on_the_last_line() {
+    // The demo's south plane P1 has lines 1..31 from x = 0 to 18.3 m: laying from the larger x starts
+    // at its eave corner x = 18.6 m (0.3 m rake overhang) on line 31.
+    let mut value = fixture("demo-ca-gable.json");
+    value["deck"]["start_corner"] = json!("larger-coordinate");
+    let project = project_from_value(&value).expect("valid");
+    let job = deckhold_project::run_job(&project).expect("runs");
+    let schedule = deckhold_project::schedule_for(&project, &job);
+    let first = &schedule.laying_starts[0];
+    assert_eq!(first.plane, "P1");
+    assert_eq!(first.first_line, Some(31));
+    assert!(
+        (first.corner_m[0] - 18.6).abs() < 1e-9,
+        "{:?}",
+        first.corner_m
+    );
+    let plain = project_from_value(&fixture("demo-ca-gable.json")).expect("valid");
+    let job = deckhold_project::run_job(&plain).expect("runs");
+    assert_eq!(
+        deckhold_project::schedule_for(&plain, &job).laying_starts[0].first_line,
+        Some(1)
+    );
+}
