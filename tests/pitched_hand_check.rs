@@ -208,7 +208,7 @@ fn t_cross_gable_by_hand() {
 }
 
 /// A rectangle written as a four-corner polygon (clockwise, from another corner) gives the same
-/// schedule as the same rectangle written as `rectangle`: regression against our own output, both ways.
+/// schedule as the same rectangle written as `rectangle`, for a gable, a hip and a monoslope roof: regression against our own output, both ways.
 #[test]
 fn a_rectangle_as_a_polygon_gives_the_same_schedule() {
     for (name, corners) in [
@@ -219,6 +219,10 @@ fn a_rectangle_as_a_polygon_gives_the_same_schedule() {
         (
             "us-hip.json",
             serde_json::json!({ "polygon_ft": [[0, 0], [0, 32], [60, 32], [60, 0]] }),
+        ),
+        (
+            "us-lean-to-addition.json",
+            serde_json::json!({ "polygon_ft": [[28, 12], [0, 12], [0, 0], [28, 0]] }),
         ),
     ] {
         let text = fixture_text(name);
