@@ -247,19 +247,24 @@ pub fn coefficient_table_template(edition: &str) -> Result<Value, WindError> {
             format!("'{edition}' is not an edition with built-in data (NBC 2020, ASCE 7-22)"),
         )
     })?;
-    let curves: Vec<Value> = data
-        .curves
-        .iter()
-        .map(|curve| {
-            serde_json::json!({
-                "set": curve.set,
-                "region": curve.region,
-                "code_zone": curve.code_zone,
-                "figure": curve.figure,
-                "points": curve.points.iter().map(|p| serde_json::json!({"area_m2": p.area_m2, "coefficient": p.coefficient})).collect::<Vec<_>>(),
-            })
-        })
-        .collect();
+    // Each row names its figure as the zone map does (without the built-in row's notes such as
+    // "low confidence", which would not describe the user's values).
+    let mut curves: Vec<Value> = Vec::with_capacity(data.curves.len());
+    for curve in &data.curves {
+        let figure = &crate::zone_maps::figure(&data.figures, &curve.set, &data.edition)?.figure;
+        let points: Vec<Value> = curve
+            .points
+            .iter()
+            .map(|p| serde_json::json!({"area_m2": p.area_m2, "coefficient": p.coefficient}))
+            .collect();
+        curves.push(serde_json::json!({
+            "set": curve.set,
+            "region": curve.region,
+            "code_zone": curve.code_zone,
+            "figure": figure,
+            "points": points,
+        }));
+    }
     Ok(serde_json::json!({
         "edition": data.edition,
         "source": "",
