@@ -21,6 +21,7 @@ pub const GOOD_FIXTURES: &[&str] = &[
     "template-ca.json",
     "template-us.json",
     "us-retrofit-1970s.json",
+    "us-lean-to-addition.json",
 ];
 
 /// Path of a file under `fixtures/`.
