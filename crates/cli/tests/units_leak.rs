@@ -193,6 +193,48 @@ fn us_project_outputs_are_in_us_units_only() {
 }
 
 #[test]
+fn us_retrofit_outputs_are_in_us_units_only() {
+    // The run, and the plan-check report of existing nails plus an added ring-shank nail or a stated
+    // screw: their warnings (ring and thread lengths credited) and the stated screw's size come from the
+    // fasten crate in SI and must reach a US reader in inches.
+    assert_clean("us-retrofit-1970s.json", None, true, &[], &[]);
+    for added in ["rsrs-01", "deck-screw-9x2.5"] {
+        let folder = tempfile::tempdir().expect("temp dir");
+        let project = fixture("us-retrofit-1970s.json");
+        let output = deckhold()
+            .args(["check", &project.display().to_string(), "--add", added])
+            .args(["--out", &folder.path().display().to_string()])
+            .output()
+            .expect("runs");
+        let mut texts = vec![
+            ("console", String::from_utf8(output.stdout).expect("UTF-8")),
+            (
+                "check.csv",
+                std::fs::read_to_string(folder.path().join("check.csv")).expect("written"),
+            ),
+        ];
+        let pdf = std::process::Command::new("pdftotext")
+            .arg(folder.path().join("check.pdf"))
+            .arg("-")
+            .output()
+            .expect("`pdftotext` is missing: install poppler-utils");
+        texts.push((
+            "check.pdf text",
+            String::from_utf8_lossy(&pdf.stdout).into_owned(),
+        ));
+        let failures: Vec<String> = texts
+            .iter()
+            .flat_map(|(name, text)| {
+                si_leaks(text)
+                    .into_iter()
+                    .map(move |leak| format!("{added} {name}: {leak}"))
+            })
+            .collect();
+        assert!(failures.is_empty(), "{}", failures.join("\n"));
+    }
+}
+
+#[test]
 fn canadian_demo_outputs_are_in_si_only() {
     // The design basis quotes the NDS pull-through table in its own unit beside the value used.
     assert_clean(

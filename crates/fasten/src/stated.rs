@@ -82,8 +82,13 @@ pub fn stated_fastener(stated: &StatedFastener) -> Result<Nail, FastenError> {
     Ok(Nail {
         id: stated.id.clone(),
         description: format!(
-            "{} {kind_word} stated in the project, {:.1} mm x {:.2} mm, head {:.2} mm",
-            shank.as_str(),
+            "{} stated in the project, {:.1} mm x {:.2} mm, head {:.2} mm",
+            // A screw's shank word is "screw" already: say it once.
+            if shank.as_str() == kind_word {
+                kind_word.to_string()
+            } else {
+                format!("{} {kind_word}", shank.as_str())
+            },
             stated.length_mm,
             stated.diameter_mm,
             stated.head_diameter_mm

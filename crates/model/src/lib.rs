@@ -5,6 +5,7 @@
 //! them so that the computation never depends on a writer: no I/O here, nothing computed.
 
 pub mod format;
+mod message_lengths;
 mod schedule;
 mod summary;
 

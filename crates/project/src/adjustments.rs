@@ -13,6 +13,7 @@ pub fn each_adjustment(courses: &[Course], min_piece_m: f64, units: Units) -> Ve
     let words = LengthWords {
         position: &position,
         size: &size,
+        key_unit: if units.is_us() { "in" } else { "mm" },
     };
     courses
         .iter()
@@ -55,6 +56,7 @@ pub fn layout_adjustments(courses: &[Course], min_piece_m: f64, units: Units) ->
     let words = LengthWords {
         position: &position,
         size: &size,
+        key_unit: if units.is_us() { "in" } else { "mm" },
     };
     let mut grouped: Vec<(usize, String, Vec<usize>)> = Vec::new();
     let mut slivers: Vec<(usize, Vec<u32>, f64, f64)> = Vec::new();
@@ -98,14 +100,27 @@ pub fn layout_adjustments(courses: &[Course], min_piece_m: f64, units: Units) ->
                 size(SLIVER_M)
             )
         });
-    grouped
+    // The same change on the same courses of several planes (a top course on every plane of a hip
+    // roof) is said once, naming the planes.
+    let mut merged: Vec<(Vec<usize>, String, Vec<usize>)> = Vec::new();
+    for (plane, what, list) in grouped {
+        match merged
+            .iter_mut()
+            .find(|(_, text, courses)| *text == what && *courses == list)
+        {
+            Some((planes, _, _)) => planes.push(plane),
+            None => merged.push((vec![plane], what, list)),
+        }
+    }
+    merged
         .into_iter()
-        .map(|(plane, what, list)| {
+        .map(|(planes, what, list)| {
             let numbers: Vec<String> = list.iter().map(ToString::to_string).collect();
+            let names: Vec<String> = planes.iter().map(|&plane| plane_name(plane)).collect();
             let word = if list.len() == 1 { "course" } else { "courses" };
             format!(
                 "Deck layout, {} {word} {}: {what}",
-                plane_name(plane),
+                names.join(", "),
                 numbers.join(", ")
             )
         })

@@ -8,7 +8,9 @@ use crate::project::{EdgeBlocking, Project, StaggerChoice, StartCorner};
 use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, LineKind, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
-use deckhold_model::format::{feet_inches, fixed, m_to_ft, thickness_label, trimmed};
+use deckhold_model::format::{
+    feet_inches, fixed, lengths_for_reader, m_to_ft, thickness_label, trimmed,
+};
 use deckhold_model::Units;
 use deckhold_model::{
     cautions_for, plane_name, BasisInfo, FactorRow, LayingRow, LineRow, NailInfo, PlanEdge,
@@ -107,7 +109,11 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     // The catalogs write ids in backticks for the docs; the report is plain text.
     let plain = |text: &String| text.replace('`', "");
     let provenance = provenance.iter().map(plain).collect();
-    let warnings = warnings.iter().map(plain).collect();
+    let us = project.units.is_us();
+    let warnings = warnings
+        .iter()
+        .map(|warning| lengths_for_reader(&plain(warning), us))
+        .collect();
 
     Schedule {
         project: project.info.clone(),
@@ -125,7 +131,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         laying_starts: laying_rows(&job.layout, project.deck.start_corner),
         nail: NailInfo {
             id: nail.id.clone(),
-            description: nail.description.clone(),
+            description: lengths_for_reader(&nail.description, project.units.is_us()),
             length_mm: nail.length_mm,
             shank_diameter_mm: nail.shank_diameter_mm,
             head_diameter_mm: nail.head_diameter_mm,

@@ -10,7 +10,7 @@ use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::units::MM_PER_IN;
 use deckhold_project::{check_pattern, ExistingPattern, PatternSpacing};
-use deckhold_schedule::format::force_label;
+use deckhold_schedule::format::{force_label, lengths_for_reader};
 use deckhold_schedule::Units;
 
 pub fn run(
@@ -82,7 +82,7 @@ pub fn run(
         outln!(
             "Plan check: {} ({}), {} per nail ({}){}\n",
             checked.nail.id,
-            checked.nail.description,
+            lengths_for_reader(&checked.nail.description, units.is_us()),
             force_label(checked.resistance.governing_n, units.is_us()),
             checked.resistance.governing_mode.as_str(),
             if pattern.credit < 1.0 {

@@ -4,8 +4,8 @@
 use deckhold_deck::spacing::DeckPlan;
 use deckhold_project::basis::BasisStandards;
 use deckhold_project::{ExistingPattern, PatternCheck, Project, Retrofit, COMBINATION_RULE};
-use deckhold_schedule::format::fixed;
-use deckhold_schedule::format::{force_label, spacing_label};
+use deckhold_schedule::format::{feet_inches, fixed, mm_to_in, places, trimmed};
+use deckhold_schedule::format::{force_label, lengths_for_reader, spacing_label};
 use deckhold_schedule::{Block, Part, Report};
 
 /// One zone and role of the report, whether a plain check or a retrofit.
@@ -89,6 +89,10 @@ impl<'a> CheckReport<'a> {
                 Some(retrofit.added.id.clone()),
             ),
         };
+        let warnings = warnings
+            .iter()
+            .map(|warning: &String| lengths_for_reader(warning, is_us))
+            .collect();
         CheckReport {
             project,
             pattern,
@@ -156,7 +160,7 @@ fn fastener_summary(
     format!(
         "{} ({}), {} per fastener ({})",
         nail.id,
-        nail.description,
+        lengths_for_reader(&nail.description, is_us),
         force_label(resistance.governing_n, is_us),
         resistance.governing_mode.as_str()
     )
@@ -197,12 +201,29 @@ fn field(text: &str) -> String {
 }
 
 /// `check.csv`: the zone rows (`section` = zone), then one row per stretch of every framing line
-/// (`section` = line) with the pattern that applies there.
+/// (`section` = line) with the pattern that applies there. In the report's units: m and mm, or
+/// feet-inches and inches (the headers say which).
 pub fn check_csv(report: &CheckReport) -> Vec<u8> {
-    let mut text = String::from(
-        "section,zone,code_zone,support_role,line,from_m,to_m,reaction_width_mm,existing_spacing_mm,\
-         added_spacing_mm,utilization,pass,what_to_add,notes\n",
-    );
+    let is_us = report.project.units.is_us();
+    let small = |mm: f64| {
+        if is_us {
+            trimmed(mm_to_in(mm), places::SPACING_IN_CSV)
+        } else {
+            fixed(mm, 1)
+        }
+    };
+    let position = |m: f64| if is_us { feet_inches(m) } else { fixed(m, 3) };
+    let mut text = if is_us {
+        String::from(
+            "section,zone,code_zone,support_role,line,from_ft_in,to_ft_in,reaction_width_in,\
+             existing_spacing_in,added_spacing_in,utilization,pass,what_to_add,notes\n",
+        )
+    } else {
+        String::from(
+            "section,zone,code_zone,support_role,line,from_m,to_m,reaction_width_mm,\
+             existing_spacing_mm,added_spacing_mm,utilization,pass,what_to_add,notes\n",
+        )
+    };
     for row in &report.rows {
         text.push_str(&format!(
             "zone,{},{},{},{},,,,{},{},{},{},{},{}\n",
@@ -210,8 +231,8 @@ pub fn check_csv(report: &CheckReport) -> Vec<u8> {
             field(&row.code_zone),
             row.role,
             row.line,
-            fixed(row.existing_mm, 1),
-            row.added_mm.map(|mm| fixed(mm, 1)).unwrap_or_default(),
+            small(row.existing_mm),
+            row.added_mm.map(small).unwrap_or_default(),
             fixed(row.utilization, 3),
             row.passes,
             field(&row.what_to_add),
@@ -230,12 +251,12 @@ pub fn check_csv(report: &CheckReport) -> Vec<u8> {
             text.push_str(&format!(
                 "line,{zone},,{role},{},{},{},{},{},{},,,,\n",
                 line.number,
-                fixed(segment.from_m, 3),
-                fixed(segment.to_m, 3),
-                fixed(segment.reaction_width_mm, 1),
-                row.map(|row| fixed(row.existing_mm, 1)).unwrap_or_default(),
+                field(&position(segment.from_m)),
+                field(&position(segment.to_m)),
+                small(segment.reaction_width_mm),
+                row.map(|row| small(row.existing_mm)).unwrap_or_default(),
                 row.and_then(|row| row.added_mm)
-                    .map(|mm| fixed(mm, 1))
+                    .map(small)
                     .unwrap_or_default(),
             ));
         }

@@ -16,7 +16,9 @@ use deckhold_fasten::CatalogBasis;
 use deckhold_project::reach::{prescriptive_reach, PrescriptiveReach, ReachBase};
 use deckhold_project::rules::prescriptive_minimum_length;
 use deckhold_project::{run_job_with_nails, BasisStandards, Job, NailOutcome, Project};
-use deckhold_schedule::format::{force_label, mass_label, small_length_label, KG_PER_LB};
+use deckhold_schedule::format::{
+    force_label, lengths_for_reader, mass_label, small_length_label, KG_PER_LB,
+};
 use deckhold_schedule::Units;
 use std::collections::HashMap;
 
@@ -81,7 +83,7 @@ fn compare_row(
     };
     Ok(CompareRow {
         nail_id: candidate.nail.id.clone(),
-        description: candidate.nail.description.clone(),
+        description: lengths_for_reader(&candidate.nail.description, project.units.is_us()),
         penetration_mm: candidate.penetration_mm,
         withdrawal_n: resistance.map(|resistance| resistance.withdrawal_n),
         pull_through_n: resistance.and_then(|resistance| resistance.pull_through_n),

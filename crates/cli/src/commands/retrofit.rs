@@ -9,7 +9,7 @@ use super::{caution_lines, spacing_text};
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::{plan_retrofit, ExistingPattern, Project, Retrofit, COMBINATION_RULE};
-use deckhold_schedule::format::{force_label, spacing_label};
+use deckhold_schedule::format::{force_label, lengths_for_reader, spacing_label};
 use deckhold_wind::WindAnalysis;
 
 pub fn run(
@@ -93,7 +93,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
          Closest spacing between any two fasteners: {}\n\
          Combination: {COMBINATION_RULE}\n\n",
         retrofit.existing.id,
-        retrofit.existing.description,
+        lengths_for_reader(&retrofit.existing.description, is_us),
         force_label(retrofit.existing_resistance.governing_n, is_us),
         fixed(retrofit.credit, 2),
         force_label(
@@ -101,7 +101,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
             is_us
         ),
         retrofit.added.id,
-        retrofit.added.description,
+        lengths_for_reader(&retrofit.added.description, is_us),
         force_label(retrofit.added_resistance.governing_n, is_us),
         retrofit.added_resistance.governing_mode.as_str(),
         spacing_label(Some(retrofit.min_neighbour_mm), is_us),
@@ -152,7 +152,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
         .iter()
         .chain(&retrofit.added_resistance.warnings)
     {
-        text.push_str(&format!("  - {warning}\n"));
+        text.push_str(&format!("  - {}\n", lengths_for_reader(warning, is_us)));
     }
     text
 }

@@ -32,6 +32,8 @@ pub enum LayoutChange {
 pub struct LengthWords<'a> {
     pub position: &'a dyn Fn(f64) -> String,
     pub size: &'a dyn Fn(f64) -> String,
+    /// The unit suffix of the keys the reader writes (`mm` or `in`), for naming a setting.
+    pub key_unit: &'a str,
 }
 
 impl std::fmt::Debug for LengthWords<'_> {
@@ -66,8 +68,9 @@ impl LayoutChange {
             ),
             LayoutChange::NarrowTopCourse { width_m } => format!(
                 "the top course is {} wide up the slope, under the {minimum} minimum; rip the first \
-                 course to widen it (deck.first_course_width_mm or _in)",
-                (units.size)(width_m)
+                 course to widen it (deck.first_course_width_{})",
+                (units.size)(width_m),
+                units.key_unit
             ),
             LayoutChange::Sliver { line, width_m } => format!(
                 "a {} sliver between a hip or valley cut and line {line} is carried by the line as a \
@@ -86,6 +89,7 @@ pub fn si_words(change: &LayoutChange, course_index: usize, min_piece_m: f64) ->
     let units = LengthWords {
         position: &position,
         size: &size,
+        key_unit: "mm",
     };
     format!(
         "course {}: {}",

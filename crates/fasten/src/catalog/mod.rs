@@ -168,7 +168,7 @@ mod tests {
         assert_dims("6d-common", 2.0, 0.113, 0.266);
         assert_dims("8d-common", 2.5, 0.131, 0.281);
         assert_dims("10d-common", 3.0, 0.148, 0.312);
-        // 16d 3-1/2 x 0.162: SEAINT list archive 2009c msg00914 (checked, NDS 2005 worked value).
+        // 16d 3-1/2 x 0.162: NDS 2018 Table L4 (from memory, NDS 2018).
         assert_dims("16d-common", 3.5, 0.162, 0.344);
     }
 

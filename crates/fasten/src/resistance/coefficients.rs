@@ -213,11 +213,11 @@ pub const NDS_WH_COEFFICIENT: Coefficient = from_memory(
 );
 
 /// Load duration factors for ASD.
-pub const NDS_CD_WIND: Coefficient = checked(
+pub const NDS_CD_WIND: Coefficient = from_memory(
     "C_D",
     1.6,
     "",
-    "NDS 2018 Table 2.3.2, C_D = 1.6 for wind and earthquake (checked: SEAINT list archive 2009c msg00914)",
+    "NDS 2018 Table 2.3.2, C_D = 1.6 for wind and earthquake",
 );
 pub const NDS_CD_TEN_YEARS: Coefficient = from_memory(
     "C_D",
@@ -320,9 +320,9 @@ pub const NDS_MIN_PENETRATION_DIAMETERS: Coefficient = from_memory(
      in general and applied to withdrawal)",
 );
 pub const NDS_MIN_PENETRATION_RULE: &str = "6D, NDS 2018 12.1.6.4 (from memory)";
-pub const NDS_END_GRAIN_RULE: &str = "NDS 2018 12.2.3 (from memory; the 2001 wording 'Nails and \
-    spikes shall not be loaded in withdrawal from end grain of wood' checked via SEAINT list archive \
-    2005b msg00555)";
+pub const NDS_END_GRAIN_RULE: &str =
+    "NDS 2018 12.2.3 (from memory): nails and spikes shall not be \
+    loaded in withdrawal from end grain of wood";
 
 #[cfg(test)]
 mod tests {
