@@ -9,10 +9,11 @@
 //! 3. each course's strips hold exactly the deck of the course (reactions sum to the load);
 //! 5. any spacing at or below either overhang is laid out (never refused).
 
-use deckhold_deck::layout::{DeckLayout, LayoutChange, LineKind};
+use deckhold_deck::layout::{DeckLayout, LineKind};
 use deckhold_project::job::deck_layout;
 use deckhold_project::{parse_project, DEMO_PROJECT_JSON};
-use deckhold_tests::outlines::{distance_to_boundary, distance_to_segment, inside};
+use deckhold_tests::deck_checks::check_pieces;
+use deckhold_tests::outlines::{distance_to_segment, inside};
 use deckhold_wind::{RoofPlane, WindAnalysis};
 use proptest::prelude::*;
 use serde_json::{json, Value};
@@ -98,19 +99,6 @@ fn on_boundary(plane: &RoofPlane, p: [f64; 2]) -> bool {
         .any(|edge| distance_to_segment(p, edge.from_m, edge.to_m) < 1e-5)
 }
 
-/// Plan bounding box of a polygon.
-fn bounds(polygon: &[[f64; 2]]) -> ([f64; 2], [f64; 2]) {
-    let mut lo = [f64::INFINITY; 2];
-    let mut hi = [f64::NEG_INFINITY; 2];
-    for p in polygon {
-        for k in 0..2 {
-            lo[k] = lo[k].min(p[k]);
-            hi[k] = hi[k].max(p[k]);
-        }
-    }
-    (lo, hi)
-}
-
 proptest! {
     #![proptest_config(ProptestConfig::with_cases(cases(24)))]
 
@@ -152,82 +140,12 @@ proptest! {
 
     #[test]
     fn pieces_cover_the_deck_once_end_on_lines_and_are_narrow_only_when_said(roof in roofs()) {
-        // Check 2 in two dimensions, on every plane (hip ends and side trapezoids included):
-        // - every sampled point of the plane lies in exactly one piece's outline (pieces cut along
-        //   the hips; none outside the plane);
-        // - every panel end with deck beyond it lies on a framing line;
-        // - no piece is narrower than the minimum unless its course reports the narrow piece.
+        // Check 2 in two dimensions, on every plane (hip ends and side trapezoids included): see
+        // `deck_checks::check_pieces`, shared with the L/T/U/Z roofs.
         let Some((wind, layout, min_piece_mm)) = lay_out(&roof) else {
             return Err(TestCaseError::reject("the wind method refuses this building"));
         };
-        for (plane_index, plane) in wind.planes.iter().enumerate() {
-            let pieces: Vec<_> = layout.pieces.iter().filter(|p| p.plane_index == plane_index).collect();
-            prop_assert!(!pieces.is_empty());
-            let (lo, hi) = bounds(&plane.polygon_m);
-            // A 13 x 11 grid at odd offsets, so no sample falls on a joint or course line by design.
-            for i in 0..13 {
-                for j in 0..11 {
-                    let p = [
-                        lo[0] + (hi[0] - lo[0]) * (f64::from(i) + 0.3719) / 13.0,
-                        lo[1] + (hi[1] - lo[1]) * (f64::from(j) + 0.6173) / 11.0,
-                    ];
-                    if !inside(&plane.polygon_m, p) || distance_to_boundary(&plane.polygon_m, p) < 1e-6 {
-                        continue;
-                    }
-                    let covering = pieces
-                        .iter()
-                        .filter(|piece| inside(&piece.outline_m, p) && distance_to_boundary(&piece.outline_m, p) > 1e-7)
-                        .count();
-                    let on_an_edge = pieces.iter().any(|piece| distance_to_boundary(&piece.outline_m, p) <= 1e-7);
-                    prop_assert!(
-                        covering == 1 || (covering == 0 && on_an_edge),
-                        "plane {plane_index}: point {p:?} is covered by {covering} pieces"
-                    );
-                }
-            }
-            for piece in &pieces {
-                // Inside the plane: the outline's centroid is.
-                let n = piece.outline_m.len() as f64;
-                let centre = [
-                    piece.outline_m.iter().map(|q| q[0]).sum::<f64>() / n,
-                    piece.outline_m.iter().map(|q| q[1]).sum::<f64>() / n,
-                ];
-                prop_assert!(inside(&plane.polygon_m, centre), "a piece outside its plane: {:?}", piece.outline_m);
-                // Each end with deck beyond it is a joint between panels: on a line.
-                let along_x = layout.lines.iter().find(|l| l.plane_index == plane_index).is_some_and(|l| l.plan_start_m[0] == l.plan_end_m[0]);
-                let k = usize::from(!along_x);
-                for (end_m, outward, line) in [(piece.start_m, -1.0, piece.start_line), (piece.end_m, 1.0, piece.end_line)] {
-                    let on_end: Vec<_> = piece.outline_m.iter().filter(|q| (q[k] - end_m).abs() < 1e-9).collect();
-                    if on_end.len() < 2 {
-                        continue; // cut along a hip before the end: no panel edge there
-                    }
-                    let mut beyond = [0.5 * (on_end[0][0] + on_end[1][0]), 0.5 * (on_end[0][1] + on_end[1][1])];
-                    beyond[k] += outward * 1e-5;
-                    if inside(&plane.polygon_m, beyond) {
-                        prop_assert!(line.is_some(), "a panel end at {end_m} off the framing (plane {plane_index})");
-                    }
-                }
-                let reported = layout.courses.iter().any(|c| {
-                    c.plane_index == plane_index
-                        && c.index == piece.course
-                        && c.changes.iter().any(|change| matches!(change, LayoutChange::NarrowPiece { .. }))
-                });
-                prop_assert!(
-                    piece.length_m * 1000.0 >= min_piece_mm - 1e-6 || reported,
-                    "piece of {:.0} mm under the minimum {min_piece_mm} mm (course {}) and not reported",
-                    piece.length_m * 1000.0,
-                    piece.course
-                );
-            }
-        }
-        // Courses tile each plane up the slope.
-        for plane_index in 0..=layout.courses.iter().map(|c| c.plane_index).max().unwrap_or(0) {
-            let courses: Vec<_> = layout.courses.iter().filter(|c| c.plane_index == plane_index).collect();
-            prop_assert_eq!(courses[0].from_m, 0.0);
-            for pair in courses.windows(2) {
-                prop_assert_eq!(pair[0].to_m, pair[1].from_m);
-            }
-        }
+        check_pieces(&wind, &layout, min_piece_mm)?;
     }
 
     #[test]

@@ -12,63 +12,20 @@
 //!
 //! Case counts are modest for CI (a debug build runs them in seconds); `PROPTEST_CASES=N` raises them.
 
-use deckhold_deck::layout::{DeckLayout, FramingLine, LineKind};
-use deckhold_project::job::deck_layout;
-use deckhold_project::parse_project;
+use deckhold_deck::layout::{FramingLine, LineKind};
 use deckhold_schedule::EdgeKind;
-use deckhold_tests::fixture_text;
 use deckhold_tests::outlines::{
-    distance_to_boundary, distance_to_segment, inside_or_on, is_convex, rectilinear_outline, Point,
+    distance_to_boundary, distance_to_segment, inside_or_on, is_convex, Point,
 };
 use deckhold_tests::reach::{cases, run_counted, REACHED};
+use deckhold_tests::roofs::{lay_out, polygon_roofs, slope_for, LaidOut, Roof};
 use deckhold_wind::WindAnalysis;
 use proptest::prelude::*;
 use proptest::test_runner::TestCaseError;
-use serde_json::{json, Value};
+use serde_json::json;
 
 /// A point this close to a line is on it, m (the layout works to about 1e-9 m).
 const ON_M: f64 = 1e-6;
-
-/// A roof to frame: a random outline with a hip or gable roof, or a rectangle of any shape.
-#[derive(Debug, Clone)]
-struct Roof {
-    footprint: Value,
-    shape: &'static str,
-    slope_deg: f64,
-    spacing_mm: f64,
-    eave_mm: f64,
-    rake_mm: f64,
-}
-
-/// Slope from 2:12 to 12:12 for pitched roofs; flat and monoslope roofs within their own ranges.
-fn slope_for(shape: &str, unit: f64) -> f64 {
-    match shape {
-        "flat" => 7.0 * unit,
-        "monoslope" => 3.0 * unit,
-        _ => (2.0 + 10.0 * unit).atan2(12.0).to_degrees(),
-    }
-}
-
-fn polygon_roofs() -> impl Strategy<Value = Roof> {
-    (
-        rectilinear_outline(),
-        prop_oneof![Just("hip"), Just("gable")],
-        0.0f64..1.0,
-        300.0f64..1220.0,
-        0.0f64..900.0,
-        0.0f64..900.0,
-    )
-        .prop_map(
-            |(outline, shape, unit, spacing_mm, eave_mm, rake_mm)| Roof {
-                footprint: json!({ "polygon_m": outline }),
-                shape,
-                slope_deg: slope_for(shape, unit),
-                spacing_mm,
-                eave_mm,
-                rake_mm,
-            },
-        )
-}
 
 fn rectangle_roofs() -> impl Strategy<Value = Roof> {
     (
@@ -88,32 +45,6 @@ fn rectangle_roofs() -> impl Strategy<Value = Roof> {
             eave_mm,
             rake_mm,
         })
-}
-
-/// The roof on the L bungalow's wind, framing and deck; None when the reader or the wind method
-/// refuses it (a gable running into another wing, a roof higher than the house is wide).
-fn lay_out(roof: &Roof) -> Option<(WindAnalysis, DeckLayout)> {
-    let mut value: Value =
-        serde_json::from_str(&fixture_text("ca-l-hip-bungalow.json")).expect("fixture JSON");
-    value["building"]["footprint"] = roof.footprint.clone();
-    value["roof"] = json!({
-        "shape": roof.shape,
-        "slope_deg": roof.slope_deg,
-        "ridge_along": "length",
-        "eave_overhang_mm": roof.eave_mm,
-        "rake_overhang_mm": roof.rake_mm,
-        "dead_load_kpa": 0.5
-    });
-    if matches!(roof.shape, "hip" | "flat") {
-        let block = value["roof"].as_object_mut().expect("roof block");
-        block.remove("rake_overhang_mm");
-        block.remove("ridge_along");
-    }
-    value["framing"]["spacing_mm"] = json!(roof.spacing_mm);
-    let project = parse_project(&value.to_string()).ok()?;
-    let wind = deckhold_wind::analyze(&project.wind).ok()?;
-    let layout = deck_layout(&project, &wind).expect("a roof the wind method takes is laid out");
-    Some((wind, layout))
 }
 
 /// The ridges, hips and valleys of the roof: every plane edge of those kinds.
@@ -157,7 +88,7 @@ fn corner_index(polygon: &[Point], p: Point) -> Option<usize> {
 
 /// Checks 1 to 4 on one roof; Ok(false) when the roof was refused before the framing.
 fn check_framing(roof: &Roof) -> Result<bool, TestCaseError> {
-    let Some((wind, layout)) = lay_out(roof) else {
+    let Some(LaidOut { wind, layout, .. }) = lay_out(roof) else {
         return Ok(false);
     };
     let outline = &wind.roof_outline_m;

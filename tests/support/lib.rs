@@ -1,9 +1,11 @@
 //! Shared helpers for the cross-crate tests (see the test files beside this folder) and the golden-file
 //! machinery (also used by `crates/cli/tests/golden_fixtures.rs`).
 
+pub mod deck_checks;
 pub mod golden;
 pub mod outlines;
 pub mod reach;
+pub mod roofs;
 
 pub use golden::{golden_path, Goldens};
 
