@@ -378,25 +378,28 @@ pub(crate) fn bearing_at(
         let mut overhang_start_m = 0.0;
         let mut overhang_end_m = 0.0;
         let first = supports.first().copied().unwrap_or(position);
-        if first - side.from_m > MIN_PIECE_M {
+        // Any deck beyond the outermost support is carried as a cantilever, however short: the
+        // piece's load and its reactions must balance (a sub-millimetre rake overhang once went
+        // missing here). Only slivers of a millimetre or more are worth a word in the output.
+        if first - side.from_m > SAME_POSITION_M {
             let at_cut = deck.lo_oblique && near(side.from_m, deck.lo);
             if at_cut && (first - side.from_m) * frame.cross_factor >= SLIVER_M {
                 supports.insert(0, side.from_m);
             } else {
                 overhang_start_m = first - side.from_m;
-                if at_cut {
+                if at_cut && overhang_start_m > MIN_PIECE_M {
                     slivers_m.push(overhang_start_m * frame.cross_factor);
                 }
             }
         }
         let last = supports.last().copied().unwrap_or(position);
-        if side.to_m - last > MIN_PIECE_M {
+        if side.to_m - last > SAME_POSITION_M {
             let at_cut = deck.hi_oblique && near(side.to_m, deck.hi);
             if at_cut && (side.to_m - last) * frame.cross_factor >= SLIVER_M {
                 supports.push(side.to_m);
             } else {
                 overhang_end_m = side.to_m - last;
-                if at_cut {
+                if at_cut && overhang_end_m > MIN_PIECE_M {
                     slivers_m.push(overhang_end_m * frame.cross_factor);
                 }
             }
