@@ -7,12 +7,13 @@
 //!    cut along the hips), every panel end with deck beyond it lies on a line, the courses tile the
 //!    plane up the slope, and no piece is narrower than the minimum unless its course reports it;
 //! 3. each course's strips hold exactly the deck of the course (reactions sum to the load);
+//! 4. each piece's strips hold exactly its deck, on hip roofs too (reactions sum to the load);
 //! 5. any spacing at or below either overhang is laid out (never refused).
 
 use deckhold_deck::layout::{DeckLayout, LineKind};
 use deckhold_project::job::deck_layout;
 use deckhold_project::{parse_project, DEMO_PROJECT_JSON};
-use deckhold_tests::deck_checks::check_pieces;
+use deckhold_tests::deck_checks::{check_piece_equilibrium, check_pieces};
 use deckhold_tests::outlines::{distance_to_segment, inside};
 use deckhold_wind::{RoofPlane, WindAnalysis};
 use proptest::prelude::*;
@@ -172,6 +173,16 @@ proptest! {
                 .sum();
             prop_assert!(((total_mm - pieces_mm) / pieces_mm).abs() < 1e-9, "{total_mm} vs {pieces_mm}");
         }
+    }
+
+    #[test]
+    fn each_piece_holds_its_load_on_every_shape_hip_ends_included(roof in roofs()) {
+        // Check 4, per piece (hip end triangles and side trapezoids included, which check 3 leaves
+        // out): see `deck_checks::check_piece_equilibrium`, shared with the L/T/U/Z roofs.
+        let Some((_, layout, _)) = lay_out(&roof) else {
+            return Err(TestCaseError::reject("the wind method refuses this building"));
+        };
+        prop_assert!(check_piece_equilibrium(&layout)? > 0);
     }
 
     #[test]
