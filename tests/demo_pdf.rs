@@ -96,7 +96,16 @@ fn the_demo_crew_sheet_fits_one_page_with_every_line() {
     }
     let default_pages = page_texts(&schedule_pdf(&schedule, &options(&schedule)).expect("PDF"));
     assert_eq!(default_pages.len(), pages.len() + 1);
-    assert!(default_pages[1].contains("Crew sheet, line by line"));
+    // The pattern and the engineer's table list lines grouped by nailing (line_groups), so no page
+    // may say they go line by line (it did after the grouping landed).
+    assert!(default_pages[1].contains("Crew sheet, lines nailed alike grouped"));
+    for page in &default_pages {
+        let flat = page.to_lowercase().replace('-', " ");
+        assert!(
+            !flat.contains("line by line"),
+            "a page says 'line by line':\n{page}"
+        );
+    }
 }
 
 fn tool(name: &str) -> Command {

@@ -217,7 +217,7 @@ fn right_column(
     placed
 }
 
-/// Where the crew finds the rest: the pattern by line group, and the engineer's line-by-line table.
+/// Where the crew finds the rest: the pattern by line group, and the engineer's table of the same groups.
 struct PageRefs {
     pattern: String,
     /// The numbering and laying notes belong in this column (else they head the pattern table).
@@ -708,7 +708,7 @@ fn footnotes(
     let pointer = (
         format!(
             "The nailing along each {member} line, lines nailed alike grouped, is {}; the engineer's \
-             line-by-line table starts on page {}.",
+             table of the same groups starts on page {}.",
             refs.pattern, refs.line_table
         ),
         Font::Regular,

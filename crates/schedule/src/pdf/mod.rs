@@ -193,7 +193,7 @@ pub fn schedule_pdf(schedule: &Schedule, options: &PdfOptions) -> Result<Vec<u8>
             title: if index == 0 {
                 "Crew sheet".to_string()
             } else {
-                "Crew sheet, line by line".to_string()
+                "Crew sheet, lines nailed alike grouped".to_string()
             },
             body,
         })
