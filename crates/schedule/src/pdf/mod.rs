@@ -11,6 +11,7 @@ mod canvas;
 mod crew_notes;
 mod crew_pattern;
 mod crew_sheet;
+mod deflate;
 mod design_basis;
 mod drawing;
 mod embedded;
@@ -341,20 +342,27 @@ fn document_bytes(
     document.with_pages(pages);
     embedded::add_subsets(&mut document, &embedded_chars)?;
 
+    // `optimize: false`: printpdf would deflate every stream at the best (slowest) level, most of
+    // the writer's time; [`deflate::compress_streams`] does it at a fast level instead.
     let save_options = PdfSaveOptions {
-        optimize: true,
+        optimize: false,
         subset_fonts: false,
         secure: true,
         image_optimization: None,
     };
     let mut warnings = Vec::new();
-    let bytes = document.save(&save_options, &mut warnings);
+    let mut lo_document = document.to_lopdf_document(&save_options, &mut warnings);
     if let Some(error) = warnings
         .iter()
         .find(|w| w.severity == PdfParseErrorSeverity::Error)
     {
         return Err(ScheduleError::Pdf(error.msg.clone()));
     }
+    deflate::compress_streams(&mut lo_document)?;
+    let mut bytes = Vec::new();
+    lo_document
+        .save_to(&mut bytes)
+        .map_err(|error| ScheduleError::Pdf(error.to_string()))?;
     set_trailer_id(bytes, &options.document_id)
 }
 
