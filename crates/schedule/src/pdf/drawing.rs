@@ -1,9 +1,10 @@
 //! The roof plan to scale: zones in grey tones with hatches (so a black-and-white copy still tells them
 //! apart), wall and roof lines, ridges and hips, framing lines with their numbers, panel joints, the
-//! building's overall dimensions and a scale bar; then the names of the planes, a label per zone and
-//! the table of roof lines, none of them over another.
+//! building's overall dimensions and a scale bar; then the names of the planes, a label per zone, the
+//! table of roof lines and a monoslope's high and low eave marks, none of them over another.
 
 use super::canvas::{Align, Area, Canvas, Stroke};
+use super::eave_marks::eave_labels;
 use super::geometry::{area, bounds, label_anchor};
 use super::labels::{place_labels, LabelStyle, PlanLabel, Taken};
 use super::page::Paper;
@@ -470,6 +471,13 @@ pub(crate) fn draw_plan(
         leaders: Vec::new(),
     };
     draw_roof_line_table(canvas, schedule, &transform, bounds, &mut taken);
+    // A monoslope's eave marks before the zone labels: they must sit beside their eaves, where a zone
+    // label can move away on a leader.
+    let regions = [planes_on_page(schedule, &transform)];
+    let eaves = eave_labels(&schedule.plan.planes, &schedule.plan.zones, |p| {
+        transform.page(p)
+    });
+    place_labels(canvas, &eaves, &regions, bounds, &mut taken);
     draw_zone_labels(canvas, schedule, &transform, bounds, &mut taken, imperial);
     draw_plane_names(canvas, schedule, &transform, bounds, &mut taken);
     PlanNotes {

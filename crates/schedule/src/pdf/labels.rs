@@ -27,13 +27,16 @@ pub(crate) enum LabelStyle {
     Plane,
     /// A small table, left-aligned, kept off the roof where there is room.
     Table,
+    /// A mark beside a roof edge ("HIGH EAVE"), small and bold, off the roof, with no leader and only
+    /// near its anchors: far from its edge it would mark the wrong one, so it is left off instead.
+    Eave,
 }
 
 impl LabelStyle {
     fn size_pt(self) -> f64 {
         match self {
             LabelStyle::Zone { .. } => LABEL_PT,
-            LabelStyle::Plane | LabelStyle::Table => SMALL_PT,
+            LabelStyle::Plane | LabelStyle::Table | LabelStyle::Eave => SMALL_PT,
         }
     }
 }
@@ -49,14 +52,19 @@ pub(crate) struct PlanLabel {
     pub anchors: Vec<[f64; 2]>,
 }
 
-fn box_size(lines: &[String], style: LabelStyle) -> (f64, f64) {
+/// The width and height of a label's box, mm.
+pub(crate) fn box_size(lines: &[String], style: LabelStyle) -> (f64, f64) {
     let size = style.size_pt();
     let width = lines
         .iter()
         .enumerate()
         .map(|(i, line)| width_mm(line, if i == 0 { Font::Bold } else { Font::Regular }, size))
         .fold(0.0, f64::max);
-    let pad = if style == LabelStyle::Plane { 1.2 } else { 2.4 };
+    let pad = if matches!(style, LabelStyle::Plane | LabelStyle::Eave) {
+        1.2
+    } else {
+        2.4
+    };
     (
         width + pad,
         lines.len() as f64 * line_height_mm(size) + pad * 0.6,
@@ -199,11 +207,13 @@ fn badness(
     // A zone label may sit off the roof; a plane's name belongs inside its plane.
     let misplaced = match label.style {
         LabelStyle::Plane => zones.outside_share(area, own),
-        LabelStyle::Zone { .. } | LabelStyle::Table => zones.foreign_share(area, own),
+        LabelStyle::Zone { .. } | LabelStyle::Table | LabelStyle::Eave => {
+            zones.foreign_share(area, own)
+        }
     };
     let own_leader = match label.style {
         LabelStyle::Zone { .. } => leader(area, anchor),
-        LabelStyle::Plane | LabelStyle::Table => None,
+        LabelStyle::Plane | LabelStyle::Table | LabelStyle::Eave => None,
     };
     // A long leader is hard to follow across the drawing.
     let leader_mm = own_leader.map_or(0.0, |[a, b]| (b[0] - a[0]).hypot(b[1] - a[1]));
@@ -251,7 +261,11 @@ pub(crate) fn place_labels(
                 )
             })
         });
+        let near_only = label.style == LabelStyle::Eave;
         let best = search.best(near).or_else(|| {
+            if near_only {
+                return None;
+            }
             // Nothing free near the anchors: every place on the drawing, on a grid.
             let columns = ((bounds.w - w) / SCAN_STEP_MM).max(0.0) as usize;
             let rows = ((bounds.h - h) / SCAN_STEP_MM).max(0.0) as usize;
@@ -348,7 +362,7 @@ fn draw_label(canvas: &mut Canvas, label: &PlanLabel, area: Area, anchor: [f64; 
     let frame_mm = match label.style {
         LabelStyle::Zone { emphasis: true } => 0.8,
         LabelStyle::Zone { emphasis: false } | LabelStyle::Table => 0.25,
-        LabelStyle::Plane => 0.15,
+        LabelStyle::Plane | LabelStyle::Eave => 0.15,
     };
     canvas.stroke_area(area, frame_mm, 0.0);
     let size = label.style.size_pt();

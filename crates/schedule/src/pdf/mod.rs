@@ -14,6 +14,7 @@ mod crew_sheet;
 mod deflate;
 mod design_basis;
 mod drawing;
+mod eave_marks;
 mod embedded;
 mod flow;
 mod geometry;
