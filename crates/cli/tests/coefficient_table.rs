@@ -244,3 +244,92 @@ fn malformed_tables_are_refused_naming_row_and_column() {
     assert_eq!(output.status.code(), Some(2));
     assert!(String::from_utf8_lossy(&output.stderr).contains("is for NBC 2020"));
 }
+
+/// The whole NBC 2020 template as a user's table (its values are the built-in rows, copied as test
+/// inputs), with a source stated.
+fn whole_nbc_table(folder: &Path) -> std::path::PathBuf {
+    let output = deckhold()
+        .args(["catalog", "coefficients", "--template", "nbc2020"])
+        .output()
+        .expect("runs");
+    assert!(output.status.success());
+    let mut template: Value = serde_json::from_slice(&output.stdout).expect("JSON template");
+    template["source"] = Value::String("test copy of the template".to_string());
+    let path = folder.join("whole-table.json");
+    std::fs::write(&path, template.to_string()).expect("writes");
+    path
+}
+
+/// The text of a PDF with its whitespace removed (captions wrap differently per page size).
+fn pdf_words(path: &Path) -> String {
+    let text = std::process::Command::new("pdftotext")
+        .args(["-layout", path.to_str().expect("path"), "-"])
+        .output()
+        .expect("pdftotext runs");
+    String::from_utf8_lossy(&text.stdout).replace(char::is_whitespace, "")
+}
+
+/// check.pdf and compare.pdf carry the schedule's coefficient caution: 'from memory' while any zone
+/// uses a built-in row (the soffit of an overhang zone is always built-in), the user's-table caution
+/// when every zone's curve comes from the table (a roof without overhangs). Before, both reports kept
+/// the 'from memory' caution whatever the table covered.
+#[test]
+fn check_and_compare_reports_follow_the_schedules_coefficient_caution() {
+    let folder = tempfile::tempdir().expect("temp dir");
+    let table = whole_nbc_table(folder.path());
+    let mut project: Value = serde_json::from_str(
+        &std::fs::read_to_string(fixture("ca-existing-pattern.json")).expect("fixture"),
+    )
+    .expect("fixture JSON");
+    let from_memory = "Coefficientsmarked'frommemory'mustbechecked".to_string();
+    let users = "Everywindcoefficientisfromtheuser'stable".to_string();
+    for (overhang_mm, built_in) in [(450, true), (0, false)] {
+        project["roof"]["eave_overhang_mm"] = Value::from(overhang_mm);
+        project["roof"]["rake_overhang_mm"] = Value::from(overhang_mm.min(300));
+        let case = folder.path().join(format!("roof-{overhang_mm}"));
+        std::fs::create_dir_all(&case).expect("folder");
+        let project_path = case.join("project.json");
+        std::fs::write(&project_path, project.to_string()).expect("writes");
+        for command in ["check", "compare"] {
+            let output = deckhold()
+                .args([
+                    command,
+                    project_path.to_str().expect("path"),
+                    "--coefficients",
+                    table.to_str().expect("path"),
+                    "--out",
+                    case.to_str().expect("path"),
+                ])
+                .output()
+                .expect("runs");
+            let console = String::from_utf8_lossy(&output.stdout);
+            assert_eq!(console.contains("from memory' must"), built_in, "{console}");
+            let pdf = pdf_words(&case.join(format!("{command}.pdf")));
+            let (kept, dropped) = if built_in {
+                (&from_memory, &users)
+            } else {
+                (&users, &from_memory)
+            };
+            assert!(
+                pdf.contains(kept.as_str()) && !pdf.contains(dropped.as_str()),
+                "{command}.pdf, overhang {overhang_mm} mm: expected '{kept}' only"
+            );
+            let json = deckhold()
+                .args([
+                    command,
+                    project_path.to_str().expect("path"),
+                    "--coefficients",
+                    table.to_str().expect("path"),
+                    "--json",
+                ])
+                .output()
+                .expect("runs");
+            let value: Value = serde_json::from_slice(&json.stdout).expect("JSON");
+            assert_eq!(
+                value["cautions"].to_string().contains("from memory"),
+                built_in,
+                "{command} --json cautions, overhang {overhang_mm} mm"
+            );
+        }
+    }
+}

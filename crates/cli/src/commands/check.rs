@@ -41,6 +41,7 @@ pub fn run(
             &project,
             &pattern,
             super::check_report::Checked::Pattern(&checked),
+            wind.built_in_rows_used(),
         );
         super::check_report::write_report(&report, folder)?;
     }
@@ -75,7 +76,7 @@ pub fn run(
             "governing_mode": checked.resistance.governing_mode.as_str(),
             "pass": passes,
             "zones": rows,
-            "cautions": deckhold_schedule::standard_cautions(),
+            "cautions": deckhold_schedule::cautions_for(wind.built_in_rows_used()),
         });
         outln!("{}", serde_json::to_string_pretty(&value)?);
     } else {

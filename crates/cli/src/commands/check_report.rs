@@ -32,6 +32,8 @@ pub struct CheckReport<'a> {
     pub fastener_lines: Vec<String>,
     pub warnings: Vec<String>,
     pub added_id: Option<String>,
+    /// Some zone uses a built-in coefficient row: the 'from memory' caution stays.
+    pub built_in_coefficients: bool,
 }
 
 /// The check a report is made from: the pattern in place alone, or with a fastener added (`--add`).
@@ -61,7 +63,13 @@ macro_rules! report_row {
 
 impl<'a> CheckReport<'a> {
     /// The report of a plain plan check or of a retrofit.
-    pub fn new(project: &'a Project, pattern: &'a ExistingPattern, checked: Checked<'a>) -> Self {
+    /// `built_in_coefficients`: `WindAnalysis::built_in_rows_used` of the wind the check ran on.
+    pub fn new(
+        project: &'a Project,
+        pattern: &'a ExistingPattern,
+        checked: Checked<'a>,
+        built_in_coefficients: bool,
+    ) -> Self {
         let is_us = project.units.is_us();
         let (rows, plan, fastener_lines, warnings, added_id) = match checked {
             Checked::Pattern(check) => (
@@ -101,6 +109,7 @@ impl<'a> CheckReport<'a> {
             fastener_lines,
             warnings,
             added_id,
+            built_in_coefficients,
         }
     }
 
@@ -419,6 +428,7 @@ pub fn check_report(report: &CheckReport) -> Report {
                 blocks: detail_blocks,
             },
         ],
+        report.built_in_coefficients,
     )
 }
 

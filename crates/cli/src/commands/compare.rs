@@ -141,6 +141,7 @@ pub fn run(
             .iter()
             .map(|candidate| compare_row(&base, &mut cache, candidate))
             .collect::<Result<_>>()?,
+        built_in_coefficients: job.wind.built_in_rows_used(),
     };
     if let Some(folder) = &args.out {
         super::compare_report::write_report(&comparison, folder)?;
@@ -221,7 +222,7 @@ fn to_json(job: &Job, order: &[&NailOutcome], comparison: &Comparison) -> serde_
         "prescriptive_minimum": rule.map(|(length_mm, source)| json!({ "length_mm": length_mm, "source": source })),
         "prescriptive_reach_method": comparison.reach_method(),
         "nails": nails,
-        "cautions": deckhold_schedule::standard_cautions(),
+        "cautions": deckhold_schedule::cautions_for(comparison.built_in_coefficients),
     })
 }
 

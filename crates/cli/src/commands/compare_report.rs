@@ -35,6 +35,8 @@ pub struct CompareRow {
 pub struct Comparison<'a> {
     pub project: &'a Project,
     pub rows: Vec<CompareRow>,
+    /// Some zone uses a built-in coefficient row: the 'from memory' caution stays.
+    pub built_in_coefficients: bool,
 }
 
 impl Comparison<'_> {
@@ -263,6 +265,7 @@ pub fn compare_report(comparison: &Comparison) -> Report {
             sheet: "Nails compared".to_string(),
             blocks,
         }],
+        comparison.built_in_coefficients,
     )
 }
 

@@ -91,12 +91,14 @@ pub fn read_bounded_as(path: &Path, what: &str) -> Result<String> {
     })
 }
 
-/// A report PDF of the project (`kind`: "Plan-check report", "Nail comparison"), with the standard
-/// cautions on every page.
+/// A report PDF of the project (`kind`: "Plan-check report", "Nail comparison"), with the cautions on
+/// every page; `built_in_coefficients`: some zone uses a built-in coefficient row
+/// (`WindAnalysis::built_in_rows_used`), so the 'from memory' caution stays, as on the schedule.
 pub fn project_report(
     project: &Project,
     kind: &str,
     parts: Vec<deckhold_schedule::Part>,
+    built_in_coefficients: bool,
 ) -> deckhold_schedule::Report {
     use deckhold_project::BasisStandards;
     deckhold_schedule::Report {
@@ -108,7 +110,7 @@ pub fn project_report(
         basis_id: project.basis.info().id.clone(),
         prepared_by: project.info.prepared_by.clone(),
         units: project.units,
-        cautions: deckhold_schedule::standard_cautions(),
+        cautions: deckhold_schedule::cautions_for(built_in_coefficients),
         parts,
     }
 }

@@ -27,13 +27,14 @@ pub fn run(
             project,
             pattern,
             super::check_report::Checked::Retrofit(&retrofit),
+            wind.built_in_rows_used(),
         );
         super::check_report::write_report(&report, folder)?;
     }
     if as_json {
         outln!(
             "{}",
-            serde_json::to_string_pretty(&to_json(project, &retrofit))?
+            serde_json::to_string_pretty(&to_json(project, &retrofit, wind.built_in_rows_used()))?
         );
     } else {
         out!("{}", console_text(project, &retrofit));
@@ -46,8 +47,13 @@ pub fn run(
     })
 }
 
-/// The JSON form: per zone and role the existing and added spacing, combined utilization and pass.
-pub fn to_json(project: &Project, retrofit: &Retrofit) -> serde_json::Value {
+/// The JSON form: per zone and role the existing and added spacing, combined utilization and pass;
+/// `built_in_coefficients` keeps the 'from memory' caution (`WindAnalysis::built_in_rows_used`).
+pub fn to_json(
+    project: &Project,
+    retrofit: &Retrofit,
+    built_in_coefficients: bool,
+) -> serde_json::Value {
     let is_us = project.units.is_us();
     let rows: Vec<serde_json::Value> = retrofit
         .rows
@@ -79,7 +85,7 @@ pub fn to_json(project: &Project, retrofit: &Retrofit) -> serde_json::Value {
         "combination": COMBINATION_RULE,
         "pass": retrofit.passes(),
         "zones": rows,
-        "cautions": deckhold_schedule::standard_cautions(),
+        "cautions": deckhold_schedule::cautions_for(built_in_coefficients),
     })
 }
 
