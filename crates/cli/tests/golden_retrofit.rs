@@ -94,6 +94,17 @@ fn the_ranch_retrofit_reports_match_their_goldens() {
             !text.contains("nailing schedule"),
             "{added}: the report is not titled as the schedule"
         );
+        // The whole report is plain text: no markdown marks (the catalogs write ids in backticks).
+        let whole = Command::new("pdftotext")
+            .arg(out.join("check.pdf"))
+            .arg("-")
+            .output()
+            .expect("`pdftotext` is missing: install poppler-utils");
+        let whole = String::from_utf8_lossy(&whole.stdout);
+        assert!(
+            !whole.contains('`'),
+            "{added}: a backtick in the report:\n{whole}"
+        );
         for zone in [
             "corner (3)",
             "edge (2)",

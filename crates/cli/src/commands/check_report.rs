@@ -97,10 +97,17 @@ impl<'a> CheckReport<'a> {
                 Some(retrofit.added.id.clone()),
             ),
         };
+        // The fasten and project crates write ids in backticks and lengths in mm: a report is plain
+        // text in the reader's units.
+        let plain = |text: &str| lengths_for_reader(&text.replace('`', ""), is_us);
         let warnings = warnings
             .iter()
-            .map(|warning: &String| lengths_for_reader(warning, is_us))
+            .map(|warning: &String| plain(warning))
             .collect();
+        let mut rows = rows;
+        for row in &mut rows {
+            row.notes = plain(&row.notes);
+        }
         CheckReport {
             project,
             pattern,
@@ -124,10 +131,10 @@ fn pattern_rows(check: &PatternCheck) -> Vec<ReportRow> {
         .iter()
         .map(|row| {
             let what_to_add = match row.added_nails_per_gap {
-                Some(added) => format!("{added} more `{}` between each pair", check.nail.id),
+                Some(added) => format!("{added} more {} between each pair", check.nail.id),
                 None if row.passes => "nothing".to_string(),
                 None => format!(
-                    "no spacing of `{}` works here: check with --add and a stronger fastener",
+                    "no spacing of {} works here: check with --add and a stronger fastener",
                     check.nail.id
                 ),
             };
@@ -143,7 +150,7 @@ fn retrofit_rows(retrofit: &Retrofit, is_us: bool) -> Vec<ReportRow> {
         .map(|row| {
             let what_to_add = match row.placement {
                 Some(placement) => format!(
-                    "`{}`: {}",
+                    "{}: {}",
                     retrofit.added.id,
                     placement.describe(|mm| spacing_label(Some(mm), is_us))
                 ),
@@ -317,10 +324,10 @@ pub fn check_report(report: &CheckReport) -> Report {
         (None, true) => "RESULT: the pattern in place PASSES in every zone.".to_string(),
         (None, false) => "RESULT: the pattern in place FAILS: see the zones marked FAILS.".to_string(),
         (Some(added), true) => format!(
-            "RESULT: with `{added}` added as listed, existing plus added fasteners PASS in every zone."
+            "RESULT: with {added} added as listed, existing plus added fasteners PASS in every zone."
         ),
         (Some(added), false) => {
-            format!("RESULT: even with `{added}` added, some zone FAILS: see below.")
+            format!("RESULT: even with {added} added, some zone FAILS: see below.")
         }
     };
     let zone_rows: Vec<Vec<String>> = report

@@ -137,7 +137,10 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
             if row.passes {
                 "ok".to_string()
             } else {
-                format!("FAILS: {}", row.notes.join("; "))
+                format!(
+                    "FAILS: {}",
+                    lengths_for_reader(&row.notes.join("; ").replace('`', ""), is_us)
+                )
             },
             match row.placement {
                 Some(placement) => placement.describe(|mm| spacing_label(Some(mm), is_us)),
@@ -158,7 +161,10 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
         .iter()
         .chain(&retrofit.added_resistance.warnings)
     {
-        text.push_str(&format!("  - {}\n", lengths_for_reader(warning, is_us)));
+        text.push_str(&format!(
+            "  - {}\n",
+            lengths_for_reader(&warning.replace('`', ""), is_us)
+        ));
     }
     text
 }
