@@ -8,59 +8,17 @@
 //! wrong memory cannot be caught here; an edit of the data file that changes a value, a breakpoint, a
 //! status or a zone map turns these red.
 
-use deckhold_wind::{
-    analyze, AsceWind, Building, CoefficientStatus, Enclosure, Exposure, Footprint, Importance,
-    NbcWind, RidgeAlong, Roof, RoofShape, SiteWind, StrengthMethod, Terrain, WindAnalysis,
-    WindInput,
-};
+use deckhold_wind::{analyze, CoefficientStatus, RoofShape, SiteWind, WindAnalysis};
+
+mod support;
+use support::{asce, input, nbc};
 
 const FT2_IN_M2: f64 = 0.092_903_04;
 
-fn nbc() -> SiteWind {
-    SiteWind::Nbc2020(NbcWind {
-        q50_kpa: 0.45,
-        terrain: Terrain::Open,
-        topographic_factor: 1.0,
-        importance: Importance::Normal,
-        internal_category: 2,
-    })
-}
-
-fn asce() -> SiteWind {
-    SiteWind::Asce722(AsceWind {
-        speed_mph: 120.0,
-        exposure: Exposure::C,
-        kzt: 1.0,
-        ground_elevation_ft: 0.0,
-        enclosure: Enclosure::Enclosed,
-        method: StrengthMethod::Asd,
-    })
-}
-
 /// A 14 x 9 m building, 3 m to the eaves, no overhangs (overhang zones add the soffit row).
 fn roof(site: SiteWind, shape: RoofShape, slope_deg: f64) -> WindAnalysis {
-    analyze(&WindInput {
-        building: Building {
-            footprint: Footprint::Rectangle {
-                length_m: 14.0,
-                width_m: 9.0,
-            },
-            eave_height_m: 3.0,
-        },
-        roof: Roof {
-            shape,
-            slope_deg,
-            ridge_along: RidgeAlong::Length,
-            eave_overhang_mm: 0.0,
-            rake_overhang_mm: 0.0,
-            dead_load_kpa: 0.4,
-            gable_walls: Vec::new(),
-        },
-        site,
-        overrides: Vec::new(),
-        table: None,
-    })
-    .unwrap_or_else(|error| panic!("{shape:?} at {slope_deg} deg: {error}"))
+    analyze(&input(shape, slope_deg, 3.0, site))
+        .unwrap_or_else(|error| panic!("{shape:?} at {slope_deg} deg: {error}"))
 }
 
 use CoefficientStatus::{FromMemory as Memory, SevereOfTwo as Severe};

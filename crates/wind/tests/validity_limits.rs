@@ -1,56 +1,10 @@
 //! The limits of the wind methods at their exact boundaries (added for mutants that survived the wind
 //! crate's tests: a `>=` turned `>` at a refusal, a `>` turned `>=` at the 7 degree figure boundary).
 
-use deckhold_wind::{
-    analyze, AsceWind, Building, Enclosure, Exposure, Footprint, Importance, NbcWind, RidgeAlong,
-    Roof, RoofShape, SiteWind, StrengthMethod, Terrain, WindInput,
-};
+use deckhold_wind::{analyze, RoofShape};
 
-fn nbc() -> SiteWind {
-    SiteWind::Nbc2020(NbcWind {
-        q50_kpa: 0.45,
-        terrain: Terrain::Open,
-        topographic_factor: 1.0,
-        importance: Importance::Normal,
-        internal_category: 2,
-    })
-}
-
-fn asce() -> SiteWind {
-    SiteWind::Asce722(AsceWind {
-        speed_mph: 120.0,
-        exposure: Exposure::C,
-        kzt: 1.0,
-        ground_elevation_ft: 0.0,
-        enclosure: Enclosure::Enclosed,
-        method: StrengthMethod::Asd,
-    })
-}
-
-/// A 14 x 9 m building.
-fn input(shape: RoofShape, slope_deg: f64, eave_height_m: f64, site: SiteWind) -> WindInput {
-    WindInput {
-        building: Building {
-            footprint: Footprint::Rectangle {
-                length_m: 14.0,
-                width_m: 9.0,
-            },
-            eave_height_m,
-        },
-        roof: Roof {
-            shape,
-            slope_deg,
-            ridge_along: RidgeAlong::Length,
-            eave_overhang_mm: 0.0,
-            rake_overhang_mm: 0.0,
-            dead_load_kpa: 0.4,
-            gable_walls: Vec::new(),
-        },
-        site,
-        overrides: Vec::new(),
-        table: None,
-    }
-}
+mod support;
+use support::{asce, input, nbc};
 
 #[test]
 fn nbc_refuses_a_building_as_tall_as_it_is_narrow() {
