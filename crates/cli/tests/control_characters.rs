@@ -5,7 +5,7 @@ mod support;
 
 use std::path::Path;
 use std::process::Command;
-use support::{deckhold, fixture};
+use support::{batch_over_demo, deckhold, fixture};
 
 /// Text with an escape sequence that would recolour a terminal and retitle its window, and a bell.
 const HOSTILE: &str = "Shed \u{1b}[31mred\u{1b}]0;title\u{7} end";
@@ -125,15 +125,7 @@ fn batch_summary_csv_and_console_show_a_row_id_escaped() {
     let roofs = dir.path().join("roofs.csv");
     std::fs::write(&roofs, "id,roof.slope\nh\u{1b}[31m1,4:12\nh2,\u{1b}[2J\n").expect("write");
     let out = dir.path().join("out");
-    let output = deckhold()
-        .arg("batch")
-        .arg(&roofs)
-        .arg("--base")
-        .arg(fixture("demo-ca-gable.json"))
-        .arg("--out")
-        .arg(&out)
-        .output()
-        .expect("runs");
+    let output = batch_over_demo(&roofs, &out);
     assert_eq!(output.status.code(), Some(2), "{output:?}");
     assert_eq!(raw_controls(&output.stdout), vec![], "stdout");
     assert_eq!(raw_controls(&output.stderr), vec![], "stderr");

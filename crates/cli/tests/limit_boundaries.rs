@@ -5,7 +5,7 @@
 mod support;
 
 use deckhold_core::limits::{BATCH_COLUMNS, BATCH_FIELD_CHARS, FILE_SIZE, ROOF_ID_CHARS};
-use support::{deckhold, fixture};
+use support::{batch_over_demo, deckhold, fixture};
 
 /// The demo project padded with trailing spaces to exactly `bytes` bytes.
 fn padded_demo(dir: &std::path::Path, bytes: usize) -> std::path::PathBuf {
@@ -44,15 +44,7 @@ fn batch(dir: &std::path::Path, name: &str, text: &str) -> (Option<i32>, String)
     let roofs = dir.join(format!("{name}.csv"));
     std::fs::write(&roofs, text).expect("write");
     let out = dir.join(name);
-    let output = deckhold()
-        .arg("batch")
-        .arg(&roofs)
-        .arg("--base")
-        .arg(fixture("demo-ca-gable.json"))
-        .arg("--out")
-        .arg(&out)
-        .output()
-        .expect("runs");
+    let output = batch_over_demo(&roofs, &out);
     let summary = std::fs::read_to_string(out.join("summary.csv")).unwrap_or_default();
     (
         output.status.code(),
