@@ -430,15 +430,14 @@ pub(crate) mod tests {
             wall_region: Region::Edge,
             high_eave: Some(high),
         };
-        let pieces = pieces_for(
+        pieces_for(
             RoofShape::Monoslope,
             Footprint::Rectangle {
                 length_m: 12.0,
                 width_m: 8.0,
             },
             strips,
-        );
-        pieces
+        )
     }
 
     #[test]
