@@ -4,7 +4,7 @@
 //! The writers only format: every engineering value arrives in SI from [`crate::Schedule`]; the imperial
 //! US values are exact re-expressions with the conversion constants below.
 
-pub use crate::message_lengths::lengths_for_reader;
+pub use crate::message_lengths::{lengths_for_reader, message_for_reader};
 /// The conversions under the names the writers use (`deckhold_core::units` holds the one definition).
 pub use deckhold_core::units::{
     ft_from_m as m_to_ft, in_from_mm as mm_to_in, lbf_from_n as n_to_lbf,

@@ -8,6 +8,12 @@
 
 use crate::format::{mm_to_in, trimmed};
 
+/// A computing crate's message as a report prints it: plain text (the catalogs write ids in markdown
+/// backticks for the docs) with its lengths in the reader's units.
+pub fn message_for_reader(message: &str, imperial: bool) -> String {
+    lengths_for_reader(&message.replace('`', ""), imperial)
+}
+
 /// `message` with every `<number> mm` in decimal inches when `imperial`, else unchanged.
 pub fn lengths_for_reader(message: &str, imperial: bool) -> String {
     if !imperial || !message.contains(" mm") {

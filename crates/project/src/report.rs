@@ -9,7 +9,7 @@ use crate::rules::spacing_rule_sources;
 use deckhold_deck::layout::{Course, DeckLayout, LineKind, SupportRole};
 use deckhold_deck::spacing::{DeckPlan, RafterLine};
 use deckhold_model::format::{
-    feet_inches, fixed, lengths_for_reader, m_to_ft, thickness_label, trimmed,
+    feet_inches, fixed, lengths_for_reader, m_to_ft, message_for_reader, thickness_label, trimmed,
 };
 use deckhold_model::Units;
 use deckhold_model::{
@@ -112,7 +112,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
     let us = project.units.is_us();
     let warnings = warnings
         .iter()
-        .map(|warning| lengths_for_reader(&plain(warning), us))
+        .map(|warning| message_for_reader(warning, us))
         .collect();
 
     Schedule {

@@ -5,7 +5,9 @@ use deckhold_deck::spacing::DeckPlan;
 use deckhold_project::basis::BasisStandards;
 use deckhold_project::{ExistingPattern, PatternCheck, Project, Retrofit, COMBINATION_RULE};
 use deckhold_schedule::format::{feet_inches, fixed, mm_to_in, places, trimmed};
-use deckhold_schedule::format::{force_label, lengths_for_reader, spacing_label};
+use deckhold_schedule::format::{
+    force_label, lengths_for_reader, message_for_reader, spacing_label,
+};
 use deckhold_schedule::{Block, Part, Report};
 
 /// One zone and role of the report, whether a plain check or a retrofit.
@@ -99,14 +101,13 @@ impl<'a> CheckReport<'a> {
         };
         // The fasten and project crates write ids in backticks and lengths in mm: a report is plain
         // text in the reader's units.
-        let plain = |text: &str| lengths_for_reader(&text.replace('`', ""), is_us);
         let warnings = warnings
             .iter()
-            .map(|warning: &String| plain(warning))
+            .map(|warning: &String| message_for_reader(warning, is_us))
             .collect();
         let mut rows = rows;
         for row in &mut rows {
-            row.notes = plain(&row.notes);
+            row.notes = message_for_reader(&row.notes, is_us);
         }
         CheckReport {
             project,

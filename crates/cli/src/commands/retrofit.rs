@@ -9,7 +9,9 @@ use super::{caution_lines, spacing_text};
 use crate::table::Table;
 use crate::Outcome;
 use deckhold_project::{plan_retrofit, ExistingPattern, Project, Retrofit, COMBINATION_RULE};
-use deckhold_schedule::format::{force_label, lengths_for_reader, spacing_label};
+use deckhold_schedule::format::{
+    force_label, lengths_for_reader, message_for_reader, spacing_label,
+};
 use deckhold_wind::WindAnalysis;
 
 pub fn run(
@@ -139,7 +141,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
             } else {
                 format!(
                     "FAILS: {}",
-                    lengths_for_reader(&row.notes.join("; ").replace('`', ""), is_us)
+                    message_for_reader(&row.notes.join("; "), is_us)
                 )
             },
             match row.placement {
@@ -161,10 +163,7 @@ pub fn console_text(project: &Project, retrofit: &Retrofit) -> String {
         .iter()
         .chain(&retrofit.added_resistance.warnings)
     {
-        text.push_str(&format!(
-            "  - {}\n",
-            lengths_for_reader(&warning.replace('`', ""), is_us)
-        ));
+        text.push_str(&format!("  - {}\n", message_for_reader(warning, is_us)));
     }
     text
 }
