@@ -21,7 +21,7 @@ pub use blocking::EdgeBlocking;
 use blocking::{blocking_lines, BlockingPlane};
 pub use changes::{si_words, LayoutChange, LengthWords};
 pub use courses::SLIVER_M;
-use courses::{bearing_at, course_bands, CourseLayer, StripCache};
+use courses::{bearing_at, course_bands, BearingWork, CourseLayer};
 use deckhold_core::limits;
 use framing::framing_lines;
 use geometry::{validate_polygon, MIN_PIECE_M};
@@ -304,7 +304,7 @@ pub fn layout_deck(
     panel: &PanelInput,
 ) -> Result<DeckLayout, SpacingError> {
     validate(planes, zones, zone_rank, framing, panel)?;
-    let mut cache = StripCache::default();
+    let mut cache = BearingWork::default();
     let zone_shapes = ZoneShapes::new(zones);
     let mut lines = Vec::new();
     let mut courses = Vec::new();
@@ -454,7 +454,7 @@ fn lay_out_line(
     framing: &FramingInput,
     zones: &ZoneShapes<'_>,
     zone_rank: &[u32],
-    cache: &mut StripCache,
+    cache: &mut BearingWork,
     notes: &mut Vec<(usize, LayoutChange)>,
 ) -> Result<LayoutLine, SpacingError> {
     let frame = context.frame;

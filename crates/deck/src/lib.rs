@@ -7,6 +7,7 @@
 
 pub mod beam;
 pub mod error;
+mod fast_hash;
 pub mod layout;
 pub mod spacing;
 

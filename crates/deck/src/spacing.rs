@@ -10,10 +10,10 @@
 
 use serde::Serialize;
 use std::collections::HashMap;
-use std::hash::{BuildHasherDefault, Hasher};
 
 pub use crate::error::SpacingError;
 use crate::error::{check_positive, check_range};
+use crate::fast_hash::BuildFastHasher;
 use crate::layout::{Axis, DeckLayout, LineKind, SupportRole};
 
 /// Spacing limits a basis imposes on roof sheathing nails.
@@ -321,33 +321,6 @@ impl<'u> LoadCache<'u> {
         Ok(None)
     }
 }
-
-/// A small multiplicative hasher for the load cache's keys of plain integers (std's default hasher
-/// guards against crafted keys, which these are not, and cost more than the loads it looked up).
-#[derive(Debug, Default, Clone, Copy)]
-struct FastHasher(u64);
-
-impl Hasher for FastHasher {
-    fn finish(&self) -> u64 {
-        self.0
-    }
-
-    fn write(&mut self, bytes: &[u8]) {
-        for byte in bytes {
-            self.write_u64(u64::from(*byte));
-        }
-    }
-
-    fn write_u64(&mut self, value: u64) {
-        self.0 = (self.0.rotate_left(5) ^ value).wrapping_mul(0x517c_c1b7_2722_0a95);
-    }
-
-    fn write_usize(&mut self, value: usize) {
-        self.write_u64(value as u64);
-    }
-}
-
-type BuildFastHasher = BuildHasherDefault<FastHasher>;
 
 /// Nails in one row over `length_m` at `spacing_mm`: one at each end of the stretch and at each spacing
 /// between, counting the shared end once (so a stretch holds ceil(L/s) nails, at least 1).

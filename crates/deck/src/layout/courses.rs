@@ -8,8 +8,10 @@
 
 use std::collections::HashMap;
 
+use crate::fast_hash::BuildFastHasher;
+
 use super::changes::LayoutChange;
-use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
+use super::geometry::{section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
@@ -20,7 +22,9 @@ use crate::error::SpacingError;
 /// each strip's reactions equal to its load to better than 1e-9.
 #[derive(Debug, Default)]
 pub(crate) struct StripCache {
-    solved: HashMap<Vec<i64>, Vec<f64>>,
+    solved: HashMap<Vec<i64>, Vec<f64>, BuildFastHasher>,
+    /// The key being looked up, kept to save an allocation per strip.
+    key: Vec<i64>,
 }
 
 fn to_key(length_m: f64) -> i64 {
@@ -41,18 +45,33 @@ impl StripCache {
         overhang_start_m: f64,
         overhang_end_m: f64,
     ) -> Result<&[f64], SpacingError> {
-        let mut key: Vec<i64> = spans_m.iter().map(|s| to_key(*s)).collect();
+        let key = &mut self.key;
+        key.clear();
+        key.extend(spans_m.iter().map(|s| to_key(*s)));
         key.push(to_key(overhang_start_m));
         key.push(to_key(overhang_end_m));
-        if !self.solved.contains_key(&key) {
+        if !self.solved.contains_key(key.as_slice()) {
             let spans: Vec<f64> = key[..spans_m.len()].iter().map(|k| from_key(*k)).collect();
             let start = from_key(key[spans_m.len()]);
             let end = from_key(key[spans_m.len() + 1]);
             let reactions = strip_reactions(&spans, start, end, 1.0)?;
             self.solved.insert(key.clone(), reactions);
         }
-        Ok(self.solved.get(&key).map(Vec::as_slice).unwrap_or(&[]))
+        Ok(self
+            .solved
+            .get(self.key.as_slice())
+            .map(Vec::as_slice)
+            .unwrap_or(&[]))
     }
+}
+
+/// What [`bearing_at`] keeps from one call to the next: the strips solved so far and the buffers of
+/// the plane's section (a roof takes hundreds of bearings; fresh buffers for each were a fifth of
+/// their cost).
+#[derive(Debug, Default)]
+pub(crate) struct BearingWork {
+    strips: StripCache,
+    section: SectionScratch,
 }
 
 /// The panel ends of one course and what was changed to avoid narrow pieces.
@@ -293,12 +312,14 @@ pub(crate) fn bearing_at(
     joints_m: &[f64],
     line: usize,
     along_m: f64,
-    cache: &mut StripCache,
+    work: &mut BearingWork,
 ) -> Result<LineBearing, SpacingError> {
     let position = grid[line].position_m;
     let near = |a: f64, b: f64| (a - b).abs() <= SAME_POSITION_M;
-    let stretches = section(polygon_m, frame.run.other(), along_m);
-    let deck = stretches
+    section_into(polygon_m, frame.run.other(), along_m, &mut work.section);
+    let deck = work
+        .section
+        .stretches
         .iter()
         .find(|s| s.lo - SAME_POSITION_M <= position && position <= s.hi + SAME_POSITION_M)
         .copied()
@@ -313,42 +334,35 @@ pub(crate) fn bearing_at(
     let first_near = joints_m.partition_point(|j| *j < position - SAME_POSITION_M);
     let joint =
         (first_near < joints_m.len() && near(joints_m[first_near], position)).then_some(first_near);
-    let panels: Vec<(f64, f64)> = match joint {
-        Some(j) => {
-            let mut both = Vec::with_capacity(2);
-            if j > 0 {
-                both.push((joints_m[j - 1], position));
-            }
-            if j + 1 < joints_m.len() {
-                both.push((position, joints_m[j + 1]));
-            }
-            both
-        }
+    // At most two panels: the one ending on the line and the one starting there, or the one across it.
+    let panels: [Option<(f64, f64)>; 2] = match joint {
+        Some(j) => [
+            (j > 0).then(|| (joints_m[j - 1], position)),
+            (j + 1 < joints_m.len()).then(|| (position, joints_m[j + 1])),
+        ],
         None => {
             // The one panel whose ends are either side of the line: the first joint past it and the
             // one before.
             let next = joints_m.partition_point(|j| *j <= position);
-            if next > 0 && next < joints_m.len() && joints_m[next - 1] < position {
-                vec![(joints_m[next - 1], joints_m[next])]
-            } else {
-                Vec::new()
-            }
+            let across = next > 0 && next < joints_m.len() && joints_m[next - 1] < position;
+            [across.then(|| (joints_m[next - 1], joints_m[next])), None]
         }
     };
-    let sides: Vec<PanelSide> = panels
-        .into_iter()
-        .map(|(from, to)| PanelSide {
-            from_m: from.max(deck.lo),
-            to_m: to.min(deck.hi),
-        })
-        .filter(|side| {
-            side.to_m - side.from_m >= MIN_PIECE_M
-                && side.from_m <= position + SAME_POSITION_M
-                && side.to_m >= position - SAME_POSITION_M
-                && !(near(side.from_m, position) && near(side.to_m, position))
-        })
-        .collect();
-    if sides.is_empty() {
+    let sides: [Option<PanelSide>; 2] = panels.map(|panel| {
+        panel
+            .map(|(from, to)| PanelSide {
+                from_m: from.max(deck.lo),
+                to_m: to.min(deck.hi),
+            })
+            .filter(|side| {
+                side.to_m - side.from_m >= MIN_PIECE_M
+                    && side.from_m <= position + SAME_POSITION_M
+                    && side.to_m >= position - SAME_POSITION_M
+                    && !(near(side.from_m, position) && near(side.to_m, position))
+            })
+    });
+    let side_count = sides.iter().flatten().count();
+    if side_count == 0 {
         return Err(SpacingError::Invalid {
             field: "planes.polygon_m".to_string(),
             reason: format!(
@@ -363,9 +377,9 @@ pub(crate) fn bearing_at(
         SupportRole::Intermediate
     };
 
-    let mut strips = Vec::with_capacity(sides.len());
+    let mut strips = Vec::with_capacity(side_count);
     let mut slivers_m = Vec::new();
-    for side in sides {
+    for side in sides.into_iter().flatten() {
         let mut supports: Vec<f64> = grid_between(
             grid,
             side.from_m - SAME_POSITION_M,
@@ -422,7 +436,9 @@ pub(crate) fn bearing_at(
             .collect();
         overhang_start_m *= frame.cross_factor;
         overhang_end_m *= frame.cross_factor;
-        let reactions = cache.reactions(&spans_m, overhang_start_m, overhang_end_m)?;
+        let reactions = work
+            .strips
+            .reactions(&spans_m, overhang_start_m, overhang_end_m)?;
         let reaction_width_mm = reactions
             .get(support_index)
             .copied()

@@ -67,13 +67,14 @@ pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &m
     let k = run.other().index();
     let hits = &mut scratch.hits;
     hits.clear();
+    // Every edge crosses at most once: room for all of them, no growing on the way.
+    hits.reserve(polygon.len());
     for (i, a) in polygon.iter().enumerate() {
         let b = polygon[(i + 1) % polygon.len()];
         if (a[k] < at) != (b[k] < at) {
             let t = (at - a[k]) / (b[k] - a[k]);
             let along = a[r] + t * (b[r] - a[r]);
-            let length = (b[r] - a[r]).hypot(b[k] - a[k]);
-            hits.push((along, (b[r] - a[r]).abs() > 1e-9 * length));
+            hits.push((along, is_oblique(b[r] - a[r], b[k] - a[k])));
         }
     }
     hits.sort_by(|p, q| p.0.total_cmp(&q.0));
@@ -86,6 +87,14 @@ pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &m
             lo_oblique: pair[0].1,
             hi_oblique: pair[1].1,
         }));
+}
+
+/// An edge running `along_m` with the section line and `across_m` across it is oblique (a hip or a
+/// valley) when its run along the line is more than a billionth of its length. Compared squared: a
+/// `hypot` for the length was about 5 % of the layout's instructions, and the test only ever meets edges whose
+/// ratio is 0 (parallel to the framing) or of order 1 (a hip), never near the threshold.
+fn is_oblique(along_m: f64, across_m: f64) -> bool {
+    along_m * along_m > 1e-18 * (along_m * along_m + across_m * across_m)
 }
 
 /// Where a framing line running along `run` at `at` lies inside `polygon`: the union of the sections

@@ -11,7 +11,7 @@
 //! cantilever, as the bearings do.
 
 use super::courses::{grid_between, SLIVER_M};
-use super::geometry::{section, SAME_POSITION_M};
+use super::geometry::{section_into, SectionScratch, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{Course, DeckPiece};
 
@@ -42,9 +42,10 @@ impl PieceCutter<'_> {
     /// beyond the hips) is not laid.
     pub(crate) fn pieces(&self, courses: &[Course]) -> Vec<DeckPiece> {
         let mut pieces = Vec::new();
+        let mut scratch = SectionScratch::default();
         for course in courses {
             for pair in course.joints_m.windows(2) {
-                if let Some(piece) = self.piece(course, pair[0], pair[1]) {
+                if let Some(piece) = self.piece(course, pair[0], pair[1], &mut scratch) {
                     pieces.push(piece);
                 }
             }
@@ -62,7 +63,13 @@ impl PieceCutter<'_> {
             .map(|_| self.first_number + index as u32)
     }
 
-    fn piece(&self, course: &Course, start_m: f64, end_m: f64) -> Option<DeckPiece> {
+    fn piece(
+        &self,
+        course: &Course,
+        start_m: f64,
+        end_m: f64,
+        scratch: &mut SectionScratch,
+    ) -> Option<DeckPiece> {
         let frame = self.frame;
         let outline_m = self.outline(course, start_m, end_m);
         if outline_m.len() < 3 {
@@ -89,7 +96,7 @@ impl PieceCutter<'_> {
         let mut start_cut = false;
         let mut end_cut = false;
         for height in heights {
-            let Some(at) = self.section_at(height, start_m, end_m) else {
+            let Some(at) = self.section_at(height, start_m, end_m, scratch) else {
                 continue;
             };
             start_cut |= at.start_cut;
@@ -154,23 +161,33 @@ impl PieceCutter<'_> {
     }
 
     /// The piece at `height` (m up the slope): where its deck runs and how far it cantilevers.
-    fn section_at(&self, height: f64, start_m: f64, end_m: f64) -> Option<PieceSection> {
+    fn section_at(
+        &self,
+        height: f64,
+        start_m: f64,
+        end_m: f64,
+        scratch: &mut SectionScratch,
+    ) -> Option<PieceSection> {
         let frame = self.frame;
         let along_m = frame.along_at_m(height);
-        let stretch = section(self.polygon_m, frame.run.other(), along_m)
-            .into_iter()
+        section_into(self.polygon_m, frame.run.other(), along_m, scratch);
+        let stretch = scratch
+            .stretches
+            .iter()
+            .copied()
             .find(|s| s.hi > start_m + SAME_POSITION_M && s.lo < end_m - SAME_POSITION_M)?;
         let lo = stretch.lo.max(start_m);
         let hi = stretch.hi.min(end_m);
         // The deck's own edge (not the panel's end) bounds the piece here, and it is a hip or valley.
         let start_cut = stretch.lo_oblique && stretch.lo >= start_m - SAME_POSITION_M;
         let end_cut = stretch.hi_oblique && stretch.hi <= end_m + SAME_POSITION_M;
-        let supports: Vec<f64> =
-            grid_between(self.grid, lo - SAME_POSITION_M, hi + SAME_POSITION_M)
-                .iter()
-                .filter(|g| g.is_present_at(along_m))
-                .map(|g| g.position_m)
-                .collect();
+        // Only the outermost lines under the piece set its cantilevers.
+        let mut supports = grid_between(self.grid, lo - SAME_POSITION_M, hi + SAME_POSITION_M)
+            .iter()
+            .filter(|g| g.is_present_at(along_m))
+            .map(|g| g.position_m);
+        let first = supports.next();
+        let last = supports.next_back().or(first);
         let cf = frame.cross_factor;
         // A cut bears on its hip or valley rafter unless the strip to the line is a sliver.
         let cantilever = |gap_m: f64, cut: bool| {
@@ -181,8 +198,8 @@ impl PieceCutter<'_> {
                 gap
             }
         };
-        let (first, last) = match (supports.first(), supports.last()) {
-            (Some(first), Some(last)) => (*first, *last),
+        let (first, last) = match (first, last) {
+            (Some(first), Some(last)) => (first, last),
             // No line under the piece at this height: it rests on the cuts alone, or on nothing.
             _ => {
                 let width = (hi - lo) * cf;
@@ -225,6 +242,8 @@ impl PieceCutter<'_> {
 /// Points closer than 1 µm to the one before are merged.
 pub(crate) fn clip_to_box(polygon: &[[f64; 2]], lo: [f64; 2], hi: [f64; 2]) -> Vec<[f64; 2]> {
     let mut points = polygon.to_vec();
+    // Two buffers in turn: a piece is clipped four times, and a roof has hundreds of pieces.
+    let mut clipped = Vec::with_capacity(points.len() + 4);
     for axis in 0..2 {
         for (bound, keep_below) in [(lo[axis], false), (hi[axis], true)] {
             let inside = |p: &[f64; 2]| {
@@ -234,7 +253,7 @@ pub(crate) fn clip_to_box(polygon: &[[f64; 2]], lo: [f64; 2], hi: [f64; 2]) -> V
                     p[axis] >= bound
                 }
             };
-            let mut clipped = Vec::with_capacity(points.len() + 2);
+            clipped.clear();
             for (i, p) in points.iter().enumerate() {
                 let q = points[(i + 1) % points.len()];
                 let (p_in, q_in) = (inside(p), inside(&q));
@@ -248,7 +267,7 @@ pub(crate) fn clip_to_box(polygon: &[[f64; 2]], lo: [f64; 2], hi: [f64; 2]) -> V
                     clipped.push(cut);
                 }
             }
-            points = clipped;
+            std::mem::swap(&mut points, &mut clipped);
             if points.is_empty() {
                 return points;
             }
