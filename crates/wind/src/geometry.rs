@@ -51,12 +51,26 @@ pub fn centroid(polygon: &[Point]) -> Point {
     [cx / (6.0 * area), cy / (6.0 * area)]
 }
 
+/// Where `point` lies from the line `normal · p = offset`: negative below, positive above.
+fn side_of_line(point: &Point, normal: Point, offset: f64) -> f64 {
+    normal[0] * point[0] + normal[1] * point[1] - offset
+}
+
+/// Every vertex lies strictly on the same side of the line `normal · p = offset`: splitting the
+/// polygon there gives the polygon itself and nothing (the common case when a zone layout cuts many
+/// pieces by each of its lines, which a caller can then skip).
+pub fn wholly_on_one_side(polygon: &[Point], normal: Point, offset: f64) -> bool {
+    let side = |p: &Point| side_of_line(p, normal, offset);
+    polygon.iter().all(|p| side(p) < 0.0) || polygon.iter().all(|p| side(p) > 0.0)
+}
+
 /// Splits a convex polygon by the line `normal · p = offset` into (below, above) parts.
 /// Either part may be empty.
 pub fn split_by_line(polygon: &[Point], normal: Point, offset: f64) -> (Vec<Point>, Vec<Point>) {
-    let side = |p: &Point| normal[0] * p[0] + normal[1] * p[1] - offset;
-    let mut below = Vec::new();
-    let mut above = Vec::new();
+    let side = |p: &Point| side_of_line(p, normal, offset);
+    // A convex polygon gains at most two crossing points on either side.
+    let mut below = Vec::with_capacity(polygon.len() + 2);
+    let mut above = Vec::with_capacity(polygon.len() + 2);
     let count = polygon.len();
     for index in 0..count {
         let current = polygon[index];

@@ -2,7 +2,9 @@
 //! overhang parts of the roof outside the wall line. The pieces are cut from the roof outline, so the
 //! zones tile it exactly.
 
-use crate::geometry::{area_m2, centroid, contains, nearest_on_segment, split_by_line, Point};
+use crate::geometry::{
+    area_m2, centroid, contains, nearest_on_segment, split_by_line, wholly_on_one_side, Point,
+};
 use crate::outline::{bounds, LocalRoof, Plan};
 
 /// Which kind of roof area a point lies in, before the standard names it.
@@ -142,8 +144,15 @@ fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<
 pub(crate) fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
     for (normal, offset) in lines {
         let mut next = Vec::with_capacity(pieces.len() * 2);
-        for piece in &pieces {
-            let (below, above) = split_by_line(piece, *normal, *offset);
+        for piece in pieces {
+            // Most lines miss most pieces: keep such a piece as it is (the split would copy it).
+            if wholly_on_one_side(&piece, *normal, *offset) {
+                if piece.len() >= 3 && area_m2(&piece) > SLIVER_M2 {
+                    next.push(piece);
+                }
+                continue;
+            }
+            let (below, above) = split_by_line(&piece, *normal, *offset);
             for part in [below, above] {
                 if part.len() >= 3 && area_m2(&part) > SLIVER_M2 {
                     next.push(part);
