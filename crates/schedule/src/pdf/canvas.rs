@@ -1,15 +1,17 @@
-//! A page's drawing operations, in millimetres from the page's lower-left corner.
+//! A page's drawing, in millimetres from the page's lower-left corner.
 //!
-//! A thin layer over printpdf's `Op` list: every call sets the state it needs (colour, width, dash), so
-//! the order of calls never leaks style from one shape to the next.
+//! Shapes and text in the built-in fonts are written straight into the page's content stream
+//! ([`Content`]). Text in the embedded face stays a list of printpdf operations, because printpdf
+//! encodes it with the glyph ids of the subset it embeds and collects those glyphs from the operations;
+//! it is drawn after the rest of the page (a name or an address in another script, on top of its own
+//! white). Every call sets the state it needs (colour, width, dash), so the order of calls never leaks
+//! style from one shape to the next.
 
-use printpdf::{
-    Color, Greyscale, Line, LineCapStyle, LineDashPattern, LinePoint, Op, PaintMode, PdfFontHandle,
-    Point, Polygon, PolygonRing, Pt, TextItem, TextMatrix, WindingOrder,
-};
+use printpdf::{Color, Greyscale, Op, PdfFontHandle, Pt, TextItem, TextMatrix};
 
+use super::content::Content;
 use super::embedded::EmbeddedChars;
-use super::text::{needs_embedded, printable, width_mm, Font, PT_PER_MM};
+use super::text::{needs_embedded, printable, width_mm, winansi_code, Font, PT_PER_MM};
 
 /// A rectangle on the page, mm, lower-left corner at (`x`, `y`).
 #[derive(Debug, Clone, Copy, PartialEq)]
@@ -72,19 +74,14 @@ pub(crate) enum Stroke {
 }
 
 impl Stroke {
-    fn pattern(self) -> LineDashPattern {
-        let mm = |values: &[f64]| {
-            values
-                .iter()
-                .map(|v| (v * PT_PER_MM) as f32)
-                .collect::<Vec<f32>>()
-        };
+    /// Dash and gap lengths, mm.
+    fn pattern_mm(self) -> &'static [f64] {
         match self {
-            Stroke::Solid => LineDashPattern::solid(),
-            Stroke::Dashed => LineDashPattern::new(0.0, &mm(&[3.0, 1.6])),
-            Stroke::DashDot => LineDashPattern::new(0.0, &mm(&[6.0, 1.2, 0.9, 1.2])),
-            Stroke::DashDotDot => LineDashPattern::new(0.0, &mm(&[4.0, 1.0, 0.7, 1.0, 0.7, 1.0])),
-            Stroke::Dotted => LineDashPattern::new(0.0, &mm(&[0.5, 1.0])),
+            Stroke::Solid => &[],
+            Stroke::Dashed => &[3.0, 1.6],
+            Stroke::DashDot => &[6.0, 1.2, 0.9, 1.2],
+            Stroke::DashDotDot => &[4.0, 1.0, 0.7, 1.0, 0.7, 1.0],
+            Stroke::Dotted => &[0.5, 1.0],
         }
     }
 }
@@ -97,32 +94,40 @@ pub(crate) enum Align {
     Right,
 }
 
-fn pt(mm: f64) -> Pt {
-    Pt((mm * PT_PER_MM) as f32)
+/// How a closed path is painted.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Paint {
+    Fill,
+    Stroke,
+    Clip,
 }
 
-fn point(p: [f64; 2]) -> LinePoint {
-    LinePoint {
-        p: Point {
-            x: pt(p[0]),
-            y: pt(p[1]),
-        },
-        bezier: false,
-    }
-}
-
-fn grey(level: f64) -> Color {
-    Color::Greyscale(Greyscale::new(level.clamp(0.0, 1.0) as f32, None))
-}
-
-/// The operations of one page, and the boxes of the text set on its plan drawing (kept so that a
-/// check can see that no two of them overlap; they draw nothing).
+/// The drawing of one page, and the boxes of the text set on its plan drawing (kept so that a check
+/// can see that no two of them overlap; they draw nothing).
 #[derive(Debug, Default)]
 pub(crate) struct Canvas {
-    ops: Vec<Op>,
+    content: Content,
+    /// Text in the embedded face, drawn after `content`.
+    embedded_text: Vec<Op>,
     /// Characters shown in the embedded face, so the document embeds just those glyphs.
     embedded: EmbeddedChars,
+    /// Built-in faces shown on the page: regular, bold.
+    builtin_used: [bool; 2],
     plan_labels: Vec<(String, Area)>,
+}
+
+/// What the document needs of a finished page.
+#[derive(Debug)]
+pub(crate) struct PageParts {
+    /// The content stream of shapes and built-in text.
+    pub content: Vec<u8>,
+    /// printpdf operations: a font selection for each built-in face used (so the document lists it
+    /// among its fonts) and the text in the embedded face.
+    pub ops: Vec<Op>,
+}
+
+fn mm_to_pt(mm: f64) -> f64 {
+    mm * PT_PER_MM
 }
 
 impl Canvas {
@@ -130,14 +135,31 @@ impl Canvas {
         Canvas::default()
     }
 
-    pub(crate) fn into_ops(self) -> Vec<Op> {
-        self.ops
+    pub(crate) fn into_parts(self) -> PageParts {
+        let mut ops: Vec<Op> = [Font::Regular, Font::Bold]
+            .into_iter()
+            .zip(self.builtin_used)
+            .filter(|(_, used)| *used)
+            .map(|(font, _)| Op::SetFont {
+                font: PdfFontHandle::Builtin(font.builtin()),
+                size: Pt(1.0),
+            })
+            .collect();
+        ops.extend(self.embedded_text);
+        PageParts {
+            content: self.content.into_bytes(),
+            ops,
+        }
     }
 
-    /// Draws `other`'s operations on top of this page's.
+    /// Draws `other`'s marks on top of this page's.
     pub(crate) fn append(&mut self, other: Canvas) {
-        self.ops.extend(other.ops);
+        self.content.append(&other.content);
+        self.embedded_text.extend(other.embedded_text);
         self.embedded.merge(&other.embedded);
+        for (mine, theirs) in self.builtin_used.iter_mut().zip(other.builtin_used) {
+            *mine |= theirs;
+        }
         self.plan_labels.extend(other.plan_labels);
     }
 
@@ -156,35 +178,53 @@ impl Canvas {
     }
 
     fn stroke_state(&mut self, width_mm: f64, level: f64, stroke: Stroke) {
-        self.ops.push(Op::SetOutlineColor { col: grey(level) });
-        self.ops.push(Op::SetOutlineThickness { pt: pt(width_mm) });
-        self.ops.push(Op::SetLineDashPattern {
-            dash: stroke.pattern(),
+        let c = &mut self.content;
+        c.level(level);
+        c.op("G");
+        c.pt(mm_to_pt(width_mm));
+        c.op("w");
+        let dashes: [f64; 6] = std::array::from_fn(|i| {
+            stroke
+                .pattern_mm()
+                .get(i)
+                .map_or(0.0, |&value| mm_to_pt(value))
         });
-        self.ops.push(Op::SetLineCapStyle {
-            cap: LineCapStyle::Butt,
-        });
+        c.pt_array(&dashes[..stroke.pattern_mm().len()]);
+        c.pt(0.0);
+        c.op("d");
+        c.op("0 J");
     }
 
-    fn polygon(&mut self, points: &[[f64; 2]], mode: PaintMode) {
+    /// The path through `points`, closed when `closed`.
+    fn path(&mut self, points: &[[f64; 2]], closed: bool) {
+        let c = &mut self.content;
+        for (index, p) in points.iter().enumerate() {
+            c.pt(mm_to_pt(p[0]));
+            c.pt(mm_to_pt(p[1]));
+            c.op(if index == 0 { "m" } else { "l" });
+        }
+        if closed {
+            c.op("h");
+        }
+    }
+
+    fn polygon(&mut self, points: &[[f64; 2]], paint: Paint) {
         if points.len() < 2 {
             return;
         }
-        self.ops.push(Op::DrawPolygon {
-            polygon: Polygon {
-                rings: vec![PolygonRing {
-                    points: points.iter().copied().map(point).collect(),
-                }],
-                mode,
-                winding_order: WindingOrder::NonZero,
-            },
+        self.path(points, true);
+        self.content.op(match paint {
+            Paint::Fill => "f",
+            Paint::Stroke => "S",
+            Paint::Clip => "W n",
         });
     }
 
     /// Fills a closed polygon with a grey level (0 black, 1 white).
     pub(crate) fn fill_polygon(&mut self, points: &[[f64; 2]], level: f64) {
-        self.ops.push(Op::SetFillColor { col: grey(level) });
-        self.polygon(points, PaintMode::Fill);
+        self.content.level(level);
+        self.content.op("g");
+        self.polygon(points, Paint::Fill);
     }
 
     /// Draws the outline of a closed polygon.
@@ -196,7 +236,7 @@ impl Canvas {
         stroke: Stroke,
     ) {
         self.stroke_state(width_mm, level, stroke);
-        self.polygon(points, PaintMode::Stroke);
+        self.polygon(points, Paint::Stroke);
     }
 
     /// Draws an open line through `points`.
@@ -211,12 +251,8 @@ impl Canvas {
             return;
         }
         self.stroke_state(width_mm, level, stroke);
-        self.ops.push(Op::DrawLine {
-            line: Line {
-                points: points.iter().copied().map(point).collect(),
-                is_closed: false,
-            },
-        });
+        self.path(points, false);
+        self.content.op("S");
     }
 
     pub(crate) fn line(
@@ -240,16 +276,16 @@ impl Canvas {
 
     /// Saves the graphics state; pair with [`Canvas::restore`].
     pub(crate) fn save(&mut self) {
-        self.ops.push(Op::SaveGraphicsState);
+        self.content.op("q");
     }
 
     pub(crate) fn restore(&mut self) {
-        self.ops.push(Op::RestoreGraphicsState);
+        self.content.op("Q");
     }
 
     /// Limits drawing to the inside of `points` until the next [`Canvas::restore`].
     pub(crate) fn clip(&mut self, points: &[[f64; 2]]) {
-        self.polygon(points, PaintMode::Clip);
+        self.polygon(points, Paint::Clip);
     }
 
     /// One line of text with its baseline at `y`, black.
@@ -292,7 +328,7 @@ impl Canvas {
             font,
             size_pt,
             level,
-            TextMatrix::Translate(pt(left), pt(y)),
+            [1.0, 0.0, 0.0, 1.0, mm_to_pt(left), mm_to_pt(y)],
         );
     }
 
@@ -307,27 +343,57 @@ impl Canvas {
             font,
             size_pt,
             0.0,
-            TextMatrix::Raw([0.0, 1.0, -1.0, 0.0, pt(x).0, pt(start_y).0]),
+            [0.0, 1.0, -1.0, 0.0, mm_to_pt(x), mm_to_pt(start_y)],
         );
     }
 
-    fn show(&mut self, text: String, font: Font, size_pt: f64, level: f64, matrix: TextMatrix) {
-        self.ops.push(Op::StartTextSection);
-        self.ops.push(Op::SetFillColor { col: grey(level) });
-        let handle = if needs_embedded(&text) {
+    /// `text` (already printable) with the text matrix `matrix` (its last two entries in points).
+    fn show(&mut self, text: String, font: Font, size_pt: f64, level: f64, matrix: [f64; 6]) {
+        if needs_embedded(&text) {
             self.embedded.record(font, &text);
-            PdfFontHandle::External(font.embedded_id())
-        } else {
-            PdfFontHandle::Builtin(font.builtin())
-        };
-        self.ops.push(Op::SetFont {
-            font: handle,
-            size: Pt(size_pt as f32),
-        });
-        self.ops.push(Op::SetTextMatrix { matrix });
-        self.ops.push(Op::ShowText {
-            items: vec![TextItem::Text(text)],
-        });
-        self.ops.push(Op::EndTextSection);
+            self.embedded_text.extend([
+                Op::StartTextSection,
+                Op::SetFillColor {
+                    col: Color::Greyscale(Greyscale::new(level.clamp(0.0, 1.0) as f32, None)),
+                },
+                Op::SetFont {
+                    font: PdfFontHandle::External(font.embedded_id()),
+                    size: Pt(size_pt as f32),
+                },
+                Op::SetTextMatrix {
+                    matrix: TextMatrix::Raw(matrix.map(|value| value as f32)),
+                },
+                Op::ShowText {
+                    items: vec![TextItem::Text(text)],
+                },
+                Op::EndTextSection,
+            ]);
+            return;
+        }
+        self.builtin_used[usize::from(font == Font::Bold)] = true;
+        let c = &mut self.content;
+        c.op("BT");
+        c.level(level);
+        c.op("g");
+        c.name(font.builtin().get_pdf_id());
+        c.pt(size_pt);
+        c.op("Tf");
+        for value in matrix {
+            c.pt(value);
+        }
+        c.op("Tm");
+        c.string(text.chars().map(|ch| winansi_code(ch).unwrap_or(b'?')));
+        c.op("Tj");
+        c.op("ET");
+    }
+
+    /// Whether the page shows `text` in a built-in font (for tests).
+    #[cfg(test)]
+    pub(crate) fn shows_text(&self, text: &str) -> bool {
+        let mut wanted = Content::default();
+        wanted.string(text.chars().map(|ch| winansi_code(ch).unwrap_or(b'?')));
+        let wanted = wanted.into_bytes();
+        let shown = self.content.as_bytes();
+        shown.windows(wanted.len()).any(|window| window == wanted)
     }
 }

@@ -8,6 +8,7 @@
 
 mod bar_chart;
 mod canvas;
+mod content;
 mod crew_notes;
 mod crew_pattern;
 mod crew_sheet;
@@ -312,6 +313,7 @@ fn document_bytes(
     check_document_id(&options.document_id)?;
     let page_count = sheets.len();
     let mut embedded_chars = embedded::EmbeddedChars::default();
+    let mut contents: Vec<Vec<u8>> = Vec::with_capacity(page_count);
     let pages: Vec<PdfPage> = sheets
         .into_iter()
         .enumerate()
@@ -322,10 +324,12 @@ fn document_bytes(
                 .draw(&mut canvas, title, &sheet.title, index + 1, page_count);
             let paper = sheet.frame.paper;
             embedded_chars.merge(canvas.embedded_chars());
+            let parts = canvas.into_parts();
+            contents.push(parts.content);
             PdfPage::new(
                 Mm(paper.width_mm as f32),
                 Mm(paper.height_mm as f32),
-                canvas.into_ops(),
+                parts.ops,
             )
         })
         .collect();
@@ -359,12 +363,40 @@ fn document_bytes(
     {
         return Err(ScheduleError::Pdf(error.msg.clone()));
     }
+    put_contents(&mut lo_document, contents)?;
     deflate::compress_streams(&mut lo_document)?;
     let mut bytes = Vec::new();
     lo_document
         .save_to(&mut bytes)
         .map_err(|error| ScheduleError::Pdf(error.to_string()))?;
     set_trailer_id(bytes, &options.document_id)
+}
+
+/// Puts each page's own content stream (shapes and built-in text, [`canvas::PageParts`]) in front of
+/// what printpdf wrote for the page (its font selections and the embedded-face text), in page order.
+fn put_contents(
+    document: &mut lopdf::Document,
+    contents: Vec<Vec<u8>>,
+) -> Result<(), ScheduleError> {
+    let fail = |what: &str| ScheduleError::Pdf(format!("page content: {what}"));
+    let pages = document.get_pages();
+    if pages.len() != contents.len() {
+        return Err(fail("the document has a different number of pages"));
+    }
+    for (page_id, mut content) in pages.into_values().zip(contents) {
+        let stream_id = document
+            .get_dictionary(page_id)
+            .and_then(|page| page.get(b"Contents"))
+            .and_then(lopdf::Object::as_reference)
+            .map_err(|_| fail("a page has no content stream"))?;
+        let stream = document
+            .get_object_mut(stream_id)
+            .and_then(lopdf::Object::as_stream_mut)
+            .map_err(|_| fail("a page's content is not a stream"))?;
+        content.extend_from_slice(&stream.content);
+        stream.set_content(content);
+    }
+    Ok(())
 }
 
 #[cfg(test)]
