@@ -5,6 +5,8 @@
 //! Cyrillic, say) is set whole in the embedded face instead ([`super::embedded`]). Their advance widths (1/1000 em, by WinAnsi code 0x20..=0xFF) are the Adobe Core 14 AFM
 //! metrics, taken from groff's `devps/HR` and `devps/HB` font files (generated from those AFMs).
 
+use std::borrow::Cow;
+
 use printpdf::BuiltinFont;
 
 /// Points per millimetre.
@@ -34,7 +36,7 @@ impl Font {
 }
 
 /// The WinAnsi (CP1252) code of `c`, when the encoding has it.
-fn winansi_code(c: char) -> Option<u8> {
+pub(crate) fn winansi_code(c: char) -> Option<u8> {
     match c as u32 {
         code @ (0x20..=0x7E | 0xA0..=0xFF) => Some(code as u8),
         _ => Some(match c {
@@ -111,7 +113,8 @@ fn builtin_shows(c: char) -> bool {
 
 /// Whether `text` must be set in the embedded face: it has a character the built-in fonts cannot show.
 pub(crate) fn needs_embedded(text: &str) -> bool {
-    !text.chars().all(builtin_shows)
+    // ASCII is all in WinAnsi or a control character (escaped): the report's own words end here.
+    !text.is_ascii() && !text.chars().all(builtin_shows)
 }
 
 /// `text` as the page shows it. Text the built-in fonts can show keeps its characters, with ASCII
@@ -119,6 +122,9 @@ pub(crate) fn needs_embedded(text: &str) -> bool {
 /// print as code points (`[U+4E2D]`). Control characters print escaped (`\u{1b}`), line breaks and tabs
 /// as spaces. Idempotent: printing printable text changes nothing.
 pub(crate) fn printable(text: &str) -> String {
+    if text.bytes().all(|b| (0x20..0x7F).contains(&b)) {
+        return text.to_string();
+    }
     let mut out = String::with_capacity(text.len());
     let embedded = needs_embedded(text);
     for c in text.chars() {
@@ -155,29 +161,96 @@ pub(crate) fn width_mm(text: &str, font: Font, size_pt: f64) -> f64 {
     if needs_embedded(text) {
         return super::embedded::advance_em(text, font) * size_pt / PT_PER_MM;
     }
+    builtin_mm(builtin_thousandths(text, font), size_pt)
+}
+
+/// Advance of `text` in the built-in `font`, 1/1000 em: a whole number, so the advances of two pieces
+/// add up to exactly the advance of both (wrapping measures each word once, not each line so far). A
+/// character without a built-in glyph counts as a question mark.
+fn builtin_thousandths(text: &str, font: Font) -> u64 {
     let widths = font.widths();
-    let question_mark = f64::from(widths[usize::from(b'?' - 0x20)]);
-    let em_thousandths: f64 = text
-        .chars()
+    let advance = |code: u8| match widths[usize::from(code - 0x20)] {
+        0 => u64::from(widths[usize::from(b'?' - 0x20)]),
+        width => u64::from(width),
+    };
+    if text.is_ascii() {
+        return text
+            .bytes()
+            .map(|b| if b >= 0x20 { advance(b) } else { advance(b'?') })
+            .sum();
+    }
+    text.chars()
         .map(|c| match winansi_code(c) {
-            Some(code) if code >= 0x20 => match widths[usize::from(code - 0x20)] {
-                0 => question_mark,
-                width => f64::from(width),
-            },
-            _ => question_mark,
+            Some(code) if code >= 0x20 => advance(code),
+            _ => advance(b'?'),
         })
-        .sum();
-    em_thousandths / 1000.0 * size_pt / PT_PER_MM
+        .sum()
+}
+
+fn builtin_mm(thousandths: u64, size_pt: f64) -> f64 {
+    thousandths as f64 / 1000.0 * size_pt / PT_PER_MM
 }
 
 /// `text` broken into lines no wider than `max_width_mm`, at spaces; a word wider than a line is broken
 /// between characters. Empty text gives no lines.
 pub(crate) fn wrap(text: &str, font: Font, size_pt: f64, max_width_mm: f64) -> Vec<String> {
     let text = printable(text);
+    if needs_embedded(&text) {
+        return wrap_measuring_lines(&text, font, size_pt, max_width_mm);
+    }
+    // Built-in text: a line's advance is the sum of its words' and spaces' advances.
+    let fits = |thousandths: u64| builtin_mm(thousandths, size_pt) <= max_width_mm;
+    let space = builtin_thousandths(" ", font);
     let mut lines = Vec::new();
     let mut current = String::new();
+    let mut current_thousandths = 0;
     for word in words(&text) {
-        let word = word.as_str();
+        let word_thousandths = builtin_thousandths(&word, font);
+        if current.is_empty() && fits(word_thousandths) {
+            current = word.into_owned();
+            current_thousandths = word_thousandths;
+            continue;
+        }
+        if !current.is_empty() {
+            let joined = current_thousandths + space + word_thousandths;
+            if fits(joined) {
+                current.push(' ');
+                current.push_str(&word);
+                current_thousandths = joined;
+                continue;
+            }
+            lines.push(std::mem::take(&mut current));
+            current_thousandths = 0;
+            if fits(word_thousandths) {
+                current = word.into_owned();
+                current_thousandths = word_thousandths;
+                continue;
+            }
+        }
+        for c in word.chars() {
+            let mut buffer = [0u8; 4];
+            let c_thousandths = builtin_thousandths(c.encode_utf8(&mut buffer), font);
+            if !fits(current_thousandths + c_thousandths) && !current.is_empty() {
+                lines.push(std::mem::take(&mut current));
+                current_thousandths = 0;
+            }
+            current.push(c);
+            current_thousandths += c_thousandths;
+        }
+    }
+    if !current.is_empty() {
+        lines.push(current);
+    }
+    lines
+}
+
+/// [`wrap`] for text with characters only the embedded face shows: each line is measured whole, since
+/// a line is set in the embedded face only when it holds such a character.
+fn wrap_measuring_lines(text: &str, font: Font, size_pt: f64, max_width_mm: f64) -> Vec<String> {
+    let mut lines = Vec::new();
+    let mut current = String::new();
+    for word in words(text) {
+        let word = word.as_ref();
         let candidate = if current.is_empty() {
             word.to_string()
         } else {
@@ -229,19 +302,21 @@ const UNITS: [&str; 14] = [
     "Pa",
 ];
 
-/// The words of `text`, a number and its unit kept together as one word ("63 mm").
-fn words(text: &str) -> Vec<String> {
-    let mut words: Vec<String> = Vec::new();
+/// The words of `text`, a number and its unit kept together as one word ("63 mm"); only such a pair is
+/// a new string.
+fn words(text: &str) -> Vec<Cow<'_, str>> {
+    let mut words: Vec<Cow<'_, str>> = Vec::new();
     for word in text.split_whitespace() {
         let unit = UNITS
             .iter()
             .any(|unit| word.trim_end_matches([',', ';', '.', ')']) == *unit);
         match words.last_mut() {
             Some(last) if unit && last.ends_with(|c: char| c.is_ascii_digit()) => {
-                last.push(' ');
-                last.push_str(word);
+                let joined = last.to_mut();
+                joined.push(' ');
+                joined.push_str(word);
             }
-            _ => words.push(word.to_string()),
+            _ => words.push(Cow::Borrowed(word)),
         }
     }
     words
