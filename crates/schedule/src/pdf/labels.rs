@@ -194,38 +194,72 @@ fn crosses(segment: [[f64; 2]; 2], area: &Area) -> bool {
     })
 }
 
-/// How poor a place is: covering other regions (for a plane's name: anything outside its plane) costs
-/// most, then leaders crossing labels, then needing a leader at all, then distance.
-fn badness(
-    area: &Area,
-    anchor: [f64; 2],
-    label: &PlanLabel,
-    zones: &ZoneMap,
-    taken: &Taken,
-) -> f64 {
-    let own = label.region;
-    // A zone label may sit off the roof; a plane's name belongs inside its plane.
-    let misplaced = match label.style {
-        LabelStyle::Plane => zones.outside_share(area, own),
-        LabelStyle::Zone { .. } | LabelStyle::Table | LabelStyle::Eave => {
-            zones.foreign_share(area, own)
+/// The parts of a place's badness that need no zone sampling: its leader and its distance.
+#[derive(Debug, Clone, Copy)]
+struct PlaceCost {
+    leader: Option<[[f64; 2]; 2]>,
+    /// Whether the leader crosses a label already set; false until [`PlaceCost::with_crossing`].
+    crossing: bool,
+    leader_mm: f64,
+    distance_mm: f64,
+}
+
+impl PlaceCost {
+    /// The cost of `area` for `label` at `anchor`, its leader not yet checked against other labels.
+    fn of(area: &Area, anchor: [f64; 2], label: &PlanLabel) -> PlaceCost {
+        let leader = match label.style {
+            LabelStyle::Zone { .. } => leader(area, anchor),
+            LabelStyle::Plane | LabelStyle::Table | LabelStyle::Eave => None,
+        };
+        let center = [area.x + area.w / 2.0, area.y + area.h / 2.0];
+        PlaceCost {
+            leader,
+            crossing: false,
+            // A long leader is hard to follow across the drawing.
+            leader_mm: leader.map_or(0.0, |[a, b]| (b[0] - a[0]).hypot(b[1] - a[1])),
+            distance_mm: ((center[0] - anchor[0]).powi(2) + (center[1] - anchor[1]).powi(2)).sqrt(),
         }
-    };
-    let own_leader = match label.style {
-        LabelStyle::Zone { .. } => leader(area, anchor),
-        LabelStyle::Plane | LabelStyle::Table | LabelStyle::Eave => None,
-    };
-    // A long leader is hard to follow across the drawing.
-    let leader_mm = own_leader.map_or(0.0, |[a, b]| (b[0] - a[0]).hypot(b[1] - a[1]));
-    let center = [area.x + area.w / 2.0, area.y + area.h / 2.0];
-    let distance = ((center[0] - anchor[0]).powi(2) + (center[1] - anchor[1]).powi(2)).sqrt();
-    let crossing =
-        own_leader.is_some_and(|segment| taken.boxes.iter().any(|other| crosses(segment, other)));
+    }
+
+    fn with_crossing(mut self, taken: &Taken) -> PlaceCost {
+        self.crossing = self
+            .leader
+            .is_some_and(|segment| taken.boxes.iter().any(|other| crosses(segment, other)));
+        self
+    }
+
+    /// The badness with no region covered (and, before [`PlaceCost::with_crossing`], no crossing):
+    /// no place with this cost scores lower, since each term only adds.
+    fn least_badness(&self) -> f64 {
+        badness(0.0, self)
+    }
+
+    /// Whether no place with this cost can beat `best` (the margin keeps rounding from deciding).
+    fn cannot_beat(&self, best: Option<f64>) -> bool {
+        best.is_some_and(|best| self.least_badness() > best - 1e-9 + 1e-12)
+    }
+}
+
+/// How poor a place is: covering other regions (`misplaced`, the share of the box; for a plane's name:
+/// anything outside its plane) costs most, then leaders crossing labels, then needing a leader at all,
+/// then distance.
+fn badness(misplaced: f64, cost: &PlaceCost) -> f64 {
     misplaced * 4.0
-        + if crossing { 2.0 } else { 0.0 }
-        + if own_leader.is_some() { 1.0 } else { 0.0 }
-        + (leader_mm - LONG_LEADER_MM).max(0.0) / LONG_LEADER_MM
-        + distance / 40.0
+        + if cost.crossing { 2.0 } else { 0.0 }
+        + if cost.leader.is_some() { 1.0 } else { 0.0 }
+        + (cost.leader_mm - LONG_LEADER_MM).max(0.0) / LONG_LEADER_MM
+        + cost.distance_mm / 40.0
+}
+
+/// Share of `area` that a label may not cover: outside its plane for a plane's name, over other
+/// regions for the rest (a zone label may sit off the roof).
+fn misplaced_share(area: &Area, label: &PlanLabel, zones: &ZoneMap) -> f64 {
+    match label.style {
+        LabelStyle::Plane => zones.outside_share(area, label.region),
+        LabelStyle::Zone { .. } | LabelStyle::Table | LabelStyle::Eave => {
+            zones.foreign_share(area, label.region)
+        }
+    }
 }
 
 /// Places and draws `labels` inside `bounds`, clear of everything `taken` (each placed label and its
@@ -315,7 +349,14 @@ impl Search<'_> {
         let mut best: Option<(f64, [f64; 2], Area)> = None;
         for (anchor, center) in candidates {
             let area = centered(center, w, h);
-            if !self.bounds.contains_area(&area)
+            if !self.bounds.contains_area(&area) {
+                continue;
+            }
+            // Checking a place against every label set and sampling the zones under it is most of the
+            // work: skip both where even a free place over nothing it may not cover would not win.
+            let best_score = best.as_ref().map(|(score, _, _)| *score);
+            let cost = PlaceCost::of(&area, anchor, self.label);
+            if cost.cannot_beat(best_score)
                 || self
                     .taken
                     .boxes
@@ -329,7 +370,11 @@ impl Search<'_> {
             {
                 continue;
             }
-            let score = badness(&area, anchor, self.label, self.zones, self.taken);
+            let cost = cost.with_crossing(self.taken);
+            if cost.cannot_beat(best_score) {
+                continue;
+            }
+            let score = badness(misplaced_share(&area, self.label, self.zones), &cost);
             if best
                 .as_ref()
                 .is_none_or(|(best_score, _, _)| score < *best_score - 1e-9)
