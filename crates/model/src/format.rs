@@ -37,6 +37,9 @@ pub fn fixed(value: f64, decimals: usize) -> String {
     if !value.is_finite() {
         return "n/a".to_string();
     }
+    if let Some(text) = fixed_by_integers(value, decimals) {
+        return text;
+    }
     let text = format!("{value:.decimals$}");
     match text.strip_prefix('-') {
         Some(magnitude) if magnitude.bytes().all(|b| b == b'0' || b == b'.') => {
@@ -44,6 +47,38 @@ pub fn fixed(value: f64, decimals: usize) -> String {
         }
         _ => text,
     }
+}
+
+/// [`fixed`] by integer arithmetic, where that is certainly what `format!("{value:.decimals$}")`
+/// prints (the tables print thousands of numbers, and the general formatter was a tenth of a run):
+/// the scaled value below 1e9, so its rounding error (under 1.2e-7) cannot cross a half, and not within
+/// 1e-6 of a half, where the exact binary value decides. None otherwise.
+fn fixed_by_integers(value: f64, decimals: usize) -> Option<String> {
+    const POWERS: [f64; 7] = [1.0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6];
+    let scale = *POWERS.get(decimals)?;
+    let scaled = value.abs() * scale;
+    if scaled >= 1e9 {
+        return None;
+    }
+    let whole = scaled.floor();
+    let fraction = scaled - whole;
+    if (fraction - 0.5).abs() < 1e-6 {
+        return None;
+    }
+    let rounded = whole as u64 + u64::from(fraction > 0.5);
+    let scale = 10_u64.pow(decimals as u32);
+    let mut text = String::with_capacity(12);
+    if value < 0.0 && rounded != 0 {
+        text.push('-');
+    }
+    text.push_str(&(rounded / scale).to_string());
+    if decimals > 0 {
+        text.push('.');
+        let digits = (rounded % scale).to_string();
+        text.extend(std::iter::repeat_n('0', decimals - digits.len()));
+        text.push_str(&digits);
+    }
+    Some(text)
 }
 
 /// Like [`fixed`], then without trailing zeros (`6.00` -> `6`, `3.50` -> `3.5`): for the crew sheet.
@@ -256,6 +291,70 @@ pub fn escape_controls(text: &str) -> std::borrow::Cow<'_, str> {
 
 #[cfg(test)]
 mod tests {
+    /// The standard formatter with `fixed`'s one change (no `-0`): what `fixed` printed before its
+    /// integer path, and still prints where that path declines.
+    fn fixed_by_formatter(value: f64, decimals: usize) -> String {
+        let text = format!("{value:.decimals$}");
+        match text.strip_prefix('-') {
+            Some(magnitude) if magnitude.bytes().all(|b| b == b'0' || b == b'.') => {
+                magnitude.to_string()
+            }
+            _ => text,
+        }
+    }
+
+    #[test]
+    fn the_integer_path_prints_what_the_standard_formatter_prints() {
+        let mut state = 0x9E37_79B9_7F4A_7C15_u64;
+        let mut next = || {
+            state ^= state << 13;
+            state ^= state >> 7;
+            state ^= state << 17;
+            state
+        };
+        let mut values = vec![
+            0.0,
+            -0.0,
+            0.5,
+            1.5,
+            2.5,
+            -2.5,
+            0.125,
+            0.0005,
+            -0.0004,
+            0.9995,
+            1.0005,
+            999_999.999_5,
+            1e9,
+            123.456_5,
+            0.045,
+            2.675,
+            -1e-12,
+        ];
+        for _ in 0..20_000 {
+            let bits = next();
+            let magnitude = 10f64.powi((bits % 14) as i32 - 6);
+            let unit = (next() >> 11) as f64 / (1u64 << 53) as f64;
+            let sign = if bits & (1 << 40) == 0 { 1.0 } else { -1.0 };
+            values.push(sign * unit * magnitude);
+            // Values on and next to a half at some number of places.
+            let places = (bits % 7) as i32;
+            let half = ((next() % 100_000) as f64 + 0.5) / 10f64.powi(places);
+            values.extend([half, f64::from_bits(half.to_bits() + 1), -half]);
+            // Large values next to a half, where scaling by a power of ten is least exact.
+            values.push(1e7 * (1.0 + (next() % 1000) as f64) + half / 1e3);
+        }
+        for value in values {
+            for decimals in 0..=6 {
+                assert_eq!(
+                    fixed(value, decimals),
+                    fixed_by_formatter(value, decimals),
+                    "{value:e} to {decimals} places"
+                );
+            }
+        }
+    }
+
     use super::*;
     use approx::assert_relative_eq;
 
