@@ -5,10 +5,7 @@
 //! Same rule as printpdf's otherwise: only streams that allow compression and have no filter yet, and a
 //! stream is kept plain when deflating would not make it shorter.
 
-use std::io::Write;
-
-use flate2::write::ZlibEncoder;
-use flate2::Compression;
+use flate2::{Compress, Compression, FlushCompress, Status};
 use lopdf::{Document, Object, Stream};
 
 use crate::ScheduleError;
@@ -17,33 +14,57 @@ use crate::ScheduleError;
 /// saving the stream stays plain.
 const FILTER_ENTRY_BYTES: usize = 19;
 
-/// Deflates every compressible, unfiltered stream of `document` at [`Compression::fast`].
+/// Deflates every compressible, unfiltered stream of `document` at [`Compression::fast`], with one
+/// compressor reset between streams (setting one up costs more than deflating a page).
 pub(crate) fn compress_streams(document: &mut Document) -> Result<(), ScheduleError> {
+    let mut compressor = Compress::new(Compression::fast(), true);
     for object in document.objects.values_mut() {
         if let Object::Stream(stream) = object {
-            compress_stream(stream)?;
+            compress_stream(stream, &mut compressor)?;
         }
     }
     Ok(())
 }
 
-fn compress_stream(stream: &mut Stream) -> Result<(), ScheduleError> {
+fn compress_stream(stream: &mut Stream, compressor: &mut Compress) -> Result<(), ScheduleError> {
     if !stream.allows_compression || stream.dict.get(b"Filter").is_ok() {
         return Ok(());
     }
-    let mut encoder = ZlibEncoder::new(
-        Vec::with_capacity(stream.content.len() / 2),
-        Compression::fast(),
-    );
-    let deflated = encoder
-        .write_all(&stream.content)
-        .and_then(|()| encoder.finish())
-        .map_err(|error| ScheduleError::Pdf(format!("deflating a stream: {error}")))?;
+    let deflated = zlib(compressor, &stream.content)?;
     if deflated.len() + FILTER_ENTRY_BYTES < stream.content.len() {
         stream.dict.set("Filter", "FlateDecode");
         stream.set_content(deflated);
     }
     Ok(())
+}
+
+/// `input` as one zlib stream (RFC 1950), from a fresh start of `compressor`.
+fn zlib(compressor: &mut Compress, input: &[u8]) -> Result<Vec<u8>, ScheduleError> {
+    let fail = |what: String| ScheduleError::Pdf(format!("deflating a stream: {what}"));
+    compressor.reset();
+    let mut output = Vec::with_capacity(input.len() / 2 + 64);
+    let mut last_progress = None;
+    loop {
+        let progress = (compressor.total_in(), compressor.total_out());
+        if last_progress == Some(progress) && output.capacity() - output.len() >= 64 {
+            return Err(fail("the compressor made no progress".to_string()));
+        }
+        last_progress = Some(progress);
+        let read = usize::try_from(compressor.total_in()).map_err(|e| fail(e.to_string()))?;
+        let rest = input
+            .get(read..)
+            .ok_or_else(|| fail("read past the end".to_string()))?;
+        if output.capacity() - output.len() < 64 {
+            output.reserve(output.capacity().max(1024));
+        }
+        match compressor
+            .compress_vec(rest, &mut output, FlushCompress::Finish)
+            .map_err(|e| fail(e.to_string()))?
+        {
+            Status::StreamEnd => return Ok(output),
+            Status::Ok | Status::BufError => {}
+        }
+    }
 }
 
 #[cfg(test)]
@@ -72,6 +93,37 @@ mod tests {
         let stream = stream_of(&document, id);
         assert!(stream.content.len() < content.len() / 4);
         assert_eq!(stream.decompressed_content().expect("inflates"), content);
+    }
+
+    #[test]
+    fn streams_deflated_one_after_another_each_inflate_to_their_own_content() {
+        // Incompressible bytes (a fixed xorshift sequence) larger than the first output buffer, then text.
+        let mut state = 0x2545_f491_u32;
+        let noise: Vec<u8> = (0..300_000)
+            .map(|_| {
+                state ^= state << 13;
+                state ^= state >> 17;
+                state ^= state << 5;
+                state as u8
+            })
+            .collect();
+        let text = b"BT /F5 9 Tf (line) Tj ET\n".repeat(500);
+        let mut document = Document::with_version("1.3");
+        let first = document.add_object(Object::Stream(Stream::new(
+            Dictionary::new(),
+            noise.clone(),
+        )));
+        let second =
+            document.add_object(Object::Stream(Stream::new(Dictionary::new(), text.clone())));
+        compress_streams(&mut document).expect("deflates");
+        assert_eq!(
+            stream_of(&document, first).content,
+            noise,
+            "noise stays plain"
+        );
+        let second = stream_of(&document, second);
+        assert!(second.content.len() < text.len() / 10);
+        assert_eq!(second.decompressed_content().expect("inflates"), text);
     }
 
     #[test]
