@@ -305,7 +305,7 @@ pub fn layout_deck(
 ) -> Result<DeckLayout, SpacingError> {
     validate(planes, zones, zone_rank, framing, panel)?;
     let mut cache = BearingWork::default();
-    let zone_shapes = ZoneShapes::new(zones);
+    let zone_shapes = ZoneShapes::new(zones, zone_rank);
     let mut lines = Vec::new();
     let mut courses = Vec::new();
     let mut pieces = Vec::new();
@@ -368,7 +368,6 @@ pub fn layout_deck(
                 plane_index,
                 framing,
                 &zone_shapes,
-                zone_rank,
                 &mut cache,
                 &mut notes,
             )?);
@@ -425,7 +424,7 @@ pub fn layout_deck(
                 courses: &plane_courses,
                 panel_width_m: panel.width_mm / 1000.0,
             };
-            lines.extend(blocking_lines(&on, &zone_shapes, zone_rank, &mut number)?);
+            lines.extend(blocking_lines(&on, &zone_shapes, &mut number)?);
         }
     }
     let framing_lines = framing_lines(planes, &lines);
@@ -453,7 +452,6 @@ fn lay_out_line(
     plane_index: usize,
     framing: &FramingInput,
     zones: &ZoneShapes<'_>,
-    zone_rank: &[u32],
     cache: &mut BearingWork,
     notes: &mut Vec<(usize, LayoutChange)>,
 ) -> Result<LayoutLine, SpacingError> {
@@ -482,7 +480,7 @@ fn lay_out_line(
     };
     let mut zone_list = Vec::new();
     for interval in &grid_line.intervals_m {
-        for piece in zone_pieces(strip, *interval, zones, zone_rank)? {
+        for piece in zone_pieces(strip, *interval, zones)? {
             let a = frame.slope_from_low_edge_m(piece.from_m) - start_m;
             let b = frame.slope_from_low_edge_m(piece.to_m) - start_m;
             zone_list.push(ZonePiece {

@@ -268,6 +268,10 @@ struct LoadCache<'u> {
     uplift: &'u UpliftFn<'u>,
     rules: &'u SpacingRules,
     loads: HashMap<(usize, u64, u64), NailLoad, BuildFastHasher>,
+    /// [`LoadCache::widest_holding`]'s answers by zone, reaction width and support role (the role
+    /// picks the increments; the plan has one nail, so one resistance): most stretches repeat one,
+    /// and walking the increments again cost a load lookup each.
+    widest: HashMap<(usize, u64, SupportRole), Option<f64>, BuildFastHasher>,
 }
 
 impl<'u> LoadCache<'u> {
@@ -276,6 +280,7 @@ impl<'u> LoadCache<'u> {
             uplift,
             rules,
             loads: HashMap::default(),
+            widest: HashMap::default(),
         }
     }
 
@@ -304,21 +309,30 @@ impl<'u> LoadCache<'u> {
         Ok(load)
     }
 
-    /// The widest allowed increment (widest first in `allowed`) that holds; None when none does.
+    /// The widest allowed increment for `role` (widest first in `allowed`) that holds; None when
+    /// none does. `allowed` and `resistance_n` must be the same for every call with one role.
     fn widest_holding(
         &mut self,
+        role: SupportRole,
         allowed: &[f64],
         zone_index: usize,
         reaction_width_mm: f64,
         resistance_n: f64,
     ) -> Result<Option<f64>, SpacingError> {
+        let key = (zone_index, reaction_width_mm.to_bits(), role);
+        if let Some(widest) = self.widest.get(&key) {
+            return Ok(*widest);
+        }
+        let mut widest = None;
         for &spacing_mm in allowed {
             let load = self.load(zone_index, reaction_width_mm, spacing_mm)?;
             if load.demand_n <= resistance_n * (1.0 + 1e-12) {
-                return Ok(Some(spacing_mm));
+                widest = Some(spacing_mm);
+                break;
             }
         }
-        Ok(None)
+        self.widest.insert(key, widest);
+        Ok(widest)
     }
 }
 
@@ -417,6 +431,7 @@ fn plan_or_check(
                     None
                 } else {
                     cache.widest_holding(
+                        bearing.support_role,
                         &allowed(bearing.support_role).widest_first_mm,
                         piece.zone_index,
                         reaction_width_mm,

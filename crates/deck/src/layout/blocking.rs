@@ -45,7 +45,6 @@ pub(crate) struct BlockingPlane<'a> {
 pub(crate) fn blocking_lines(
     on: &BlockingPlane<'_>,
     zones: &ZoneShapes<'_>,
-    zone_rank: &[u32],
     next_number: &mut u32,
 ) -> Result<Vec<LayoutLine>, SpacingError> {
     let frame = on.frame;
@@ -94,7 +93,7 @@ pub(crate) fn blocking_lines(
         let mut zone_list = Vec::new();
         let mut bearings = Vec::new();
         for stretch in &stretches {
-            for piece in zone_pieces(strip, *stretch, zones, zone_rank)? {
+            for piece in zone_pieces(strip, *stretch, zones)? {
                 zone_list.push(ZonePiece {
                     from_m: to_slope(piece.from_m),
                     to_m: to_slope(piece.to_m),

@@ -77,7 +77,15 @@ pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &m
             hits.push((along, is_oblique(b[r] - a[r], b[k] - a[k])));
         }
     }
-    hits.sort_by(|p, q| p.0.total_cmp(&q.0));
+    // Two hits (any convex polygon) need at most a swap; the stable sort for more gives the same
+    // order and costs a tenth of the sectioning on its own.
+    if let [first, second] = hits.as_mut_slice() {
+        if second.0.total_cmp(&first.0).is_lt() {
+            std::mem::swap(first, second);
+        }
+    } else {
+        hits.sort_by(|p, q| p.0.total_cmp(&q.0));
+    }
     scratch.stretches.clear();
     scratch
         .stretches

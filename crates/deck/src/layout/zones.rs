@@ -29,32 +29,39 @@ pub(crate) struct LineStrip<'a> {
     pub half_width_m: f64,
 }
 
-/// One zone polygon with its plan bounds.
+/// One zone polygon with its plan bounds and its zone's rank.
 #[derive(Debug, Clone, Copy)]
 struct ZoneShape<'a> {
     zone_index: usize,
+    rank: u32,
     polygon: &'a [[f64; 2]],
     bounds: [[f64; 2]; 2],
 }
 
-/// Every zone polygon with its bounds, worked out once per layout rather than once per line.
+/// Every zone polygon with its bounds, worked out once per layout rather than once per line, worst
+/// zone first: once a stretch has found a zone its strip touches, no lower-ranked polygon can govern
+/// it, and the search stops there.
 #[derive(Debug, Clone)]
 pub(crate) struct ZoneShapes<'a> {
     shapes: Vec<ZoneShape<'a>>,
 }
 
 impl<'a> ZoneShapes<'a> {
-    pub(crate) fn new(zones: &'a [ZoneRegion]) -> Self {
-        let shapes = zones
+    /// `zone_rank[zone_index]` orders the zones, higher = worse.
+    pub(crate) fn new(zones: &'a [ZoneRegion], zone_rank: &[u32]) -> Self {
+        let mut shapes: Vec<ZoneShape<'a>> = zones
             .iter()
             .flat_map(|zone| {
+                let rank = zone_rank.get(zone.zone_index).copied().unwrap_or(0);
                 zone.polygons_m.iter().map(move |polygon| ZoneShape {
                     zone_index: zone.zone_index,
+                    rank,
                     polygon: polygon.as_slice(),
                     bounds: bounds(polygon),
                 })
             })
             .collect();
+        shapes.sort_by_key(|shape| std::cmp::Reverse(shape.rank));
         Self { shapes }
     }
 }
@@ -68,7 +75,6 @@ pub(crate) fn zone_pieces(
     line: LineStrip<'_>,
     along_m: [f64; 2],
     zones: &ZoneShapes<'_>,
-    zone_rank: &[u32],
 ) -> Result<Vec<PlanZonePiece>, SpacingError> {
     let strip = [
         line.position_m - line.half_width_m,
@@ -98,7 +104,7 @@ pub(crate) fn zone_pieces(
         }
     }
     breaks.retain(|b| *b >= along_m[0] && *b <= along_m[1]);
-    breaks.sort_by(f64::total_cmp);
+    breaks.sort_unstable_by(f64::total_cmp);
     let mut kept: Vec<f64> = Vec::with_capacity(breaks.len());
     for b in breaks {
         if kept.last().is_none_or(|last| b - last >= MIN_PIECE_M) {
@@ -126,6 +132,10 @@ pub(crate) fn zone_pieces(
         );
         let mut worst: Option<(u32, bool, usize)> = None;
         for shape in &candidates {
+            // Worst zone first: a lower rank than the one found cannot govern.
+            if worst.is_some_and(|(best_rank, _, _)| shape.rank < best_rank) {
+                break;
+            }
             // A polygon that does not reach `middle` along the line has an empty section there: skip
             // the sectioning (the same test as the section's own crossing rule).
             let [lo, hi] = shape.bounds;
@@ -147,7 +157,7 @@ pub(crate) fn zone_pieces(
                     && line.position_m <= s.hi + SAME_POSITION_M
             });
             let zone_index = shape.zone_index;
-            let rank = zone_rank.get(zone_index).copied().unwrap_or(0);
+            let rank = shape.rank;
             // Highest rank; then the zone under the line itself; then the lowest index.
             let better = match worst {
                 None => true,
@@ -221,7 +231,7 @@ mod tests {
             position_m,
             half_width_m: 0.305,
         };
-        zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&zones()), &[1, 2, 3])
+        zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&zones(), &[1, 2, 3]))
             .expect("zones tile the plane")
     }
 
@@ -261,7 +271,7 @@ mod tests {
             polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
         }];
         let error =
-            zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&only_edge), &[1]).expect_err("gap");
+            zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&only_edge, &[1])).expect_err("gap");
         assert!(error.to_string().contains("rafter line 7"), "{error}");
     }
 }
