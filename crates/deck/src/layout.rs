@@ -565,7 +565,7 @@ fn validate(
         });
     }
     for (i, plane) in planes.iter().enumerate() {
-        validate_polygon(&format!("planes[{i}].polygon_m"), &plane.polygon_m, true)?;
+        validate_polygon(|| format!("planes[{i}].polygon_m"), &plane.polygon_m, true)?;
         limits::SLOPE_DEG.check(&format!("planes[{i}].slope_deg"), plane.slope_deg)?;
         let [ux, uy] = plane.downslope_m;
         let field = || format!("planes[{i}].downslope_m");
@@ -607,7 +607,7 @@ fn validate(
             });
         }
         for (j, polygon) in zone.polygons_m.iter().enumerate() {
-            validate_polygon(&format!("zones[{i}].polygons_m[{j}]"), polygon, false)?;
+            validate_polygon(|| format!("zones[{i}].polygons_m[{j}]"), polygon, false)?;
         }
     }
     limits::FRAMING_SPACING_MM.check("framing.spacing_mm", framing.spacing_mm)?;

@@ -72,6 +72,8 @@ impl StripCache {
 pub(crate) struct BearingWork {
     strips: StripCache,
     section: SectionScratch,
+    /// Positions of the lines under one panel.
+    supports: Vec<f64>,
 }
 
 /// The panel ends of one course and what was changed to avoid narrow pieces.
@@ -380,15 +382,18 @@ pub(crate) fn bearing_at(
     let mut strips = Vec::with_capacity(side_count);
     let mut slivers_m = Vec::new();
     for side in sides.into_iter().flatten() {
-        let mut supports: Vec<f64> = grid_between(
-            grid,
-            side.from_m - SAME_POSITION_M,
-            side.to_m + SAME_POSITION_M,
-        )
-        .iter()
-        .filter(|g| near(g.position_m, position) || g.is_present_at(along_m))
-        .map(|g| g.position_m)
-        .collect();
+        let supports = &mut work.supports;
+        supports.clear();
+        supports.extend(
+            grid_between(
+                grid,
+                side.from_m - SAME_POSITION_M,
+                side.to_m + SAME_POSITION_M,
+            )
+            .iter()
+            .filter(|g| near(g.position_m, position) || g.is_present_at(along_m))
+            .map(|g| g.position_m),
+        );
         let mut overhang_start_m = 0.0;
         let mut overhang_end_m = 0.0;
         let first = supports.first().copied().unwrap_or(position);

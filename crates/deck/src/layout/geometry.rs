@@ -142,6 +142,21 @@ pub(crate) fn crossings(
     })
 }
 
+/// Sorts `values` into `f64::total_cmp`'s order, comparing integers: the key is the one `total_cmp`
+/// itself compares (the bits, with all but the sign flipped for a negative number), so the order is
+/// the same, at about half the cost of sorting with the closure. A line on a hip roof sorts a few
+/// hundred breakpoints, and that sort was a sixth of the zone split's time. `keys` is a buffer.
+pub(crate) fn sort_total(values: &mut [f64], keys: &mut Vec<i64>) {
+    // The same transform as `f64::total_cmp`; applied twice it gives the bits back.
+    let flip = |bits: i64| bits ^ (((bits >> 63) as u64) >> 1) as i64;
+    keys.clear();
+    keys.extend(values.iter().map(|v| flip(v.to_bits() as i64)));
+    keys.sort_unstable();
+    for (value, key) in values.iter_mut().zip(keys.iter()) {
+        *value = f64::from_bits(flip(*key) as u64);
+    }
+}
+
 /// Plan bounding box `[min, max]` of a polygon.
 pub(crate) fn bounds(polygon: &[[f64; 2]]) -> [[f64; 2]; 2] {
     let mut lo = [f64::INFINITY; 2];
@@ -167,15 +182,17 @@ fn doubled_area_m2(polygon: &[[f64; 2]]) -> f64 {
         .sum()
 }
 
-/// A polygon needs three finite points and, when `needs_area`, a non-zero area.
+/// A polygon needs three finite points and, when `needs_area`, a non-zero area. The field's name is
+/// written only for a message: a hip roof's zones come in some 250 polygons, each named
+/// `zones[i].polygons_m[j]`, and formatting every name cost 2 % of a roof's layout.
 pub(crate) fn validate_polygon(
-    field: &str,
+    field: impl Fn() -> String,
     polygon: &[[f64; 2]],
     needs_area: bool,
 ) -> Result<(), SpacingError> {
     if polygon.len() < 3 {
         return Err(SpacingError::Invalid {
-            field: field.to_string(),
+            field: field(),
             reason: format!("has {} points, needs at least 3", polygon.len()),
         });
     }
@@ -185,13 +202,13 @@ pub(crate) fn validate_polygon(
         .find(|(_, p)| !(p[0].is_finite() && p[1].is_finite()))
     {
         return Err(SpacingError::Invalid {
-            field: format!("{field}[{i}]"),
+            field: format!("{}[{i}]", field()),
             reason: format!("[{}, {}] is not a finite point", p[0], p[1]),
         });
     }
     if needs_area && doubled_area_m2(polygon).abs() < 1e-9 {
         return Err(SpacingError::Invalid {
-            field: field.to_string(),
+            field: field(),
             reason: "encloses no area".to_string(),
         });
     }
@@ -204,6 +221,26 @@ mod tests {
     use approx::assert_relative_eq;
 
     const RECTANGLE: [[f64; 2]; 4] = [[0.0, 0.0], [4.0, 0.0], [4.0, 2.0], [0.0, 2.0]];
+
+    #[test]
+    fn sort_total_gives_total_cmps_order() {
+        let mut values = vec![
+            3.5,
+            -0.0,
+            0.0,
+            -2.25,
+            1e-300,
+            -1e-300,
+            3.5,
+            f64::MAX,
+            f64::MIN,
+        ];
+        let mut expected = values.clone();
+        expected.sort_by(f64::total_cmp);
+        sort_total(&mut values, &mut Vec::new());
+        let bits = |v: &[f64]| v.iter().map(|x| x.to_bits()).collect::<Vec<_>>();
+        assert_eq!(bits(&values), bits(&expected));
+    }
 
     #[test]
     fn a_line_on_either_outer_edge_keeps_the_edge() {
@@ -253,11 +290,20 @@ mod tests {
 
     #[test]
     fn polygons_are_validated() {
-        assert!(validate_polygon("p", &RECTANGLE, true).is_ok());
-        assert!(validate_polygon("p", &RECTANGLE[..2], true).is_err());
-        assert!(validate_polygon("p", &[[0.0, 0.0], [1.0, 1.0], [2.0, 2.0]], true).is_err());
-        let error = validate_polygon("p", &[[0.0, 0.0], [1.0, f64::NAN], [2.0, 0.0]], true)
-            .expect_err("nan");
+        assert!(validate_polygon(|| "p".to_string(), &RECTANGLE, true).is_ok());
+        assert!(validate_polygon(|| "p".to_string(), &RECTANGLE[..2], true).is_err());
+        assert!(validate_polygon(
+            || "p".to_string(),
+            &[[0.0, 0.0], [1.0, 1.0], [2.0, 2.0]],
+            true
+        )
+        .is_err());
+        let error = validate_polygon(
+            || "p".to_string(),
+            &[[0.0, 0.0], [1.0, f64::NAN], [2.0, 0.0]],
+            true,
+        )
+        .expect_err("nan");
         assert!(error.to_string().starts_with("p[1]"), "{error}");
     }
 }

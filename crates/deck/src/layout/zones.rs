@@ -6,7 +6,7 @@
 //! zone boundaries that run parallel to the lines, by at most half a spacing.
 
 use super::geometry::{
-    bounds, crossings, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
+    bounds, crossings, section_into, sort_total, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
 };
 use super::{Axis, ZoneRegion};
 use crate::error::SpacingError;
@@ -104,7 +104,8 @@ pub(crate) fn zone_pieces(
         }
     }
     breaks.retain(|b| *b >= along_m[0] && *b <= along_m[1]);
-    breaks.sort_unstable_by(f64::total_cmp);
+    let mut keys = Vec::with_capacity(breaks.len());
+    sort_total(&mut breaks, &mut keys);
     let mut kept: Vec<f64> = Vec::with_capacity(breaks.len());
     for b in breaks {
         if kept.last().is_none_or(|last| b - last >= MIN_PIECE_M) {
