@@ -66,19 +66,29 @@ fn fixed_by_integers(value: f64, decimals: usize) -> Option<String> {
         return None;
     }
     let rounded = whole as u64 + u64::from(fraction > 0.5);
-    let scale = 10_u64.pow(decimals as u32);
-    let mut text = String::with_capacity(12);
+    // Written from the last digit back, with the point `decimals` places in and at least one digit
+    // before it.
+    let mut bytes = [0u8; 24];
+    let mut start = bytes.len();
+    let mut rest = rounded;
+    let mut written = 0;
+    while rest > 0 || written <= decimals {
+        if written == decimals && decimals > 0 {
+            start -= 1;
+            bytes[start] = b'.';
+        }
+        start -= 1;
+        bytes[start] = b'0' + (rest % 10) as u8;
+        rest /= 10;
+        written += 1;
+    }
     if value < 0.0 && rounded != 0 {
-        text.push('-');
+        start -= 1;
+        bytes[start] = b'-';
     }
-    text.push_str(&(rounded / scale).to_string());
-    if decimals > 0 {
-        text.push('.');
-        let digits = (rounded % scale).to_string();
-        text.extend(std::iter::repeat_n('0', decimals - digits.len()));
-        text.push_str(&digits);
-    }
-    Some(text)
+    std::str::from_utf8(&bytes[start..])
+        .ok()
+        .map(str::to_string)
 }
 
 /// Like [`fixed`], then without trailing zeros (`6.00` -> `6`, `3.50` -> `3.5`): for the crew sheet.

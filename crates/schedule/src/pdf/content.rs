@@ -39,13 +39,13 @@ impl Content {
 
     /// A number in points followed by a space.
     pub(crate) fn pt(&mut self, value: f64) {
-        self.number(value, POINT_DECIMALS);
+        self.number::<POINT_DECIMALS>(value);
         self.bytes.push(b' ');
     }
 
     /// A grey level (0 black, 1 white) followed by a space.
     pub(crate) fn level(&mut self, value: f64) {
-        self.number(value.clamp(0.0, 1.0), LEVEL_DECIMALS);
+        self.number::<LEVEL_DECIMALS>(value.clamp(0.0, 1.0));
         self.bytes.push(b' ');
     }
 
@@ -63,7 +63,7 @@ impl Content {
             if index > 0 {
                 self.bytes.push(b' ');
             }
-            self.number(*value, POINT_DECIMALS);
+            self.number::<POINT_DECIMALS>(*value);
         }
         self.bytes.extend_from_slice(b"] ");
     }
@@ -89,17 +89,17 @@ impl Content {
         self.bytes.extend_from_slice(b") ");
     }
 
-    /// `value` rounded to `decimals`, trailing zeros and a bare point dropped; a value that rounds to
+    /// `value` rounded to `DECIMALS` places, trailing zeros and a bare point dropped; a value that rounds to
     /// zero is `0`, never `-0`. Values beyond what a page can hold are clamped (the drawing keeps to
     /// the page; this only keeps a wild value from printing as an exponent or `inf`).
-    fn number(&mut self, value: f64, decimals: u32) {
+    fn number<const DECIMALS: u32>(&mut self, value: f64) {
         const LIMIT: f64 = 1.0e9;
         let value = if value.is_finite() {
             value.clamp(-LIMIT, LIMIT)
         } else {
             0.0
         };
-        let scale = 10_u64.pow(decimals);
+        let scale = 10_u64.pow(DECIMALS);
         // Half away from zero, as `f64::round`, without the library call (this runs for every coordinate).
         let magnitude = (value.abs() * scale as f64 + 0.5) as u64;
         if value < 0.0 && magnitude != 0 {
@@ -120,6 +120,10 @@ impl Content {
     }
 
     fn digits(&mut self, value: u64) {
+        if value < 10 {
+            self.bytes.push(b'0' + value as u8);
+            return;
+        }
         let mut buffer = [0u8; 20];
         let mut at = buffer.len();
         let mut rest = value;

@@ -307,9 +307,8 @@ const UNITS: [&str; 14] = [
 fn words(text: &str) -> Vec<Cow<'_, str>> {
     let mut words: Vec<Cow<'_, str>> = Vec::new();
     for word in text.split_whitespace() {
-        let unit = UNITS
-            .iter()
-            .any(|unit| word.trim_end_matches([',', ';', '.', ')']) == *unit);
+        let bare = word.trim_end_matches([',', ';', '.', ')']);
+        let unit = UNITS.contains(&bare);
         match words.last_mut() {
             Some(last) if unit && last.ends_with(|c: char| c.is_ascii_digit()) => {
                 let joined = last.to_mut();
