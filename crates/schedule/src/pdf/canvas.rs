@@ -266,6 +266,42 @@ impl Canvas {
         self.polyline(&[from, to], width_mm, level, stroke);
     }
 
+    /// Fills every rectangle of `areas` in one grey, as one path (a field of dots, say).
+    pub(crate) fn fill_areas(&mut self, areas: &[Area], level: f64) {
+        if areas.is_empty() {
+            return;
+        }
+        let c = &mut self.content;
+        c.level(level);
+        c.op("g");
+        for area in areas {
+            c.pt(mm_to_pt(area.x));
+            c.pt(mm_to_pt(area.y));
+            c.pt(mm_to_pt(area.w));
+            c.pt(mm_to_pt(area.h));
+            c.op("re");
+        }
+        c.op("f");
+    }
+
+    /// Draws every segment of `segments` in one style, as one path (a hatch, say).
+    pub(crate) fn segments(
+        &mut self,
+        segments: &[[[f64; 2]; 2]],
+        width_mm: f64,
+        level: f64,
+        stroke: Stroke,
+    ) {
+        if segments.is_empty() {
+            return;
+        }
+        self.stroke_state(width_mm, level, stroke);
+        for segment in segments {
+            self.path(segment, false);
+        }
+        self.content.op("S");
+    }
+
     pub(crate) fn fill_area(&mut self, area: Area, level: f64) {
         self.fill_polygon(&area.corners(), level);
     }

@@ -112,14 +112,16 @@ fn hatch_lines(canvas: &mut Canvas, bbox: [f64; 4], direction: [f64; 2], step: f
     let reach = (x1 - x0).abs() + (y1 - y0).abs() + 1.0;
     let center = [(x0 + x1) / 2.0, (y0 + y1) / 2.0];
     let center_c = (a * center[0] + b * center[1]) / norm;
+    let mut segments = Vec::new();
     while c <= c_max + 1e-9 {
         let shift = c - center_c;
         let base = [center[0] + a / norm * shift, center[1] + b / norm * shift];
         let from = [base[0] - along[0] * reach, base[1] - along[1] * reach];
         let to = [base[0] + along[0] * reach, base[1] + along[1] * reach];
-        canvas.line(from, to, HATCH_WIDTH_MM, HATCH_GREY, Stroke::Solid);
+        segments.push([from, to]);
         c += step;
     }
+    canvas.segments(&segments, HATCH_WIDTH_MM, HATCH_GREY, Stroke::Solid);
 }
 
 fn dots(canvas: &mut Canvas, bbox: [f64; 4], step: f64) {
@@ -127,6 +129,7 @@ fn dots(canvas: &mut Canvas, bbox: [f64; 4], step: f64) {
     let half = 0.3;
     let mut y = (y0 / step).floor() * step;
     let mut row = 0u32;
+    let mut squares = Vec::new();
     while y <= y1 + 1e-9 {
         let shift = if row.is_multiple_of(2) {
             0.0
@@ -135,20 +138,18 @@ fn dots(canvas: &mut Canvas, bbox: [f64; 4], step: f64) {
         };
         let mut x = (x0 / step).floor() * step - shift;
         while x <= x1 + 1e-9 {
-            canvas.fill_area(
-                Area {
-                    x: x - half,
-                    y: y - half,
-                    w: 2.0 * half,
-                    h: 2.0 * half,
-                },
-                HATCH_GREY,
-            );
+            squares.push(Area {
+                x: x - half,
+                y: y - half,
+                w: 2.0 * half,
+                h: 2.0 * half,
+            });
             x += step;
         }
         y += step;
         row += 1;
     }
+    canvas.fill_areas(&squares, HATCH_GREY);
 }
 
 /// Fills `points` (page mm) in the style's grey and draws its hatch, clipped to the polygon.
