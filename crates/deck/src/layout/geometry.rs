@@ -69,8 +69,7 @@ pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &m
     hits.clear();
     // Every edge crosses at most once: room for all of them, no growing on the way.
     hits.reserve(polygon.len());
-    for (i, a) in polygon.iter().enumerate() {
-        let b = polygon[(i + 1) % polygon.len()];
+    for (a, b) in edges(polygon) {
         if (a[k] < at) != (b[k] < at) {
             let t = (at - a[k]) / (b[k] - a[k]);
             let along = a[r] + t * (b[r] - a[r]);
@@ -136,9 +135,19 @@ pub(crate) fn crossings(
 ) -> impl Iterator<Item = f64> + '_ {
     let r = run.index();
     let k = run.other().index();
-    polygon.iter().enumerate().filter_map(move |(i, a)| {
-        let b = polygon[(i + 1) % polygon.len()];
-        ((a[k] < at) != (b[k] < at)).then(|| a[r] + (at - a[k]) / (b[k] - a[k]) * (b[r] - a[r]))
+    edges(polygon)
+        .filter(move |(a, b)| (a[k] < at) != (b[k] < at))
+        .map(move |(a, b)| a[r] + (at - a[k]) / (b[k] - a[k]) * (b[r] - a[r]))
+}
+
+/// The polygon's edges in order, each from a vertex to the next and the last back to the first: the
+/// same edges as indexing `(i + 1) % len`, without a division per edge (the layout walks polygon
+/// edges millions of times a batch).
+pub(crate) fn edges(polygon: &[[f64; 2]]) -> impl Iterator<Item = ([f64; 2], [f64; 2])> + '_ {
+    let count = polygon.len();
+    (0..count).map(move |i| {
+        let next = if i + 1 == count { 0 } else { i + 1 };
+        (polygon[i], polygon[next])
     })
 }
 
@@ -172,14 +181,7 @@ pub(crate) fn bounds(polygon: &[[f64; 2]]) -> [[f64; 2]; 2] {
 
 /// Twice the signed area (shoelace), m².
 fn doubled_area_m2(polygon: &[[f64; 2]]) -> f64 {
-    polygon
-        .iter()
-        .enumerate()
-        .map(|(i, a)| {
-            let b = polygon[(i + 1) % polygon.len()];
-            a[0] * b[1] - b[0] * a[1]
-        })
-        .sum()
+    edges(polygon).map(|(a, b)| a[0] * b[1] - b[0] * a[1]).sum()
 }
 
 /// A polygon needs three finite points and, when `needs_area`, a non-zero area. The field's name is

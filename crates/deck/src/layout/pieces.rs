@@ -11,7 +11,7 @@
 //! cantilever, as the bearings do.
 
 use super::courses::{grid_between, SLIVER_M};
-use super::geometry::{section_into, SectionScratch, SAME_POSITION_M};
+use super::geometry::{edges, section_into, SectionScratch, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{Course, DeckPiece};
 
@@ -143,9 +143,7 @@ impl PieceCutter<'_> {
             end_m + SAME_POSITION_M,
         );
         let polygon = self.polygon_m;
-        (0..polygon.len()).flat_map(move |i| {
-            let a = polygon[i];
-            let b = polygon[(i + 1) % polygon.len()];
+        edges(polygon).flat_map(move |(a, b)| {
             let oblique = (a[0] - b[0]).abs() > 1e-9 && (a[1] - b[1]).abs() > 1e-9;
             lines
                 .iter()
@@ -254,11 +252,10 @@ pub(crate) fn clip_to_box(polygon: &[[f64; 2]], lo: [f64; 2], hi: [f64; 2]) -> V
                 }
             };
             clipped.clear();
-            for (i, p) in points.iter().enumerate() {
-                let q = points[(i + 1) % points.len()];
-                let (p_in, q_in) = (inside(p), inside(&q));
+            for (p, q) in edges(&points) {
+                let (p_in, q_in) = (inside(&p), inside(&q));
                 if p_in {
-                    clipped.push(*p);
+                    clipped.push(p);
                 }
                 if p_in != q_in {
                     let t = (bound - p[axis]) / (q[axis] - p[axis]);

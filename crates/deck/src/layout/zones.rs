@@ -92,7 +92,14 @@ pub(crate) fn zone_pieces(
         .copied()
         .collect();
 
-    let mut breaks = vec![along_m[0], along_m[1]];
+    // Room for every vertex and every edge's crossing of either side of the strip.
+    let vertex_count: usize = candidates
+        .iter()
+        .map(|shape| shape.polygon.len())
+        .sum::<usize>()
+        + line.plane_polygon_m.len();
+    let mut breaks = Vec::with_capacity(2 + 3 * vertex_count);
+    breaks.extend(along_m);
     for polygon in candidates
         .iter()
         .map(|shape| shape.polygon)
