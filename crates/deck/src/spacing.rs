@@ -14,7 +14,7 @@ use std::collections::HashMap;
 pub use crate::error::SpacingError;
 use crate::error::{check_positive, check_range};
 use crate::fast_hash::BuildFastHasher;
-use crate::layout::{Axis, DeckLayout, LineKind, SupportRole};
+use crate::layout::{Axis, Bearing, DeckLayout, LineKind, SupportRole, ZonePiece};
 
 /// Spacing limits a basis imposes on roof sheathing nails.
 #[derive(Debug, Clone, PartialEq, Serialize)]
@@ -375,6 +375,94 @@ pub fn check_on_layout(
     plan_or_check(layout, uplift, nail, rules, Some(pattern))
 }
 
+/// Whether the nail holds at some allowed spacing on every stretch a plan sizes: the plan's
+/// [`DeckPlan::feasible`], without building the plan. It stops at the first stretch that no spacing
+/// holds (a batch tries its candidate nails in order and plans only the first that holds, so for a
+/// nail before it this answer is all it reads), and it meets the same errors as the plan's sizing
+/// pass up to where it stops.
+pub fn holds_on_layout(
+    layout: &DeckLayout,
+    uplift: &UpliftFn<'_>,
+    nail: &NailOption,
+    rules: &SpacingRules,
+) -> Result<bool, SpacingError> {
+    let increments = RoleIncrements::new(nail, rules)?;
+    let mut cache = LoadCache::new(uplift, rules);
+    // Blocking is not sized (it takes its zone's panel-edge pattern): it cannot fail a plan.
+    for line in layout.lines.iter().filter(|l| l.kind != LineKind::Blocking) {
+        for bearing in &line.bearings {
+            let reaction_width_mm = bearing_reaction_mm(line.number, bearing)?;
+            for piece in &line.zones {
+                if overlap_m(piece, bearing).is_none() {
+                    continue;
+                }
+                let role = bearing.support_role;
+                let widest = cache.widest_holding(
+                    role,
+                    &increments.for_role(role).widest_first_mm,
+                    piece.zone_index,
+                    reaction_width_mm,
+                    nail.resistance_n,
+                )?;
+                if widest.is_none() {
+                    return Ok(false);
+                }
+            }
+        }
+    }
+    Ok(true)
+}
+
+/// The increments each support role allows, found after checking the rules and the nail: what every
+/// plan, check and [`holds_on_layout`] starts with.
+struct RoleIncrements {
+    panel_edge: Allowed,
+    intermediate: Allowed,
+}
+
+impl RoleIncrements {
+    fn new(nail: &NailOption, rules: &SpacingRules) -> Result<Self, SpacingError> {
+        rules.validate()?;
+        check_positive(|| "nail.resistance_n".to_string(), nail.resistance_n)?;
+        check_range(|| "nail.mass_g".to_string(), nail.mass_g, 0.0, 1000.0)?;
+        Ok(Self {
+            panel_edge: rules.allowed_for(SupportRole::PanelEdge)?,
+            intermediate: rules.allowed_for(SupportRole::Intermediate)?,
+        })
+    }
+
+    fn for_role(&self, role: SupportRole) -> &Allowed {
+        match role {
+            SupportRole::PanelEdge => &self.panel_edge,
+            SupportRole::Intermediate => &self.intermediate,
+        }
+    }
+}
+
+/// The width of deck a bearing's row of nails holds: the largest of its strips' reactions, mm.
+fn bearing_reaction_mm(line_number: u32, bearing: &Bearing) -> Result<f64, SpacingError> {
+    bearing
+        .strips
+        .iter()
+        .map(|strip| strip.reaction_width_mm)
+        .reduce(f64::max)
+        .ok_or(SpacingError::NoStrip {
+            line: line_number,
+            course: bearing.course_index,
+        })
+}
+
+/// Where a zone piece and a bearing of one line overlap, m along the line; None under 1 mm.
+fn overlap_m(piece: &ZonePiece, bearing: &Bearing) -> Option<(f64, f64)> {
+    let from_m = piece.from_m.max(bearing.from_m);
+    let to_m = piece.to_m.min(bearing.to_m);
+    if to_m - from_m < 1e-3 {
+        None
+    } else {
+        Some((from_m, to_m))
+    }
+}
+
 fn plan_or_check(
     layout: &DeckLayout,
     uplift: &UpliftFn<'_>,
@@ -382,22 +470,16 @@ fn plan_or_check(
     rules: &SpacingRules,
     given: Option<&PatternFn<'_>>,
 ) -> Result<DeckPlan, SpacingError> {
-    rules.validate()?;
-    check_positive(|| "nail.resistance_n".to_string(), nail.resistance_n)?;
-    check_range(|| "nail.mass_g".to_string(), nail.mass_g, 0.0, 1000.0)?;
-    let allowed_edge = rules.allowed_for(SupportRole::PanelEdge)?;
-    let allowed_intermediate = rules.allowed_for(SupportRole::Intermediate)?;
-    let allowed = |role: SupportRole| match role {
-        SupportRole::PanelEdge => &allowed_edge,
-        SupportRole::Intermediate => &allowed_intermediate,
-    };
+    let increments = RoleIncrements::new(nail, rules)?;
+    let allowed = |role: SupportRole| increments.for_role(role);
 
     let mut cache = LoadCache::new(uplift, rules);
 
     // Pass 1: the segments and what each alone needs.
     let mut lines = Vec::with_capacity(layout.lines.len());
     for line in &layout.lines {
-        let mut segments = Vec::new();
+        // At most one segment per bearing and zone piece.
+        let mut segments = Vec::with_capacity(line.bearings.len() * line.zones.len());
         // Blocking: two rows (the panel edges on both sides of the course joint), not sized by the
         // strip model (reaction 0: it gives the blocking no share of the uplift); pass 3 gives it
         // the zone's panel-edge pattern.
@@ -411,22 +493,12 @@ fn plan_or_check(
             let reaction_width_mm = if is_blocking {
                 0.0
             } else {
-                bearing
-                    .strips
-                    .iter()
-                    .map(|strip| strip.reaction_width_mm)
-                    .reduce(f64::max)
-                    .ok_or(SpacingError::NoStrip {
-                        line: line.number,
-                        course: bearing.course_index,
-                    })?
+                bearing_reaction_mm(line.number, bearing)?
             };
             for piece in &line.zones {
-                let from_m = piece.from_m.max(bearing.from_m);
-                let to_m = piece.to_m.min(bearing.to_m);
-                if to_m - from_m < 1e-3 {
+                let Some((from_m, to_m)) = overlap_m(piece, bearing) else {
                     continue;
-                }
+                };
                 let required_spacing_mm = if is_blocking {
                     None
                 } else {

@@ -10,7 +10,7 @@ use crate::rules::spacing_rules;
 use deckhold_deck::layout::{
     layout_deck, Axis, DeckLayout, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion,
 };
-use deckhold_deck::spacing::{plan_on_layout, DeckPlan, NailOption, SpacingRules};
+use deckhold_deck::spacing::{holds_on_layout, plan_on_layout, DeckPlan, NailOption, SpacingRules};
 use deckhold_fasten::{
     DeckLayer, Grain, LoadDuration, MemberKind, Nail, Resistance, ResistanceInput, Service,
 };
@@ -101,7 +101,8 @@ pub fn run_job_with_nails(project: &Project, nail_ids: &[String]) -> Result<Job,
 
 /// Runs the job for the project's candidates up to the first that works in every zone, and no
 /// further: the same chosen nail and plan as [`run_job`], for a caller that reads only the chosen
-/// nail (a batch summary line). `candidates` then holds the nails tried, not every one listed.
+/// nail (a batch summary line). `candidates` then holds the nails tried, not every one listed, and
+/// only the chosen one is planned: a nail that does not hold is found so without its plan.
 pub fn run_job_to_chosen(project: &Project) -> Result<Job, JobError> {
     job_for(project, &project.nails, Candidates::UpToChosen)
 }
@@ -129,27 +130,33 @@ fn job_for(project: &Project, nail_ids: &[String], which: Candidates) -> Result<
         .iter()
         .map(|id| project.fastener(id))
         .collect::<Result<Vec<_>, _>>()?;
+    let plan = match which {
+        Candidates::All => Planned::Always,
+        Candidates::UpToChosen => Planned::WhenItHolds,
+    };
     let mut candidates = Vec::with_capacity(nail_ids.len());
-    for nail in nails {
-        let nail = nail.clone();
-        let rules = spacing_rules(project.basis, nail.shank_diameter_mm);
-        let outcome = work_nail(project, &wind, &layout, nail, &rules)?;
+    for nail in &nails {
+        let outcome = work_nail(project, &wind, &layout, (*nail).clone(), plan)?;
         let feasible = outcome.feasible;
         candidates.push(outcome);
         if feasible && which == Candidates::UpToChosen {
             break;
         }
     }
-    if candidates.is_empty() {
+    let Some(first) = nails.first() else {
         return Err(crate::ProjectError::Missing {
             path: "nails[0]".to_string(),
         }
         .into());
-    }
+    };
     let chosen = candidates
         .iter()
         .position(|candidate| candidate.feasible)
         .unwrap_or(0);
+    if chosen == 0 && candidates[0].plan.is_none() && candidates[0].resistance.is_ok() {
+        // None holds: the first candidate is the one reported, with its plan.
+        candidates[0] = work_nail(project, &wind, &layout, (*first).clone(), Planned::Always)?;
+    }
     Ok(Job {
         wind,
         layout,
@@ -295,13 +302,22 @@ pub fn penetration_for(project: &Project, nail: &Nail) -> f64 {
     deckhold_fasten::penetration_mm(nail, project.deck.thickness_mm, project.deck.between_mm)
 }
 
+/// Which candidate nails get a plan.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Planned {
+    Always,
+    /// Only a nail that holds everywhere; one that does not is found so without its plan.
+    WhenItHolds,
+}
+
 fn work_nail(
     project: &Project,
     wind: &WindAnalysis,
     layout: &DeckLayout,
     nail: Nail,
-    rules: &SpacingRules,
+    planned: Planned,
 ) -> Result<NailOutcome, JobError> {
+    let rules = &spacing_rules(project.basis, nail.shank_diameter_mm);
     let penetration_mm = penetration_for(project, &nail);
     let through_mm = project.deck.thickness_mm + project.deck.between_mm;
     if penetration_mm <= 0.0 {
@@ -334,6 +350,17 @@ fn work_nail(
             })
         }
     };
+    if planned == Planned::WhenItHolds
+        && !holds_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?
+    {
+        return Ok(NailOutcome {
+            nail,
+            penetration_mm,
+            resistance: Ok(resistance),
+            plan: None,
+            feasible: false,
+        });
+    }
     let plan = plan_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?;
     let feasible = plan.zone_roles.iter().all(|role| role.spacing_mm.is_some());
     Ok(NailOutcome {
@@ -355,6 +382,32 @@ pub(crate) fn net_uplift_kpa(
         .map_err(|error| error.to_string())
 }
 
+/// Whether one nail of known factored resistance holds everywhere on the project's layout (the plan's
+/// feasibility, without the plan).
+fn holds_with_resistance(
+    wind: &WindAnalysis,
+    layout: &DeckLayout,
+    nail: &Nail,
+    resistance_n: f64,
+    rules: &SpacingRules,
+) -> Result<bool, JobError> {
+    let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
+    Ok(holds_on_layout(
+        layout,
+        &uplift,
+        &nail_option(nail, resistance_n),
+        rules,
+    )?)
+}
+
+fn nail_option(nail: &Nail, resistance_n: f64) -> NailOption {
+    NailOption {
+        id: nail.id.to_string(),
+        resistance_n,
+        mass_g: nail.mass_g,
+    }
+}
+
 /// Plans the deck for one nail of known factored resistance on the project's layout.
 pub fn plan_with_resistance(
     wind: &WindAnalysis,
@@ -364,12 +417,12 @@ pub fn plan_with_resistance(
     rules: &SpacingRules,
 ) -> Result<DeckPlan, JobError> {
     let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
-    let option = NailOption {
-        id: nail.id.to_string(),
-        resistance_n,
-        mass_g: nail.mass_g,
-    };
-    Ok(plan_on_layout(layout, &uplift, &option, rules)?)
+    Ok(plan_on_layout(
+        layout,
+        &uplift,
+        &nail_option(nail, resistance_n),
+        rules,
+    )?)
 }
 
 #[cfg(test)]
