@@ -353,14 +353,13 @@ impl Canvas {
         if text.is_empty() {
             return;
         }
-        let width = width_mm(&text, font, size_pt);
         let left = match align {
             Align::Left => x,
-            Align::Center => x - width / 2.0,
-            Align::Right => x - width,
+            Align::Center => x - width_mm(&text, font, size_pt) / 2.0,
+            Align::Right => x - width_mm(&text, font, size_pt),
         };
         self.show(
-            text,
+            &text,
             font,
             size_pt,
             level,
@@ -375,7 +374,7 @@ impl Canvas {
         let width = width_mm(&text, font, size_pt);
         let start_y = y - width / 2.0;
         self.show(
-            text,
+            &text,
             font,
             size_pt,
             0.0,
@@ -384,9 +383,9 @@ impl Canvas {
     }
 
     /// `text` (already printable) with the text matrix `matrix` (its last two entries in points).
-    fn show(&mut self, text: String, font: Font, size_pt: f64, level: f64, matrix: [f64; 6]) {
-        if needs_embedded(&text) {
-            self.embedded.record(font, &text);
+    fn show(&mut self, text: &str, font: Font, size_pt: f64, level: f64, matrix: [f64; 6]) {
+        if needs_embedded(text) {
+            self.embedded.record(font, text);
             self.embedded_text.extend([
                 Op::StartTextSection,
                 Op::SetFillColor {
@@ -400,7 +399,7 @@ impl Canvas {
                     matrix: TextMatrix::Raw(matrix.map(|value| value as f32)),
                 },
                 Op::ShowText {
-                    items: vec![TextItem::Text(text)],
+                    items: vec![TextItem::Text(text.to_string())],
                 },
                 Op::EndTextSection,
             ]);
@@ -418,7 +417,12 @@ impl Canvas {
             c.pt(value);
         }
         c.op("Tm");
-        c.string(text.chars().map(|ch| winansi_code(ch).unwrap_or(b'?')));
+        if text.is_ascii() {
+            // ASCII is its own WinAnsi code.
+            c.string(text.bytes());
+        } else {
+            c.string(text.chars().map(|ch| winansi_code(ch).unwrap_or(b'?')));
+        }
         c.op("Tj");
         c.op("ET");
     }

@@ -121,9 +121,9 @@ pub(crate) fn needs_embedded(text: &str) -> bool {
 /// stand-ins for formula symbols; other text keeps every character the embedded face has, and the rest
 /// print as code points (`[U+4E2D]`). Control characters print escaped (`\u{1b}`), line breaks and tabs
 /// as spaces. Idempotent: printing printable text changes nothing.
-pub(crate) fn printable(text: &str) -> String {
+pub(crate) fn printable(text: &str) -> Cow<'_, str> {
     if text.bytes().all(|b| (0x20..0x7F).contains(&b)) {
-        return text.to_string();
+        return Cow::Borrowed(text);
     }
     let mut out = String::with_capacity(text.len());
     let embedded = needs_embedded(text);
@@ -143,7 +143,7 @@ pub(crate) fn printable(text: &str) -> String {
             },
         }
     }
-    out
+    Cow::Owned(out)
 }
 
 /// The characters of `text` that no font of the PDF can show (they print as code points).
@@ -325,7 +325,7 @@ fn words(text: &str) -> Vec<Cow<'_, str>> {
 pub(crate) fn fit(text: &str, font: Font, size_pt: f64, max_width_mm: f64) -> String {
     let text = printable(text);
     if width_mm(&text, font, size_pt) <= max_width_mm {
-        return text;
+        return text.into_owned();
     }
     let mut cut = String::new();
     for c in text.chars() {
