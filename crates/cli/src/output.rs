@@ -172,7 +172,6 @@ mod platform {
         ensure_state_dir(&set_state)?;
         let current = set_state.join(CURRENT);
         let mut previous = current_generation(&current)?;
-        remove_leftovers(&set_state, previous.as_deref())?;
         take_over_earlier_layout(folder, &set_state, set, files, &mut previous)?;
 
         let generation = format!("gen-{}", unique_suffix());
@@ -180,7 +179,21 @@ mod platform {
         fs::create_dir(&generation_path)
             .with_context(|| format!("cannot create {}", generation_path.display()))?;
         fault_point();
-        write_files_at_once(&generation_path, files)?;
+        // The generation replaced by the last run and what killed runs left are removed while the new
+        // files are written: removing files waits on the disk as writing them does.
+        let keep: Vec<&str> = previous
+            .iter()
+            .map(String::as_str)
+            .chain([generation.as_str()])
+            .collect();
+        std::thread::scope(|scope| {
+            let cleanup = scope.spawn(|| remove_leftovers(&set_state, &keep));
+            let written = write_files_at_once(&generation_path, files);
+            let cleaned = cleanup
+                .join()
+                .unwrap_or_else(|_| bail!("a thread removing an earlier generation stopped"));
+            written.and(cleaned)
+        })?;
         fault_point();
         sync_dir(&generation_path)?;
 
@@ -208,9 +221,8 @@ mod platform {
         if folder_changed {
             sync_dir(folder)?;
         }
-        if let Some(previous) = previous {
-            remove_entry(&set_state.join(previous))?;
-        }
+        // The generation just replaced stays until the next run into this folder removes it, beside
+        // its own writing: removing it here would add its wait to every run's.
         remove_legacy_state(folder, &state)?;
         drop(lock);
         Ok(written)
@@ -371,14 +383,14 @@ mod platform {
     }
 
     /// Removes what runs killed part-way left in a set's folder: generations not in force, unused links.
-    fn remove_leftovers(set_state: &Path, keep: Option<&str>) -> Result<()> {
+    fn remove_leftovers(set_state: &Path, keep: &[&str]) -> Result<()> {
         let entries = fs::read_dir(set_state)
             .with_context(|| format!("cannot list {}", set_state.display()))?;
         for entry in entries {
             let entry = entry.with_context(|| format!("cannot list {}", set_state.display()))?;
             let name = entry.file_name();
             let Some(name) = name.to_str() else { continue };
-            let stale = (is_generation_name(name) && Some(name) != keep)
+            let stale = (is_generation_name(name) && !keep.contains(&name))
                 || name.starts_with("next-")
                 || name.starts_with("link-");
             if stale {
@@ -413,7 +425,7 @@ mod platform {
         if let Some(keep) = keep {
             remove_entry(&state.join(keep))?;
         }
-        remove_leftovers(state, None)
+        remove_leftovers(state, &[])
     }
 
     /// Removes a file, link or folder without following links (a link is removed, not its target).

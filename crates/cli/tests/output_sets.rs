@@ -64,6 +64,22 @@ fn leftovers(out: &Path) -> Vec<String> {
         .unwrap_or_default()
 }
 
+/// The generation the schedule set's `current` names, if any.
+fn in_force(out: &Path) -> Option<String> {
+    fs::read_link(out.join(".deckhold").join("schedule").join("current"))
+        .ok()
+        .map(|target| target.to_string_lossy().to_string())
+}
+
+/// What a completed run left besides the set in force, other than `replaced`: the generation that was
+/// in force before it, which stays until the next run removes it (docs/output-sets.md, step 6).
+fn leftovers_besides(out: &Path, replaced: Option<String>) -> Vec<String> {
+    leftovers(out)
+        .into_iter()
+        .filter(|name| Some(name) != replaced.as_ref())
+        .collect()
+}
+
 #[test]
 fn eight_concurrent_runs_leave_one_whole_set_identical_to_a_single_run() {
     let folder = tempfile::tempdir().expect("temp dir");
@@ -82,7 +98,12 @@ fn eight_concurrent_runs_leave_one_whole_set_identical_to_a_single_run() {
         fs::read(out.join("notes.txt")).expect("notes"),
         b"the owner's notes"
     );
-    assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+    // The last run leaves the generation it replaced (the next run removes it), and nothing else.
+    let left = leftovers(&out);
+    assert!(
+        left.len() <= 1 && left.iter().all(|name| name.starts_with("gen-")),
+        "left: {left:?}"
+    );
 }
 
 /// A small deterministic generator (xorshift), so a failure can be replayed from its seed.
@@ -128,9 +149,11 @@ fn runs_killed_at_random_instants_never_leave_a_mixed_set() {
         }
     }
     // One more run that completes: it removes what the killed runs left behind.
+    let replaced = in_force(&out);
     assert!(run_into(None, &out).status().expect("runs").success());
     assert_eq!(read_set(&out), set_a);
-    assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+    let left = leftovers_besides(&out, replaced);
+    assert!(left.is_empty(), "left: {left:?}");
     eprintln!(
         "output sets: {rounds} runs, {killed} killed part-way, {whole} whole sets, {mixed} mixed"
     );
@@ -243,6 +266,7 @@ fn a_schedule_written_after_a_check_report_leaves_the_report_alone() {
     assert!(check_into(&out).status().expect("runs").success());
     let report = read_names(&out, &CHECK_SET);
     assert!(report.iter().all(Option::is_some), "the check set is whole");
+    assert_eq!(in_force(&out), None, "no schedule yet");
     let schedule = reference_set(None, &out);
     assert_eq!(
         read_names(&out, &CHECK_SET),
@@ -384,9 +408,19 @@ fn taking_over_an_earlier_folder_stopped_at_every_step_never_shows_a_mix() {
                 continue;
             }
             // The next run completes and cleans up after the stopped one (every third stop, for time).
+            // It leaves only the generation it replaced: the earlier files it adopted, when the stopped
+            // run had not made them current yet, or the one that was current; a further run removes it.
             assert!(run_into(None, &out).status().expect("runs").success());
             assert_eq!(read_set(&out), new_set);
-            assert!(leftovers(&out).is_empty(), "left: {:?}", leftovers(&out));
+            let left = leftovers(&out);
+            assert!(
+                left.len() <= 1 && left.iter().all(|name| name.starts_with("gen-")),
+                "left: {left:?}"
+            );
+            let replaced = in_force(&out);
+            assert!(run_into(None, &out).status().expect("runs").success());
+            let left = leftovers_besides(&out, replaced);
+            assert!(left.is_empty(), "left: {left:?}");
         }
         assert!(steps > 4, "the write has steps to stop at ({steps})");
         assert_eq!(stopped, steps, "every step was stopped at once");
