@@ -57,6 +57,11 @@ fn compare_outputs_match_their_goldens() {
                 "{fixture}: compare.pdf lacks {expected:?}:\n{text}"
             );
         }
+        // The page is plain text: no markdown marks (the reach method names its input in backticks).
+        assert!(
+            !text.contains('`'),
+            "{fixture}: a backtick in compare.pdf:\n{text}"
+        );
         // Every candidate of the CSV is on the page.
         for line in csv.lines().skip(1) {
             let nail = line.split(',').next().expect("a nail id");

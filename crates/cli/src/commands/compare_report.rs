@@ -5,7 +5,7 @@
 use anyhow::Result;
 use deckhold_project::reach::PrescriptiveReach;
 use deckhold_project::{BasisStandards, Project};
-use deckhold_schedule::format::{force_label, mass_label};
+use deckhold_schedule::format::{force_label, mass_label, message_for_reader};
 use deckhold_schedule::{BarChart, Block, ChartColumn, ChartPanel, ChartRow, Part, Report};
 
 use crate::output::OutputSet;
@@ -242,13 +242,22 @@ pub fn compare_report(comparison: &Comparison) -> Report {
         Block::Heading("Capacity and nail count per candidate".to_string()),
         Block::Chart(chart(comparison)),
     ];
+    // The report is read on paper: no markdown backticks, lengths in the reader's units.
+    let us = comparison.is_us();
     let mut notes = Vec::new();
     if let Some(method) = comparison.reach_method() {
-        notes.push(format!("Prescriptive spacing up to: {method}"));
+        notes.push(format!(
+            "Prescriptive spacing up to: {}",
+            message_for_reader(&method, us)
+        ));
     }
     for row in &comparison.rows {
         if let Some(reason) = &row.refused {
-            notes.push(format!("{}: refused: {reason}", row.nail_id));
+            notes.push(format!(
+                "{}: refused: {}",
+                row.nail_id,
+                message_for_reader(reason, us)
+            ));
         }
     }
     notes.push(
