@@ -95,7 +95,16 @@ impl PieceCutter<'_> {
         let mut worst: Option<(f64, PieceSection)> = None;
         let mut start_cut = false;
         let mut end_cut = false;
-        for height in heights {
+        for (index, &height) in heights.iter().enumerate() {
+            // A corner on the band's edge clamps to the very height the edge gave: looking there
+            // again finds the same section, which neither replaces the worst (it must be larger) nor
+            // adds a cut, so it is skipped (about half the heights of a rectangular piece).
+            if heights[..index]
+                .iter()
+                .any(|seen| seen.to_bits() == height.to_bits())
+            {
+                continue;
+            }
             let Some(at) = self.section_at(height, start_m, end_m, scratch) else {
                 continue;
             };
