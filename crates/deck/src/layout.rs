@@ -24,7 +24,7 @@ pub use courses::SLIVER_M;
 use courses::{bearing_at, course_bands, BearingWork, CourseLayer};
 use deckhold_core::limits;
 use framing::framing_lines;
-use geometry::{validate_polygon, MIN_PIECE_M};
+use geometry::{bounds, validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
 use pieces::PieceCutter;
 use zones::{zone_pieces, LineStrip, ZoneShapes};
@@ -353,6 +353,12 @@ pub fn layout_deck(
         let first_number = number + 1;
         // Slivers at hip and valley cuts, by course, said once each.
         let mut notes: Vec<(usize, LayoutChange)> = Vec::new();
+        // A line's strip stays within half a spacing of the plane (the margin's extra millimetre
+        // covers a line set a hair off the plane's edge), so only these shapes can meet it.
+        let plane_zones = zone_shapes.near(
+            bounds(&plane.polygon_m),
+            framing.spacing_mm / 2000.0 + MIN_PIECE_M,
+        );
         for line in 0..grid.len() {
             number += 1;
             let context = PlaneContext {
@@ -367,7 +373,7 @@ pub fn layout_deck(
                 number,
                 plane_index,
                 framing,
-                &zone_shapes,
+                &plane_zones,
                 &mut cache,
                 &mut notes,
             )?);

@@ -64,6 +64,24 @@ impl<'a> ZoneShapes<'a> {
         shapes.sort_by_key(|shape| std::cmp::Reverse(shape.rank));
         Self { shapes }
     }
+
+    /// The shapes whose bounds come within `margin_m` of the box `[lo, hi]`, in the same order: the
+    /// lines of one plane meet only those (a hip roof has some 250 shapes over its four planes, and
+    /// every line scanned them all).
+    pub(crate) fn near(&self, [lo, hi]: [[f64; 2]; 2], margin_m: f64) -> ZoneShapes<'a> {
+        let shapes = self
+            .shapes
+            .iter()
+            .filter(|shape| {
+                let [shape_lo, shape_hi] = shape.bounds;
+                (0..2).all(|axis| {
+                    shape_lo[axis] <= hi[axis] + margin_m && shape_hi[axis] >= lo[axis] - margin_m
+                })
+            })
+            .copied()
+            .collect();
+        ZoneShapes { shapes }
+    }
 }
 
 /// Splits the plan interval `along_m` of a line into pieces by governing zone.
