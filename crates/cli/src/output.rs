@@ -93,7 +93,12 @@ pub fn write_all_atomically(
 
 /// Writes one new file, refusing to overwrite an existing one.
 pub fn write_new_file(path: &Path, bytes: &[u8]) -> Result<()> {
-    let mut file = fs::OpenOptions::new()
+    fill_and_sync(create_new_file(path)?, path, bytes)
+}
+
+/// Creates `path`, refusing an existing entry.
+fn create_new_file(path: &Path) -> Result<fs::File> {
+    fs::OpenOptions::new()
         .write(true)
         .create_new(true)
         .open(path)
@@ -102,7 +107,11 @@ pub fn write_new_file(path: &Path, bytes: &[u8]) -> Result<()> {
                 "cannot create {} (an existing file is never overwritten)",
                 path.display()
             )
-        })?;
+        })
+}
+
+/// Writes `bytes` into the new `file` (at `path`) and waits until they are on the disk.
+fn fill_and_sync(mut file: fs::File, path: &Path, bytes: &[u8]) -> Result<()> {
     file.write_all(bytes)
         .and_then(|()| file.sync_all())
         .with_context(|| format!("cannot write {}", path.display()))
@@ -124,7 +133,7 @@ fn unique_suffix() -> String {
 
 #[cfg(unix)]
 mod platform {
-    use super::{unique_suffix, write_new_file, OutputSet, STATE_DIR};
+    use super::{create_new_file, fill_and_sync, unique_suffix, OutputSet, STATE_DIR};
     use anyhow::{bail, Context, Result};
     use rustix::fs::{flock, FlockOperation};
     use std::fs;
@@ -188,14 +197,13 @@ mod platform {
             .collect();
         std::thread::scope(|scope| {
             let cleanup = scope.spawn(|| remove_leftovers(&set_state, &keep));
-            let written = write_files_at_once(&generation_path, files);
+            let written = write_generation(&generation_path, files);
             let cleaned = cleanup
                 .join()
                 .unwrap_or_else(|_| bail!("a thread removing an earlier generation stopped"));
             written.and(cleaned)
         })?;
         fault_point();
-        sync_dir(&generation_path)?;
 
         // The one step that makes the new set visible.
         swap_current(&set_state, &generation)?;
@@ -442,22 +450,30 @@ mod platform {
         removed.with_context(|| format!("cannot remove {}", path.display()))
     }
 
-    /// Writes and syncs the set's files side by side, each in its own thread: the waits for the disk
-    /// overlap instead of adding up (they were most of the demo run's writing time).
-    fn write_files_at_once(generation_path: &Path, files: &[(&str, Vec<u8>)]) -> Result<()> {
+    /// Writes and syncs the set's files side by side, each in its own thread, and syncs the
+    /// generation's folder beside them once every file is in it: the waits for the disk overlap instead
+    /// of adding up (they were most of the demo run's writing time). All are done before the set is
+    /// swapped in.
+    fn write_generation(generation_path: &Path, files: &[(&str, Vec<u8>)]) -> Result<()> {
+        let created = files
+            .iter()
+            .map(|(name, bytes)| {
+                let path = generation_path.join(name);
+                create_new_file(&path).map(|file| (path, file, bytes))
+            })
+            .collect::<Result<Vec<_>>>()?;
         std::thread::scope(|scope| {
-            let writers: Vec<_> = files
-                .iter()
-                .map(|(name, bytes)| {
-                    let path = generation_path.join(name);
-                    scope.spawn(move || write_new_file(&path, bytes))
-                })
+            let writers: Vec<_> = created
+                .into_iter()
+                .map(|(path, file, bytes)| scope.spawn(move || fill_and_sync(file, &path, bytes)))
                 .collect();
+            let folder_synced = sync_dir(generation_path);
             writers.into_iter().try_for_each(|writer| {
                 writer
                     .join()
                     .unwrap_or_else(|_| bail!("a thread writing an output file stopped"))
-            })
+            })?;
+            folder_synced
         })
     }
 
