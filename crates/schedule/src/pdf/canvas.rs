@@ -183,13 +183,12 @@ impl Canvas {
         c.op("G");
         c.pt(mm_to_pt(width_mm));
         c.op("w");
-        let dashes: [f64; 6] = std::array::from_fn(|i| {
-            stroke
-                .pattern_mm()
-                .get(i)
-                .map_or(0.0, |&value| mm_to_pt(value))
-        });
-        c.pt_array(&dashes[..stroke.pattern_mm().len()]);
+        let pattern_mm = stroke.pattern_mm();
+        let mut pattern_pt = [0.0; 6];
+        for (dash_pt, dash_mm) in pattern_pt.iter_mut().zip(pattern_mm) {
+            *dash_pt = mm_to_pt(*dash_mm);
+        }
+        c.pt_array(&pattern_pt[..pattern_mm.len().min(pattern_pt.len())]);
         c.pt(0.0);
         c.op("d");
         c.op("0 J");
