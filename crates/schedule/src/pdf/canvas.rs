@@ -3,8 +3,8 @@
 //! Shapes and text in the built-in fonts are written straight into the page's content stream
 //! ([`Content`]). Text in the embedded face stays a list of printpdf operations, because printpdf
 //! encodes it with the glyph ids of the subset it embeds and collects those glyphs from the operations;
-//! it is drawn after the rest of the page (a name or an address in another script, on top of its own
-//! white). Every call sets the state it needs (colour, width, dash), so the order of calls never leaks
+//! it is drawn after the rest of the page (such text is a name or an address in another script, set on
+//! the white of a title block or a table cell, so nothing drawn later would have covered it). Every call sets the state it needs (colour, width, dash), so the order of calls never leaks
 //! style from one shape to the next.
 
 use printpdf::{Color, Greyscale, Op, PdfFontHandle, Pt, TextItem, TextMatrix};

@@ -61,20 +61,26 @@ pub(crate) fn has_glyph(c: char) -> bool {
         .is_some_and(|glyph| glyph != 0)
 }
 
-/// Advance width of `text` in the embedded twin of `font`, in em; a character without a glyph
-/// counts as the face's missing-glyph box (callers replace those by code points first).
-pub(crate) fn advance_em(text: &str, font: Font) -> f64 {
+/// Advance width of `text` in the embedded twin of `font`, in the face's units (a whole number, so the
+/// advances of two pieces add up to that of both); a character without a glyph counts as the face's
+/// missing-glyph box (callers replace those by code points first).
+pub(crate) fn advance_units(text: &str, font: Font) -> u64 {
     let Some(face) = font.embedded_face() else {
-        return 0.0;
+        return 0;
     };
-    let units: u64 = text
-        .chars()
+    text.chars()
         .map(|c| {
             let glyph = face.lookup_glyph_index(c as u32).unwrap_or(0);
             u64::from(face.get_glyph_width(glyph).unwrap_or(0))
         })
-        .sum();
-    units as f64 / f64::from(face.units_per_em.max(1))
+        .sum()
+}
+
+/// `units` of the embedded twin of `font` ([`advance_units`]) in em.
+pub(crate) fn units_to_em(units: u64, font: Font) -> f64 {
+    font.embedded_face().map_or(0.0, |face| {
+        units as f64 / f64::from(face.units_per_em.max(1))
+    })
 }
 
 /// The characters each face shows in the embedded twin, gathered while pages are drawn.

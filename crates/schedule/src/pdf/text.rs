@@ -158,15 +158,57 @@ pub fn unshowable_chars(text: &str) -> Vec<char> {
 
 /// Width of `text` set in `font` at `size_pt`, in mm.
 pub(crate) fn width_mm(text: &str, font: Font, size_pt: f64) -> f64 {
-    if needs_embedded(text) {
-        return super::embedded::advance_em(text, font) * size_pt / PT_PER_MM;
-    }
-    builtin_mm(builtin_thousandths(text, font), size_pt)
+    Advance::of(text, font, needs_embedded(text)).width_mm(font, size_pt)
 }
 
-/// Advance of `text` in the built-in `font`, 1/1000 em: a whole number, so the advances of two pieces
-/// add up to exactly the advance of both (wrapping measures each word once, not each line so far). A
-/// character without a built-in glyph counts as a question mark.
+/// The advance of a piece of text in whole font units, so that the advances of two pieces add up to
+/// exactly what measuring both together gives: wrapping measures each word once, not each line so far.
+/// A line is set in the embedded face when any of its characters needs it, so both sums are kept.
+#[derive(Debug, Clone, Copy, Default, PartialEq, Eq)]
+struct Advance {
+    /// In the built-in face, 1/1000 em; a character without a built-in glyph counts as `?`.
+    builtin_thousandths: u64,
+    /// In the embedded face, its units; kept only for text that may need that face.
+    embedded_units: u64,
+    /// Some character needs the embedded face.
+    embedded: bool,
+}
+
+impl Advance {
+    /// The advance of `text`; with `may_embed` false the embedded face is not looked at (text none of
+    /// whose pieces needs it).
+    fn of(text: &str, font: Font, may_embed: bool) -> Advance {
+        Advance {
+            builtin_thousandths: builtin_thousandths(text, font),
+            embedded_units: if may_embed {
+                super::embedded::advance_units(text, font)
+            } else {
+                0
+            },
+            embedded: may_embed && needs_embedded(text),
+        }
+    }
+
+    /// The advance of this piece followed by `next`.
+    fn then(self, next: Advance) -> Advance {
+        Advance {
+            builtin_thousandths: self.builtin_thousandths + next.builtin_thousandths,
+            embedded_units: self.embedded_units + next.embedded_units,
+            embedded: self.embedded || next.embedded,
+        }
+    }
+
+    fn width_mm(self, font: Font, size_pt: f64) -> f64 {
+        if self.embedded {
+            super::embedded::units_to_em(self.embedded_units, font) * size_pt / PT_PER_MM
+        } else {
+            self.builtin_thousandths as f64 / 1000.0 * size_pt / PT_PER_MM
+        }
+    }
+}
+
+/// Advance of `text` in the built-in `font`, 1/1000 em; a character without a built-in glyph counts as
+/// a question mark.
 fn builtin_thousandths(text: &str, font: Font) -> u64 {
     let widths = font.widths();
     let advance = |code: u8| match widths[usize::from(code - 0x20)] {
@@ -187,95 +229,49 @@ fn builtin_thousandths(text: &str, font: Font) -> u64 {
         .sum()
 }
 
-fn builtin_mm(thousandths: u64, size_pt: f64) -> f64 {
-    thousandths as f64 / 1000.0 * size_pt / PT_PER_MM
-}
-
 /// `text` broken into lines no wider than `max_width_mm`, at spaces; a word wider than a line is broken
 /// between characters. Empty text gives no lines.
 pub(crate) fn wrap(text: &str, font: Font, size_pt: f64, max_width_mm: f64) -> Vec<String> {
     let text = printable(text);
-    if needs_embedded(&text) {
-        return wrap_measuring_lines(&text, font, size_pt, max_width_mm);
-    }
-    // Built-in text: a line's advance is the sum of its words' and spaces' advances.
-    let fits = |thousandths: u64| builtin_mm(thousandths, size_pt) <= max_width_mm;
-    let space = builtin_thousandths(" ", font);
+    let may_embed = needs_embedded(&text);
+    let measure = |piece: &str| Advance::of(piece, font, may_embed);
+    let fits = |advance: Advance| advance.width_mm(font, size_pt) <= max_width_mm;
+    let space = measure(" ");
     let mut lines = Vec::new();
     let mut current = String::new();
-    let mut current_thousandths = 0;
+    let mut current_advance = Advance::default();
     for word in words(&text) {
-        let word_thousandths = builtin_thousandths(&word, font);
-        if current.is_empty() && fits(word_thousandths) {
+        let word_advance = measure(&word);
+        if current.is_empty() && fits(word_advance) {
             current = word.into_owned();
-            current_thousandths = word_thousandths;
+            current_advance = word_advance;
             continue;
         }
         if !current.is_empty() {
-            let joined = current_thousandths + space + word_thousandths;
+            let joined = current_advance.then(space).then(word_advance);
             if fits(joined) {
                 current.push(' ');
                 current.push_str(&word);
-                current_thousandths = joined;
+                current_advance = joined;
                 continue;
             }
             lines.push(std::mem::take(&mut current));
-            current_thousandths = 0;
-            if fits(word_thousandths) {
+            current_advance = Advance::default();
+            if fits(word_advance) {
                 current = word.into_owned();
-                current_thousandths = word_thousandths;
+                current_advance = word_advance;
                 continue;
             }
         }
         for c in word.chars() {
             let mut buffer = [0u8; 4];
-            let c_thousandths = builtin_thousandths(c.encode_utf8(&mut buffer), font);
-            if !fits(current_thousandths + c_thousandths) && !current.is_empty() {
+            let c_advance = measure(c.encode_utf8(&mut buffer));
+            if !fits(current_advance.then(c_advance)) && !current.is_empty() {
                 lines.push(std::mem::take(&mut current));
-                current_thousandths = 0;
+                current_advance = Advance::default();
             }
             current.push(c);
-            current_thousandths += c_thousandths;
-        }
-    }
-    if !current.is_empty() {
-        lines.push(current);
-    }
-    lines
-}
-
-/// [`wrap`] for text with characters only the embedded face shows: each line is measured whole, since
-/// a line is set in the embedded face only when it holds such a character.
-fn wrap_measuring_lines(text: &str, font: Font, size_pt: f64, max_width_mm: f64) -> Vec<String> {
-    let mut lines = Vec::new();
-    let mut current = String::new();
-    for word in words(text) {
-        let word = word.as_ref();
-        let candidate = if current.is_empty() {
-            word.to_string()
-        } else {
-            format!("{current} {word}")
-        };
-        if width_mm(&candidate, font, size_pt) <= max_width_mm {
-            current = candidate;
-            continue;
-        }
-        if !current.is_empty() {
-            lines.push(std::mem::take(&mut current));
-        }
-        if width_mm(word, font, size_pt) <= max_width_mm {
-            current = word.to_string();
-            continue;
-        }
-        for c in word.chars() {
-            let mut candidate = current.clone();
-            candidate.push(c);
-            if width_mm(&candidate, font, size_pt) > max_width_mm && !current.is_empty() {
-                lines.push(std::mem::take(&mut current));
-                current.push(c);
-            } else {
-                current = candidate;
-            }
+            current_advance = current_advance.then(c_advance);
         }
     }
     if !current.is_empty() {
