@@ -12,6 +12,7 @@ mod framing;
 mod geometry;
 mod lines;
 mod pieces;
+mod zone_merge;
 mod zones;
 
 use serde::{Deserialize, Serialize};
@@ -27,7 +28,7 @@ use framing::framing_lines;
 use geometry::{bounds, validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
 use pieces::PieceCutter;
-use zones::{zone_pieces, LineStrip, ZoneShapes};
+use zones::{zone_pieces, JoinedZones, LineStrip, ZoneShapes};
 
 /// One roof plane in plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -212,7 +213,8 @@ pub struct Course {
     /// Plan positions across the lines of the panel ends in this course, both deck edges included, m.
     pub joints_m: Vec<f64>,
     /// How the course was shifted or trimmed (minimum piece, slivers at hip and valley cuts, a
-    /// narrow top course), in SI words starting "course N: " (the same as `changes`).
+    /// narrow top course), in SI words starting "course N: " (the same as `changes`; empty when laid
+    /// out with [`LayoutDetail::ForSpacing`]).
     pub adjustments: Vec<String>,
     /// The same changes as data, for writers in other units.
     pub changes: Vec<LayoutChange>,
@@ -287,11 +289,23 @@ pub struct DeckLayout {
     pub lines: Vec<LayoutLine>,
     pub courses: Vec<Course>,
     pub framing: Vec<FramingLine>,
+    /// Empty when laid out with [`LayoutDetail::ForSpacing`].
     pub pieces: Vec<DeckPiece>,
     pub laying_starts: Vec<LayingStart>,
 }
 
-/// Lays out the framing lines and panel courses of every plane.
+/// How much of the deck a layout works out.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+pub enum LayoutDetail {
+    /// Everything: lines, bearings, courses with their adjustments in words, framing, deck pieces.
+    Full,
+    /// What the nail spacing reads: lines, zones, bearings, courses and their changes as data. No deck
+    /// pieces (they are for drawings, the JSON output and checks) and no adjustments in words: a
+    /// batch summary needs neither, and the pieces were an eighth of a roof's work.
+    ForSpacing,
+}
+
+/// Lays out the framing lines and panel courses of every plane, in full ([`LayoutDetail::Full`]).
 ///
 /// `zone_rank[zone_index]` orders the zones, higher = worse (corner > edge > interior, overhang zones
 /// by their pressure). A stretch of line takes the worst zone its deck strip (half a spacing either
@@ -303,9 +317,22 @@ pub fn layout_deck(
     framing: &FramingInput,
     panel: &PanelInput,
 ) -> Result<DeckLayout, SpacingError> {
+    layout_deck_with(planes, zones, zone_rank, framing, panel, LayoutDetail::Full)
+}
+
+/// [`layout_deck`] to the given detail: the lines, bearings and courses are the same at either.
+pub fn layout_deck_with(
+    planes: &[PlaneGeometry],
+    zones: &[ZoneRegion],
+    zone_rank: &[u32],
+    framing: &FramingInput,
+    panel: &PanelInput,
+    detail: LayoutDetail,
+) -> Result<DeckLayout, SpacingError> {
     validate(planes, zones, zone_rank, framing, panel)?;
     let mut cache = BearingWork::default();
-    let zone_shapes = ZoneShapes::new(zones, zone_rank);
+    let joined_zones = JoinedZones::new(zones);
+    let zone_shapes = ZoneShapes::new(&joined_zones, zone_rank);
     let mut lines = Vec::new();
     let mut courses = Vec::new();
     let mut pieces = Vec::new();
@@ -385,20 +412,22 @@ pub fn layout_deck(
                 }
             }
         }
-        for course in &mut plane_courses {
-            course.adjustments = course
-                .changes
-                .iter()
-                .map(|change| si_words(change, course.index, panel.min_piece_mm / 1000.0))
-                .collect();
+        if detail == LayoutDetail::Full {
+            for course in &mut plane_courses {
+                course.adjustments = course
+                    .changes
+                    .iter()
+                    .map(|change| si_words(change, course.index, panel.min_piece_mm / 1000.0))
+                    .collect();
+            }
+            let cutter = PieceCutter {
+                polygon_m: &plane.polygon_m,
+                frame: &frame,
+                grid: &grid,
+                first_number,
+            };
+            pieces.extend(cutter.pieces(&plane_courses));
         }
-        let cutter = PieceCutter {
-            polygon_m: &plane.polygon_m,
-            frame: &frame,
-            grid: &grid,
-            first_number,
-        };
-        pieces.extend(cutter.pieces(&plane_courses));
         let low_along_m = frame.along_at_m(0.0);
         let corner_cross_m = match panel.start {
             StartCorner::SmallerCoordinate => frame.cross_range_m[0],
@@ -875,6 +904,57 @@ mod tests {
         assert_relative_eq!(piece.cantilever_start_m, 0.3, max_relative = 1e-9);
         assert_eq!(layout.lines[50].kind, LineKind::EndWall);
         assert_eq!(layout.lines[50].position_m, 30.0);
+    }
+
+    #[test]
+    fn laying_out_for_spacing_drops_only_the_pieces_and_the_words() {
+        // A hip end with a corner zone and a min piece that shifts joints, so that the courses have
+        // changes in words and the deck has cut pieces.
+        let plane = PlaneGeometry {
+            polygon_m: vec![[0.0, 0.0], [6.0, 6.0], [0.0, 12.0]],
+            slope_deg: 45.0,
+            downslope_m: [-1.0, 0.0],
+        };
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![vec![[1.0, 1.0], [6.0, 6.0], [0.0, 12.0], [0.0, 1.0]]],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![vec![[0.0, 0.0], [1.0, 1.0], [0.0, 1.0]]],
+            },
+        ];
+        let framing = FramingInput {
+            walls_m: walls(0.0, 0.0, 20.0, 12.0),
+            ..framing(610.0)
+        };
+        let lay = |detail| {
+            layout_deck_with(
+                std::slice::from_ref(&plane),
+                &zones,
+                &[1, 2],
+                &framing,
+                &panel(Stagger::Half),
+                detail,
+            )
+            .expect("valid")
+        };
+        let full = lay(LayoutDetail::Full);
+        let for_spacing = lay(LayoutDetail::ForSpacing);
+        assert!(!full.pieces.is_empty());
+        assert!(full.courses.iter().any(|c| !c.adjustments.is_empty()));
+        assert!(for_spacing.pieces.is_empty());
+        assert!(for_spacing.courses.iter().all(|c| c.adjustments.is_empty()));
+        let without_words = |layout: &DeckLayout| {
+            let mut layout = layout.clone();
+            layout.pieces.clear();
+            for course in &mut layout.courses {
+                course.adjustments.clear();
+            }
+            layout
+        };
+        assert_eq!(without_words(&full), for_spacing);
     }
 
     #[test]

@@ -8,7 +8,8 @@ use crate::error::JobError;
 use crate::project::{LinesAlong, MemberRole, Project, StaggerChoice};
 use crate::rules::spacing_rules;
 use deckhold_deck::layout::{
-    layout_deck, Axis, DeckLayout, FramingInput, PanelInput, PlaneGeometry, Stagger, ZoneRegion,
+    layout_deck_with, Axis, DeckLayout, FramingInput, LayoutDetail, PanelInput, PlaneGeometry,
+    Stagger, ZoneRegion,
 };
 use deckhold_deck::spacing::{holds_on_layout, plan_on_layout, DeckPlan, NailOption, SpacingRules};
 use deckhold_fasten::{
@@ -124,7 +125,12 @@ fn job_for(project: &Project, nail_ids: &[String], which: Candidates) -> Result<
         .into());
     }
     let wind = deckhold_wind::analyze(&project.wind)?;
-    let layout = deck_layout(project, &wind)?;
+    // Only the chosen nail is read: the deck pieces and the adjustments in words are not.
+    let detail = match which {
+        Candidates::All => LayoutDetail::Full,
+        Candidates::UpToChosen => LayoutDetail::ForSpacing,
+    };
+    let layout = deck_layout_with(project, &wind, detail)?;
     // Every id is looked up first, so an unknown nail refuses the job whichever nail is chosen.
     let nails = nail_ids
         .iter()
@@ -167,13 +173,23 @@ fn job_for(project: &Project, nail_ids: &[String], which: Candidates) -> Result<
 
 /// Lays out the project's framing and deck once (the layout does not depend on the nail).
 pub fn deck_layout(project: &Project, wind: &WindAnalysis) -> Result<DeckLayout, JobError> {
+    deck_layout_with(project, wind, LayoutDetail::Full)
+}
+
+/// [`deck_layout`] to the given detail.
+fn deck_layout_with(
+    project: &Project,
+    wind: &WindAnalysis,
+    detail: LayoutDetail,
+) -> Result<DeckLayout, JobError> {
     let geometry = DeckGeometry::new(project, wind)?;
-    Ok(layout_deck(
+    Ok(layout_deck_with(
         &geometry.planes,
         &geometry.zones,
         &geometry.zone_rank,
         &geometry.framing,
         &geometry.panel,
+        detail,
     )?)
 }
 

@@ -8,6 +8,7 @@
 use super::geometry::{
     bounds, crossings, section_into, sort_total, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
 };
+use super::zone_merge::joined_convex;
 use super::{Axis, ZoneRegion};
 use crate::error::SpacingError;
 
@@ -38,6 +39,24 @@ struct ZoneShape<'a> {
     bounds: [[f64; 2]; 2],
 }
 
+/// Each zone's polygons with the convex pieces that share an edge joined (see `zone_merge`), made
+/// once per layout: the shapes the lines are split against borrow from here.
+#[derive(Debug, Clone)]
+pub(crate) struct JoinedZones {
+    zones: Vec<(usize, Vec<Vec<[f64; 2]>>)>,
+}
+
+impl JoinedZones {
+    pub(crate) fn new(zones: &[ZoneRegion]) -> Self {
+        Self {
+            zones: zones
+                .iter()
+                .map(|zone| (zone.zone_index, joined_convex(&zone.polygons_m)))
+                .collect(),
+        }
+    }
+}
+
 /// Every zone polygon with its bounds, worked out once per layout rather than once per line, worst
 /// zone first: once a stretch has found a zone its strip touches, no lower-ranked polygon can govern
 /// it, and the search stops there.
@@ -48,13 +67,14 @@ pub(crate) struct ZoneShapes<'a> {
 
 impl<'a> ZoneShapes<'a> {
     /// `zone_rank[zone_index]` orders the zones, higher = worse.
-    pub(crate) fn new(zones: &'a [ZoneRegion], zone_rank: &[u32]) -> Self {
+    pub(crate) fn new(zones: &'a JoinedZones, zone_rank: &[u32]) -> Self {
         let mut shapes: Vec<ZoneShape<'a>> = zones
+            .zones
             .iter()
-            .flat_map(|zone| {
-                let rank = zone_rank.get(zone.zone_index).copied().unwrap_or(0);
-                zone.polygons_m.iter().map(move |polygon| ZoneShape {
-                    zone_index: zone.zone_index,
+            .flat_map(|(zone_index, polygons)| {
+                let rank = zone_rank.get(*zone_index).copied().unwrap_or(0);
+                polygons.iter().map(move |polygon| ZoneShape {
+                    zone_index: *zone_index,
                     rank,
                     polygon: polygon.as_slice(),
                     bounds: bounds(polygon),
@@ -257,8 +277,12 @@ mod tests {
             position_m,
             half_width_m: 0.305,
         };
-        zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&zones(), &[1, 2, 3]))
-            .expect("zones tile the plane")
+        zone_pieces(
+            line,
+            [0.0, 6.0],
+            &ZoneShapes::new(&JoinedZones::new(&zones()), &[1, 2, 3]),
+        )
+        .expect("zones tile the plane")
     }
 
     #[test]
@@ -296,8 +320,12 @@ mod tests {
             zone_index: 0,
             polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
         }];
-        let error =
-            zone_pieces(line, [0.0, 6.0], &ZoneShapes::new(&only_edge, &[1])).expect_err("gap");
+        let error = zone_pieces(
+            line,
+            [0.0, 6.0],
+            &ZoneShapes::new(&JoinedZones::new(&only_edge), &[1]),
+        )
+        .expect_err("gap");
         assert!(error.to_string().contains("rafter line 7"), "{error}");
     }
 }
