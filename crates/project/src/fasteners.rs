@@ -57,7 +57,7 @@ fn read_one(block: &ObjectReader) -> Result<StatedFastener, ProjectError> {
             path: block.key_path("id"),
         })?
         .to_string();
-    limits::ID_CHARS.check_count(&block.key_path("id"), id.chars().count())?;
+    block.check_count("id", &limits::ID_CHARS, id.chars().count())?;
     if id.trim().is_empty() || id.contains(char::is_whitespace) || id.contains(',') {
         return Err(ProjectError::Invalid {
             path: block.key_path("id"),

@@ -86,14 +86,14 @@ fn read_info(root: &ObjectReader) -> Result<ProjectInfo, ProjectError> {
             ..ProjectInfo::default()
         });
     };
-    let text = |key: &str| -> Result<String, ProjectError> {
+    let text = |key: &'static str| -> Result<String, ProjectError> {
         let text = block.string(key)?.unwrap_or_default();
         let limit = if key == "notes" {
             limits::NOTES_CHARS
         } else {
             limits::TEXT_CHARS
         };
-        limit.check_count(&block.key_path(key), text.chars().count())?;
+        block.check_count(key, &limit, text.chars().count())?;
         Ok(text.to_string())
     };
     let date = block.string("date")?.unwrap_or(DEFAULT_DATE).to_string();
@@ -669,18 +669,23 @@ fn read_nails(root: &ObjectReader, stated: &[Nail]) -> Result<Vec<String>, Proje
         .iter()
         .enumerate()
         .map(|(index, item)| {
-            let path = format!("nails[{index}]");
+            let path = || format!("nails[{index}]");
             let id = item.as_str().ok_or_else(|| ProjectError::WrongType {
-                path: path.clone(),
+                path: path(),
                 expected: "a nail id (see `deckhold catalog nails`)".to_string(),
             })?;
-            check_nail_id(&path, id, stated)?;
+            check_nail_id(path, id, stated)?;
             Ok(id.to_string())
         })
         .collect()
 }
 
-fn check_nail_id(path: &str, id: &str, stated: &[Nail]) -> Result<(), ProjectError> {
+/// `path` spells the key's path, only when the id is refused.
+fn check_nail_id(
+    path: impl FnOnce() -> String,
+    id: &str,
+    stated: &[Nail],
+) -> Result<(), ProjectError> {
     if stated.iter().any(|nail| nail.id == id) {
         return Ok(());
     }
@@ -691,7 +696,7 @@ fn check_nail_id(path: &str, id: &str, stated: &[Nail]) -> Result<(), ProjectErr
             message.push_str(&format!("; stated in `fasteners`: {}", ids.join(", ")));
         }
         ProjectError::Invalid {
-            path: path.to_string(),
+            path: path(),
             message,
         }
     })
@@ -704,7 +709,7 @@ fn read_existing(block: &ObjectReader, stated: &[Nail]) -> Result<ExistingPatter
             path: "existing.nail".to_string(),
         })?
         .to_string();
-    check_nail_id("existing.nail", &nail_id, stated)?;
+    check_nail_id(|| "existing.nail".to_string(), &nail_id, stated)?;
     let credit = block
         .number("credit", &limits::EXISTING_CREDIT)?
         .unwrap_or(1.0);

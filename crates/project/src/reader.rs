@@ -1,5 +1,8 @@
 //! A strict reader over a JSON object that remembers the key path, so every message can name the key, and
 //! that refuses keys nobody asked for (a misspelt key must not silently fall back to a default).
+//!
+//! Reading a good file builds no text: key paths and the list of allowed keys are spelt out only when a
+//! message needs them (a batch reads one project per row, and the spelling cost more than the reading).
 
 use crate::error::ProjectError;
 use crate::units::Quantity;
@@ -7,29 +10,96 @@ use deckhold_core::limits::{self, Limit};
 use serde_json::{Map, Value};
 use std::cell::RefCell;
 use std::collections::BTreeSet;
+use std::fmt;
+
+/// A key the parser asked for: a plain key (`suffix` empty), or a quantity's stem with one unit suffix
+/// (`eave_height` + `m` is `eave_height_m`), kept in two parts so that asking needs no allocation.
+#[derive(Debug, Clone, Copy)]
+struct Asked {
+    stem: &'static str,
+    suffix: &'static str,
+}
+
+impl Asked {
+    fn plain(key: &'static str) -> Self {
+        Asked {
+            stem: key,
+            suffix: "",
+        }
+    }
+
+    fn unit(stem: &'static str, suffix: &'static str) -> Self {
+        Asked { stem, suffix }
+    }
+
+    /// True when `written` is this key.
+    fn is(self, written: &str) -> bool {
+        if self.suffix.is_empty() {
+            return written == self.stem;
+        }
+        written
+            .strip_prefix(self.stem)
+            .and_then(|rest| rest.strip_prefix('_'))
+            == Some(self.suffix)
+    }
+
+    /// The key's value in `map`: the key is spelt in a buffer on the stack when it fits, so a lookup
+    /// allocates nothing.
+    fn find_in(self, map: &Map<String, Value>) -> Option<(&String, &Value)> {
+        if self.suffix.is_empty() {
+            return map.get_key_value(self.stem);
+        }
+        let mut buffer = [0u8; 64];
+        let length = self.stem.len() + 1 + self.suffix.len();
+        if length > buffer.len() {
+            return map.get_key_value(self.to_string().as_str());
+        }
+        buffer[..self.stem.len()].copy_from_slice(self.stem.as_bytes());
+        buffer[self.stem.len()] = b'_';
+        buffer[self.stem.len() + 1..length].copy_from_slice(self.suffix.as_bytes());
+        // Two whole UTF-8 strings joined by an ASCII byte are UTF-8.
+        let key = std::str::from_utf8(&buffer[..length]).ok()?;
+        map.get_key_value(key)
+    }
+}
+
+impl fmt::Display for Asked {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        if self.suffix.is_empty() {
+            f.write_str(self.stem)
+        } else {
+            write!(f, "{}_{}", self.stem, self.suffix)
+        }
+    }
+}
 
 /// One JSON object being read, with its path from the file's root.
 #[derive(Debug)]
 pub struct ObjectReader<'a> {
     path: String,
     map: &'a Map<String, Value>,
-    used: RefCell<BTreeSet<&'a str>>,
+    /// The keys of `map` that were read.
+    used: RefCell<Vec<&'a str>>,
     /// Every key the parser asked for here, present or not: the keys allowed at this place.
-    asked: RefCell<BTreeSet<String>>,
+    asked: RefCell<Vec<Asked>>,
 }
 
 impl<'a> ObjectReader<'a> {
     /// Wraps `value`, which must be an object, found at `path` (empty for the root).
     pub fn new(path: &str, value: &'a Value) -> Result<Self, ProjectError> {
+        Self::at(path.to_string(), value)
+    }
+
+    fn at(path: String, value: &'a Value) -> Result<Self, ProjectError> {
         match value {
             Value::Object(map) => Ok(Self {
-                path: path.to_string(),
+                path,
                 map,
-                used: RefCell::new(BTreeSet::new()),
-                asked: RefCell::new(BTreeSet::new()),
+                used: RefCell::new(Vec::new()),
+                asked: RefCell::new(Vec::new()),
             }),
             _ => Err(ProjectError::WrongType {
-                path: display_path(path),
+                path: display_path(&path),
                 expected: "an object".to_string(),
             }),
         }
@@ -44,20 +114,32 @@ impl<'a> ObjectReader<'a> {
         }
     }
 
+    fn asked_path(&self, key: Asked) -> String {
+        self.key_path(&key.to_string())
+    }
+
     /// The raw value of `key`, marking it as read.
-    pub fn get(&self, key: &str) -> Option<&'a Value> {
-        self.asked.borrow_mut().insert(key.to_string());
-        let (stored_key, value) = self.map.get_key_value(key)?;
-        self.used.borrow_mut().insert(stored_key.as_str());
+    pub fn get(&self, key: &'static str) -> Option<&'a Value> {
+        self.get_asked(Asked::plain(key))
+    }
+
+    fn get_asked(&self, key: Asked) -> Option<&'a Value> {
+        self.asked.borrow_mut().push(key);
+        let (stored_key, value) = key.find_in(self.map)?;
+        self.used.borrow_mut().push(stored_key.as_str());
         Some(value)
     }
 
-    pub fn has(&self, key: &str) -> bool {
-        self.asked.borrow_mut().insert(key.to_string());
-        self.map.contains_key(key)
+    pub fn has(&self, key: &'static str) -> bool {
+        self.has_asked(Asked::plain(key))
     }
 
-    pub fn require(&self, key: &str) -> Result<&'a Value, ProjectError> {
+    fn has_asked(&self, key: Asked) -> bool {
+        self.asked.borrow_mut().push(key);
+        key.find_in(self.map).is_some()
+    }
+
+    pub fn require(&self, key: &'static str) -> Result<&'a Value, ProjectError> {
         self.get(key).ok_or_else(|| self.missing(key))
     }
 
@@ -68,7 +150,7 @@ impl<'a> ObjectReader<'a> {
         let typo = self
             .map
             .keys()
-            .filter(|written| !asked.contains(written.as_str()))
+            .filter(|written| !asked.iter().any(|allowed| allowed.is(written)))
             .find(|written| is_near(written, key));
         match typo {
             Some(written) => self.unknown_key(written),
@@ -79,7 +161,7 @@ impl<'a> ObjectReader<'a> {
     }
 
     fn unknown_key(&self, written: &str) -> ProjectError {
-        let asked = self.asked.borrow();
+        let asked: BTreeSet<String> = self.asked.borrow().iter().map(Asked::to_string).collect();
         let nearest = asked
             .iter()
             .filter(|allowed| is_near(written, allowed))
@@ -98,29 +180,58 @@ impl<'a> ObjectReader<'a> {
     }
 
     /// A nested object, if present.
-    pub fn object(&self, key: &str) -> Result<Option<ObjectReader<'a>>, ProjectError> {
+    pub fn object(&self, key: &'static str) -> Result<Option<ObjectReader<'a>>, ProjectError> {
         match self.get(key) {
             None => Ok(None),
-            Some(value) => ObjectReader::new(&self.key_path(key), value).map(Some),
+            Some(value) => ObjectReader::at(self.key_path(key), value).map(Some),
         }
     }
 
-    pub fn require_object(&self, key: &str) -> Result<ObjectReader<'a>, ProjectError> {
+    pub fn require_object(&self, key: &'static str) -> Result<ObjectReader<'a>, ProjectError> {
         self.object(key)?.ok_or_else(|| self.missing(key))
     }
 
-    pub fn string(&self, key: &str) -> Result<Option<&'a str>, ProjectError> {
+    pub fn string(&self, key: &'static str) -> Result<Option<&'a str>, ProjectError> {
         match self.get(key) {
             None => Ok(None),
             Some(Value::String(text)) => {
-                limits::NOTES_CHARS.check_count(&self.key_path(key), text.chars().count())?;
+                self.check_count(key, &limits::NOTES_CHARS, text.chars().count())?;
                 Ok(Some(text.as_str()))
             }
             Some(_) => Err(self.wrong_type(key, "a string")),
         }
     }
 
-    pub fn bool(&self, key: &str) -> Result<Option<bool>, ProjectError> {
+    /// Refuses a count of `key` (characters, entries) outside `limit`, naming `key`'s path.
+    pub fn check_count(&self, key: &str, limit: &Limit, count: usize) -> Result<(), ProjectError> {
+        if limit.contains(count as f64) {
+            return Ok(());
+        }
+        Ok(limit.check_count(&self.key_path(key), count)?)
+    }
+
+    /// Refuses a value of `key` written in `unit_written` outside `limit` (see [`Limit::check_scaled`]);
+    /// the path is spelt only for the message.
+    fn check_scaled(
+        &self,
+        key: Asked,
+        limit: &Limit,
+        value_written: f64,
+        table_per_written: f64,
+        unit_written: &str,
+    ) -> Result<(), ProjectError> {
+        if limit.contains(value_written * table_per_written) {
+            return Ok(());
+        }
+        Ok(limit.check_scaled(
+            &self.asked_path(key),
+            value_written,
+            table_per_written,
+            unit_written,
+        )?)
+    }
+
+    pub fn bool(&self, key: &'static str) -> Result<Option<bool>, ProjectError> {
         match self.get(key) {
             None => Ok(None),
             Some(Value::Bool(flag)) => Ok(Some(*flag)),
@@ -129,19 +240,19 @@ impl<'a> ObjectReader<'a> {
     }
 
     /// A plain number (no unit variants), checked against its limit.
-    pub fn number(&self, key: &str, limit: &Limit) -> Result<Option<f64>, ProjectError> {
+    pub fn number(&self, key: &'static str, limit: &Limit) -> Result<Option<f64>, ProjectError> {
         let Some(value) = self.get(key) else {
             return Ok(None);
         };
         let number = as_finite_number(value).ok_or_else(|| self.wrong_type(key, "a number"))?;
-        limit.check(&self.key_path(key), number)?;
+        self.check_scaled(Asked::plain(key), limit, number, 1.0, limit.unit)?;
         Ok(Some(number))
     }
 
     /// One of a fixed set of words.
     pub fn choice<T: Copy>(
         &self,
-        key: &str,
+        key: &'static str,
         choices: &[(&str, T)],
     ) -> Result<Option<T>, ProjectError> {
         let Some(word) = self.string(key)? else {
@@ -175,7 +286,7 @@ impl<'a> ObjectReader<'a> {
     /// One of the kinds of the shared vocabulary, written as its word.
     pub fn kind<T: Copy>(
         &self,
-        key: &str,
+        key: &'static str,
         all: &[T],
         word: fn(T) -> &'static str,
     ) -> Result<Option<T>, ProjectError> {
@@ -187,27 +298,28 @@ impl<'a> ObjectReader<'a> {
     /// Returns the value converted to the SI unit, checked against its limit (in the unit the user wrote).
     pub fn quantity(
         &self,
-        stem: &str,
+        stem: &'static str,
         quantity: Quantity,
         limit: &Limit,
     ) -> Result<Option<f64>, ProjectError> {
-        let si_key = format!("{stem}_{}", quantity.si_suffix());
-        let us_key = format!("{stem}_{}", quantity.us_suffix());
-        match (self.has(&si_key), self.has(&us_key)) {
+        let si_key = Asked::unit(stem, quantity.si_suffix());
+        let us_key = Asked::unit(stem, quantity.us_suffix());
+        match (self.has_asked(si_key), self.has_asked(us_key)) {
             (true, true) => Err(ProjectError::BothUnits {
-                first: self.key_path(&si_key),
-                second: self.key_path(&us_key),
+                first: self.asked_path(si_key),
+                second: self.asked_path(us_key),
             }),
             (false, false) => Ok(None),
             (true, false) => {
-                let value = self.raw_number(&si_key)?;
-                limit.check_scaled(&self.key_path(&si_key), value, 1.0, quantity.si_unit())?;
+                let value = self.raw_number(si_key)?;
+                self.check_scaled(si_key, limit, value, 1.0, quantity.si_unit())?;
                 Ok(Some(value))
             }
             (false, true) => {
-                let value = self.raw_number(&us_key)?;
-                limit.check_scaled(
-                    &self.key_path(&us_key),
+                let value = self.raw_number(us_key)?;
+                self.check_scaled(
+                    us_key,
+                    limit,
                     value,
                     quantity.to_si(1.0),
                     quantity.us_unit(),
@@ -219,7 +331,7 @@ impl<'a> ObjectReader<'a> {
 
     pub fn require_quantity(
         &self,
-        stem: &str,
+        stem: &'static str,
         quantity: Quantity,
         limit: &Limit,
     ) -> Result<f64, ProjectError> {
@@ -227,9 +339,14 @@ impl<'a> ObjectReader<'a> {
             .ok_or_else(|| self.missing(&format!("{stem}_{}", quantity.si_suffix())))
     }
 
-    fn raw_number(&self, key: &str) -> Result<f64, ProjectError> {
-        let value = self.require(key)?;
-        as_finite_number(value).ok_or_else(|| self.wrong_type(key, "a number"))
+    fn raw_number(&self, key: Asked) -> Result<f64, ProjectError> {
+        let value = self
+            .get_asked(key)
+            .ok_or_else(|| self.missing(&key.to_string()))?;
+        as_finite_number(value).ok_or_else(|| ProjectError::WrongType {
+            path: self.asked_path(key),
+            expected: "a number".to_string(),
+        })
     }
 
     fn wrong_type(&self, key: &str, expected: &str) -> ProjectError {
@@ -243,7 +360,7 @@ impl<'a> ObjectReader<'a> {
     /// nearest allowed key and every key allowed here.
     pub fn finish(&self) -> Result<(), ProjectError> {
         let used = self.used.borrow();
-        match self.map.keys().find(|key| !used.contains(key.as_str())) {
+        match self.map.keys().find(|key| !used.contains(&key.as_str())) {
             Some(unknown) => Err(self.unknown_key(unknown)),
             None => Ok(()),
         }
@@ -325,6 +442,44 @@ mod tests {
         assert_eq!(
             error.to_string(),
             "framing.spacing_in: 60 in is outside 7.874..48.031 in"
+        );
+    }
+
+    #[test]
+    fn quantity_keys_are_matched_and_listed_as_written() {
+        for (written, is_it) in [
+            ("eave_height_m", true),
+            ("eave_height_ft", false),
+            ("eave_heightm", false),
+            ("eave_height_m2", false),
+        ] {
+            assert_eq!(
+                Asked::unit("eave_height", "m").is(written),
+                is_it,
+                "{written}"
+            );
+        }
+        assert!(Asked::plain("slope_deg").is("slope_deg"));
+        assert!(!Asked::plain("slope").is("slope_deg"));
+        // A key too long for the stack buffer is still found.
+        let stem = "a_stem_long_enough_that_its_key_does_not_fit_in_the_buffer_on_the_stack";
+        let value = json!({ format!("{stem}_mm"): 3.0 });
+        let Value::Object(map) = &value else {
+            unreachable!("an object")
+        };
+        assert!(Asked::unit(stem, "mm").find_in(map).is_some());
+        assert!(Asked::unit(stem, "in").find_in(map).is_none());
+
+        let value = json!({"eave_heigth_m": 5.0, "footprint": {}});
+        let reader = ObjectReader::new("building", &value).expect("object");
+        reader.get("footprint");
+        let error = reader
+            .require_quantity("eave_height", Quantity::LengthM, &limits::EAVE_HEIGHT_M)
+            .expect_err("misspelt");
+        assert_eq!(
+            error.to_string(),
+            "building.eave_heigth_m: unknown key; did you mean \"eave_height_m\"? \
+             (allowed here: eave_height_ft, eave_height_m, footprint)"
         );
     }
 

@@ -45,61 +45,66 @@ fn set_path(tree: &mut Value, keys: &[String], cell: &str) -> Result<(), String>
     let Some((leaf, parents)) = keys.split_last() else {
         return Err("the column names no key".to_string());
     };
-    let mut node = tree;
-    let mut walked = String::new();
-    let not_an_object = |walked: &str, key: &str| {
+    // The keys walked before `depth`, spelt only for a message.
+    let not_an_object = |depth: usize, key: &str| {
         format!(
             "{} is not a group of keys in the base project, so {key} cannot be set in it",
-            if walked.is_empty() {
-                "the root"
+            if depth == 0 {
+                "the root".to_string()
             } else {
-                walked
+                keys[..depth].join(".")
             }
         )
     };
-    for key in parents {
+    let mut node = tree;
+    for (depth, key) in parents.iter().enumerate() {
         let Value::Object(map) = node else {
-            return Err(not_an_object(&walked, key));
+            return Err(not_an_object(depth, key));
         };
-        node = map
-            .entry(key.clone())
-            .or_insert_with(|| Value::Object(Map::new()));
-        if !walked.is_empty() {
-            walked.push('.');
+        if !map.contains_key(key.as_str()) {
+            map.insert(key.clone(), Value::Object(Map::new()));
         }
-        walked.push_str(key);
+        node = map
+            .get_mut(key.as_str())
+            .ok_or_else(|| not_an_object(depth, key))?;
     }
     let Value::Object(map) = node else {
-        return Err(not_an_object(&walked, leaf));
+        return Err(not_an_object(parents.len(), leaf));
     };
     let value = typed_value(map.get(leaf.as_str()), cell)?;
-    for twin in twin_keys(leaf) {
-        map.remove(&twin);
+    remove_twins(map, leaf);
+    match map.get_mut(leaf.as_str()) {
+        Some(held) => *held = value,
+        None => {
+            map.insert(leaf.clone(), value);
+        }
     }
-    map.insert(leaf.clone(), value);
     Ok(())
 }
 
-/// The other spellings of the same value: the other unit variant, or the alternate key.
-fn twin_keys(key: &str) -> Vec<String> {
-    let mut twins = Vec::new();
+/// Removes the other spellings of `key`'s value: the other unit variant, or the alternate key.
+fn remove_twins(map: &mut Map<String, Value>, key: &str) {
     for quantity in QUANTITIES {
         let (si, us) = (quantity.si_suffix(), quantity.us_suffix());
-        if let Some(stem) = key.strip_suffix(&format!("_{si}")) {
-            twins.push(format!("{stem}_{us}"));
+        if let Some(stem) = unit_stem(key, si) {
+            map.remove(&format!("{stem}_{us}"));
         }
-        if let Some(stem) = key.strip_suffix(&format!("_{us}")) {
-            twins.push(format!("{stem}_{si}"));
+        if let Some(stem) = unit_stem(key, us) {
+            map.remove(&format!("{stem}_{si}"));
         }
     }
     for (first, second) in ALTERNATE_KEYS {
         if key == first {
-            twins.push(second.to_string());
+            map.remove(second);
         } else if key == second {
-            twins.push(first.to_string());
+            map.remove(first);
         }
     }
-    twins
+}
+
+/// The stem of `key` when it ends in `_suffix`.
+fn unit_stem<'k>(key: &'k str, suffix: &str) -> Option<&'k str> {
+    key.strip_suffix(suffix)?.strip_suffix('_')
 }
 
 /// The cell as a JSON value of the kind the base holds at that key; where the base has no value there,
