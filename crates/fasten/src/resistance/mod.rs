@@ -170,9 +170,12 @@ impl Factor {
     }
 
     fn prefixed(prefix: &str, coefficient: &Coefficient) -> Self {
-        let mut factor = Factor::from_coefficient(coefficient);
-        factor.name = format!("{prefix}{}", factor.name);
-        factor
+        Factor::new(
+            [prefix, coefficient.symbol].concat(),
+            coefficient.value,
+            coefficient.unit,
+            coefficient.provenance(),
+        )
     }
 }
 
@@ -246,12 +249,18 @@ pub fn nail_resistance(input: &ResistanceInput) -> Result<Resistance, FastenErro
         (Some(deck), Method::NdsAsd | Method::NdsLrfd) => Some(pull_through::nds(input, &deck)),
     };
 
-    let mut factors = vec![Factor::new(
+    let mut factors = Vec::with_capacity(
+        1 + withdrawal.factors.len()
+            + pull_through
+                .as_ref()
+                .map_or(0, |result| result.factors.len()),
+    );
+    factors.push(Factor::new(
         "L_p",
         penetration_mm,
         "mm",
         "penetration into the point-side member (input)",
-    )];
+    ));
     factors.extend(withdrawal.factors);
     warnings.extend(withdrawal.warnings);
     let pull_through_n = pull_through.as_ref().map(|result| result.value_n);

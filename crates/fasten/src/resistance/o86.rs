@@ -143,7 +143,7 @@ pub(super) fn withdrawal(
             "d_F",
             nail.shank_diameter_mm,
             "mm",
-            format!("nail `{}`: {}", nail.id, nail.provenance()),
+            ["nail `", &nail.id, "`: ", &nail.provenance()].concat(),
         ),
         Factor::new("y_w", y_w, "N/mm", y_w_source),
         Factor::from_coefficient(k_sf),

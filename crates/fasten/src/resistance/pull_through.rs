@@ -87,30 +87,32 @@ fn head_pull_through(
     }
     let mut factors = vec![
         Factor::new(
-            format!("{prefix}G (panel)"),
+            [prefix, "G (panel)"].concat(),
             gravity.value,
             "",
-            format!(
-                "{} `{}`: {}",
-                deck.panel.name,
-                deck.panel.id,
-                gravity.provenance()
-            ),
+            [
+                deck.panel.name.as_str(),
+                " `",
+                &deck.panel.id,
+                "`: ",
+                &gravity.provenance(),
+            ]
+            .concat(),
         ),
         Factor::new(
-            format!("{prefix}D_H"),
+            [prefix, "D_H"].concat(),
             nail.head_diameter_mm,
             "mm",
-            format!("nail `{}`: {}", nail.id, nail.provenance()),
+            ["nail `", &nail.id, "`: ", &nail.provenance()].concat(),
         ),
         Factor::new(
-            format!("{prefix}t_ns"),
+            [prefix, "t_ns"].concat(),
             deck.thickness_mm,
             "mm",
             "deck thickness (input)",
         ),
         Factor::new(
-            format!("{prefix}W_H"),
+            [prefix, "W_H"].concat(),
             w_h_n,
             "N",
             format!("{} = {w_h_lbf:.1} lb", NDS_WH_COEFFICIENT.provenance()),
@@ -118,7 +120,7 @@ fn head_pull_through(
     ];
     factors.extend(adjustments.iter().map(|c| Factor::prefixed(prefix, c)));
     factors.push(Factor::new(
-        format!("{prefix}W_H'"),
+        [prefix, "W_H'"].concat(),
         value_n,
         "N",
         "W_H times the adjustment factors above, NDS 2018 Table 11.3.1 (from memory)",
