@@ -13,6 +13,25 @@
 use deckhold_model::InputRow;
 use serde_json::Value;
 
+/// A project's keys as written: spelt when read from a file's text, or kept as the JSON value they are
+/// spelt from when a report asks (a batch row: its summary never shows them, and spelling them cost
+/// more than reading the row).
+#[derive(Debug, Clone)]
+pub enum AsWritten {
+    Rows(Vec<InputRow>),
+    Tree(Value),
+}
+
+impl AsWritten {
+    /// The rows of "Inputs as given".
+    pub fn rows(&self) -> Vec<InputRow> {
+        match self {
+            AsWritten::Rows(rows) => rows.clone(),
+            AsWritten::Tree(value) => rows_from_value(value),
+        }
+    }
+}
+
 /// The rows of a project file's text, in the order written. `text` must be JSON that parsed (the
 /// reader has accepted it); anything the scan does not understand ends the list rather than panicking.
 pub fn rows_from_text(text: &str) -> Vec<InputRow> {

@@ -1,6 +1,7 @@
 //! Project file (JSON) to a validated [`Project`]. Every message names the key path and the allowed range;
 //! unknown keys are refused so that a misspelt key never falls back to a default silently.
 
+use crate::as_written::AsWritten;
 use crate::basis::{Basis, BasisStandards};
 use crate::error::ProjectError;
 use crate::project::{
@@ -29,12 +30,27 @@ pub fn parse_project(text: &str) -> Result<Project, ProjectError> {
     crate::duplicate_keys::check_duplicate_keys(text)?;
     let mut project = project_from_value(&value)?;
     // The file's own digits, not the parser's: `1` stays `1`, `0.50` stays `0.50`.
-    project.as_written = crate::as_written::rows_from_text(text);
+    project.as_written = AsWritten::Rows(crate::as_written::rows_from_text(text));
     Ok(project)
 }
 
 /// Validates an already-parsed JSON value.
 pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
+    let mut project = read_project(value)?;
+    project.as_written = AsWritten::Rows(crate::as_written::rows_from_value(value));
+    Ok(project)
+}
+
+/// Validates a JSON value the project keeps: its "inputs as given" are spelt from it only if a report
+/// asks for them (a batch row's summary never does).
+pub fn project_from_tree(tree: Value) -> Result<Project, ProjectError> {
+    let mut project = read_project(&tree)?;
+    project.as_written = AsWritten::Tree(tree);
+    Ok(project)
+}
+
+/// The project `value` describes, with no "inputs as given" yet.
+fn read_project(value: &Value) -> Result<Project, ProjectError> {
     let root = ObjectReader::new("", value)?;
     let info = read_info(&root)?;
     let basis_id = root.string("basis")?.ok_or_else(|| ProjectError::Missing {
@@ -74,7 +90,7 @@ pub fn project_from_value(value: &Value) -> Result<Project, ProjectError> {
         existing,
         coefficients_file,
         units: basis.units(),
-        as_written: crate::as_written::rows_from_value(value),
+        as_written: AsWritten::Rows(Vec::new()),
         fasteners,
     })
 }

@@ -127,7 +127,7 @@ pub struct Project {
     /// Units of every output: the basis's customary units unless the user chose others (`--units`).
     pub units: Units,
     /// Every key the user wrote with its value as written (units and digits), for "Inputs as given".
-    pub as_written: Vec<deckhold_model::InputRow>,
+    pub as_written: crate::as_written::AsWritten,
     /// Fasteners stated in the project file, used by id like catalog ones.
     pub fasteners: Vec<Nail>,
     /// `coefficients`: the user's coefficient table file as written (relative to the project file).

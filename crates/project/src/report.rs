@@ -155,7 +155,7 @@ pub fn schedule_for(project: &Project, job: &Job) -> Schedule {
         lines,
         total_nail_count: plan.map_or(0, |plan| plan.total_nail_count),
         total_nail_mass_kg: plan.map_or(0.0, |plan| plan.total_nail_mass_kg),
-        inputs: project.as_written.clone(),
+        inputs: project.as_written.rows(),
         derived: crate::inputs::derived_rows(project),
         provenance,
         warnings,

@@ -97,7 +97,7 @@ fn another(key: &str, value: &Value) -> Value {
 /// with any key, read or not).
 fn as_read(project: &deckhold_project::Project) -> String {
     let mut project = project.clone();
-    project.as_written = Vec::new();
+    project.as_written = deckhold_project::as_written::AsWritten::Rows(Vec::new());
     format!("{project:?}")
 }
 

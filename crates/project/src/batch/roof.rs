@@ -63,7 +63,7 @@ pub fn row_project(
     }
     let tree = apply_row(base, &columns.overrides, row.cells)
         .map_err(|(column, message)| refuse(Some(&column), &message))?;
-    crate::project_from_value(&tree).map_err(|error| {
+    crate::parse::project_from_tree(tree).map_err(|error| {
         let message = error.to_string();
         refuse(column_named_in(columns, &message), &message)
     })
@@ -187,5 +187,20 @@ mod tests {
         .expect("works");
         assert_eq!(project.nails, ["common-63x3.25", "spiral-63x3.25"]);
         assert_eq!(project.wind.roof.shape, deckhold_wind::RoofShape::Hip);
+        // Its inputs as given, spelt only when asked, are the row's value tree's.
+        let tree = apply_row(&base(), &columns.overrides, &cells).expect("applies");
+        let rows = project.as_written.rows();
+        let spelt = |rows: &[deckhold_model::InputRow]| -> Vec<String> {
+            rows.iter()
+                .map(|row| format!("{} = {}", row.key, row.value))
+                .collect()
+        };
+        assert_eq!(
+            spelt(&rows),
+            spelt(&crate::as_written::rows_from_value(&tree))
+        );
+        assert!(rows
+            .iter()
+            .any(|row| row.key == "roof.shape" && row.value == "hip"));
     }
 }
