@@ -5,7 +5,7 @@
 //! message needs them (a batch reads one project per row, and the spelling cost more than the reading).
 
 use crate::error::ProjectError;
-use crate::units::Quantity;
+use crate::units::{with_unit_key, Quantity};
 use deckhold_core::limits::{self, Limit};
 use serde_json::{Map, Value};
 use std::cell::RefCell;
@@ -43,23 +43,12 @@ impl Asked {
             == Some(self.suffix)
     }
 
-    /// The key's value in `map`: the key is spelt in a buffer on the stack when it fits, so a lookup
-    /// allocates nothing.
+    /// The key's entry in `map`, looked up without allocating.
     fn find_in(self, map: &Map<String, Value>) -> Option<(&String, &Value)> {
         if self.suffix.is_empty() {
             return map.get_key_value(self.stem);
         }
-        let mut buffer = [0u8; 64];
-        let length = self.stem.len() + 1 + self.suffix.len();
-        if length > buffer.len() {
-            return map.get_key_value(self.to_string().as_str());
-        }
-        buffer[..self.stem.len()].copy_from_slice(self.stem.as_bytes());
-        buffer[self.stem.len()] = b'_';
-        buffer[self.stem.len() + 1..length].copy_from_slice(self.suffix.as_bytes());
-        // Two whole UTF-8 strings joined by an ASCII byte are UTF-8.
-        let key = std::str::from_utf8(&buffer[..length]).ok()?;
-        map.get_key_value(key)
+        with_unit_key(self.stem, self.suffix, |key| map.get_key_value(key))
     }
 }
 
@@ -72,6 +61,9 @@ impl fmt::Display for Asked {
         }
     }
 }
+
+/// Room for the keys asked at one place before the list grows (the `deck` block asks 20).
+const ASKED_CAPACITY: usize = 32;
 
 /// One JSON object being read, with its path from the file's root.
 #[derive(Debug)]
@@ -95,8 +87,8 @@ impl<'a> ObjectReader<'a> {
             Value::Object(map) => Ok(Self {
                 path,
                 map,
-                used: RefCell::new(Vec::new()),
-                asked: RefCell::new(Vec::new()),
+                used: RefCell::new(Vec::with_capacity(map.len())),
+                asked: RefCell::new(Vec::with_capacity(ASKED_CAPACITY)),
             }),
             _ => Err(ProjectError::WrongType {
                 path: display_path(&path),
@@ -110,7 +102,7 @@ impl<'a> ObjectReader<'a> {
         if self.path.is_empty() {
             key.to_string()
         } else {
-            format!("{}.{key}", self.path)
+            [self.path.as_str(), ".", key].concat()
         }
     }
 
@@ -124,8 +116,19 @@ impl<'a> ObjectReader<'a> {
     }
 
     fn get_asked(&self, key: Asked) -> Option<&'a Value> {
+        let entry = self.look_up(key);
+        self.mark_used(entry)
+    }
+
+    /// Records `key` as asked here and finds its entry, without marking it read.
+    fn look_up(&self, key: Asked) -> Option<(&'a String, &'a Value)> {
         self.asked.borrow_mut().push(key);
-        let (stored_key, value) = key.find_in(self.map)?;
+        key.find_in(self.map)
+    }
+
+    /// Marks an entry found by [`Self::look_up`] as read and gives its value.
+    fn mark_used(&self, entry: Option<(&'a String, &'a Value)>) -> Option<&'a Value> {
+        let (stored_key, value) = entry?;
         self.used.borrow_mut().push(stored_key.as_str());
         Some(value)
     }
@@ -135,8 +138,7 @@ impl<'a> ObjectReader<'a> {
     }
 
     fn has_asked(&self, key: Asked) -> bool {
-        self.asked.borrow_mut().push(key);
-        key.find_in(self.map).is_some()
+        self.look_up(key).is_some()
     }
 
     pub fn require(&self, key: &'static str) -> Result<&'a Value, ProjectError> {
@@ -304,19 +306,19 @@ impl<'a> ObjectReader<'a> {
     ) -> Result<Option<f64>, ProjectError> {
         let si_key = Asked::unit(stem, quantity.si_suffix());
         let us_key = Asked::unit(stem, quantity.us_suffix());
-        match (self.has_asked(si_key), self.has_asked(us_key)) {
-            (true, true) => Err(ProjectError::BothUnits {
+        match (self.look_up(si_key), self.look_up(us_key)) {
+            (Some(_), Some(_)) => Err(ProjectError::BothUnits {
                 first: self.asked_path(si_key),
                 second: self.asked_path(us_key),
             }),
-            (false, false) => Ok(None),
-            (true, false) => {
-                let value = self.raw_number(si_key)?;
+            (None, None) => Ok(None),
+            (si_entry @ Some(_), None) => {
+                let value = self.raw_number(si_key, si_entry)?;
                 self.check_scaled(si_key, limit, value, 1.0, quantity.si_unit())?;
                 Ok(Some(value))
             }
-            (false, true) => {
-                let value = self.raw_number(us_key)?;
+            (None, us_entry @ Some(_)) => {
+                let value = self.raw_number(us_key, us_entry)?;
                 self.check_scaled(
                     us_key,
                     limit,
@@ -339,9 +341,14 @@ impl<'a> ObjectReader<'a> {
             .ok_or_else(|| self.missing(&format!("{stem}_{}", quantity.si_suffix())))
     }
 
-    fn raw_number(&self, key: Asked) -> Result<f64, ProjectError> {
+    /// The number at `key`'s entry (found by [`Self::look_up`]), marking it read.
+    fn raw_number(
+        &self,
+        key: Asked,
+        entry: Option<(&'a String, &'a Value)>,
+    ) -> Result<f64, ProjectError> {
         let value = self
-            .get_asked(key)
+            .mark_used(entry)
             .ok_or_else(|| self.missing(&key.to_string()))?;
         as_finite_number(value).ok_or_else(|| ProjectError::WrongType {
             path: self.asked_path(key),

@@ -76,3 +76,39 @@ impl Quantity {
         si_value / self.si_per_us()
     }
 }
+
+/// `stem_suffix`, a quantity's key in one unit (`eave_height` and `m`), handed to `use_key`; spelt in a
+/// buffer on the stack when it fits, so that looking the key up allocates nothing (a batch looks up
+/// every quantity of every row).
+pub fn with_unit_key<R>(stem: &str, suffix: &str, use_key: impl FnOnce(&str) -> R) -> R {
+    let mut buffer = [0u8; 64];
+    let length = stem.len() + 1 + suffix.len();
+    if length <= buffer.len() {
+        buffer[..stem.len()].copy_from_slice(stem.as_bytes());
+        buffer[stem.len()] = b'_';
+        buffer[stem.len() + 1..length].copy_from_slice(suffix.as_bytes());
+        // Two whole UTF-8 strings joined by an ASCII byte are UTF-8.
+        if let Ok(key) = std::str::from_utf8(&buffer[..length]) {
+            return use_key(key);
+        }
+    }
+    use_key(&format!("{stem}_{suffix}"))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_unit_key_is_the_stem_and_suffix_joined_whatever_its_length() {
+        assert_eq!(
+            with_unit_key("eave_height", "m", str::to_string),
+            "eave_height_m"
+        );
+        let long_stem = "x".repeat(70);
+        assert_eq!(
+            with_unit_key(&long_stem, "mm", str::to_string),
+            format!("{long_stem}_mm")
+        );
+    }
+}

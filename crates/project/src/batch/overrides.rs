@@ -2,7 +2,7 @@
 //! reader ([`crate::project_from_value`]), so every key, range and unit check applies to a row as to a file.
 
 use super::columns::OverrideColumn;
-use crate::units::Quantity;
+use crate::units::{with_unit_key, Quantity};
 use serde_json::{Map, Number, Value};
 
 /// The unit variants a key may have, so that a column given in one unit replaces the base's value in the
@@ -87,10 +87,10 @@ fn remove_twins(map: &mut Map<String, Value>, key: &str) {
     for quantity in QUANTITIES {
         let (si, us) = (quantity.si_suffix(), quantity.us_suffix());
         if let Some(stem) = unit_stem(key, si) {
-            map.remove(&format!("{stem}_{us}"));
+            with_unit_key(stem, us, |twin| map.remove(twin));
         }
         if let Some(stem) = unit_stem(key, us) {
-            map.remove(&format!("{stem}_{si}"));
+            with_unit_key(stem, si, |twin| map.remove(twin));
         }
     }
     for (first, second) in ALTERNATE_KEYS {
