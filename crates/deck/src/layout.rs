@@ -28,7 +28,7 @@ use framing::framing_lines;
 use geometry::{bounds, validate_polygon, MIN_PIECE_M};
 use lines::{grid_lines, plane_frame, GridLine, PlaneFrame};
 use pieces::PieceCutter;
-use zones::{zone_pieces, JoinedZones, LineStrip, ZoneShapes};
+use zones::{zone_pieces_with, JoinedZones, LineStrip, ZoneShapes, ZoneWork};
 
 /// One roof plane in plan.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
@@ -331,6 +331,7 @@ pub fn layout_deck_with(
 ) -> Result<DeckLayout, SpacingError> {
     validate(planes, zones, zone_rank, framing, panel)?;
     let mut cache = BearingWork::default();
+    let mut zone_work = ZoneWork::default();
     let joined_zones = JoinedZones::new(zones);
     let zone_shapes = ZoneShapes::new(&joined_zones, zone_rank);
     let mut lines = Vec::new();
@@ -402,6 +403,7 @@ pub fn layout_deck_with(
                 framing,
                 &plane_zones,
                 &mut cache,
+                &mut zone_work,
                 &mut notes,
             )?);
         }
@@ -488,6 +490,7 @@ fn lay_out_line(
     framing: &FramingInput,
     zones: &ZoneShapes<'_>,
     cache: &mut BearingWork,
+    zone_work: &mut ZoneWork,
     notes: &mut Vec<(usize, LayoutChange)>,
 ) -> Result<LayoutLine, SpacingError> {
     let frame = context.frame;
@@ -515,7 +518,8 @@ fn lay_out_line(
     };
     let mut zone_list = Vec::new();
     for interval in &grid_line.intervals_m {
-        for piece in zone_pieces(strip, *interval, zones)? {
+        zone_pieces_with(strip, *interval, zones, zone_work)?;
+        for piece in &zone_work.pieces {
             let a = frame.slope_from_low_edge_m(piece.from_m) - start_m;
             let b = frame.slope_from_low_edge_m(piece.to_m) - start_m;
             zone_list.push(ZonePiece {

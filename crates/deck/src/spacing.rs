@@ -325,7 +325,15 @@ impl<'u> LoadCache<'u> {
         }
         let mut widest = None;
         for &spacing_mm in allowed {
-            let load = self.load(zone_index, reaction_width_mm, spacing_mm)?;
+            // Not kept: each (zone, width) is walked once (the answer is kept), so these loads would
+            // never be asked for again but at the pattern, which the plan looks up itself.
+            let load = nail_load(
+                self.uplift,
+                self.rules,
+                zone_index,
+                reaction_width_mm,
+                spacing_mm,
+            )?;
             if load.demand_n <= resistance_n * (1.0 + 1e-12) {
                 widest = Some(spacing_mm);
                 break;
@@ -569,15 +577,24 @@ fn plan_or_check(
         }
         patterns.push((*key, Some(allowed(key.1).widest_mm())));
     }
+    // Each segment's place in `keys` (and `patterns`), looked up once for the three passes below.
+    let key_at: Vec<Option<usize>> = lines
+        .iter()
+        .flat_map(|line| &line.segments)
+        .map(|s| keys.binary_search(&(s.zone_index, s.support_role)).ok())
+        .collect();
     if given.is_none() {
         // One pass over the segments (keys are sorted): each narrows its zone and role's pattern.
-        for segment in lines
+        let mut at_of = key_at.iter();
+        for (line, segment) in lines
             .iter()
-            .filter(|line| line.kind != LineKind::Blocking)
-            .flat_map(|l| &l.segments)
+            .flat_map(|line| line.segments.iter().map(move |s| (line, s)))
         {
-            let key = (segment.zone_index, segment.support_role);
-            if let Ok(at) = patterns.binary_search_by(|(k, _)| k.cmp(&key)) {
+            let at = at_of.next().copied().flatten();
+            if line.kind == LineKind::Blocking {
+                continue;
+            }
+            if let Some(at) = at {
                 let pattern = &mut patterns[at].1;
                 *pattern = match (*pattern, segment.required_spacing_mm) {
                     (Some(current), Some(required)) => Some(current.min(required)),
@@ -592,6 +609,7 @@ fn plan_or_check(
             .ok()
             .and_then(|at| patterns[at].1)
     };
+    let pattern_at = |at: Option<usize>| at.and_then(|at| patterns[at].1);
     // Blocking in a zone with no panel edge on the framing takes the closest panel-edge pattern of the
     // roof (the severe reading); none when any panel-edge pattern has no working spacing.
     let closest_edge: Option<f64> = patterns
@@ -616,14 +634,15 @@ fn plan_or_check(
 
     // Pass 3: each segment at its pattern: load, utilization, nail count.
     let mut total_nail_count = 0u64;
+    let mut at_of = key_at.iter();
     for line in &mut lines {
         let is_blocking = line.kind == LineKind::Blocking;
         for segment in &mut line.segments {
-            let key = (segment.zone_index, segment.support_role);
+            let at = at_of.next().copied().flatten();
             let pattern = if is_blocking {
                 blocking_pattern(segment.zone_index)
             } else {
-                pattern_for(key)
+                pattern_at(at)
             };
             // No working spacing: report the load at the closest allowed increment.
             let checked_at_mm = pattern.unwrap_or(allowed(segment.support_role).closest_mm());
@@ -652,10 +671,10 @@ fn plan_or_check(
             nail_count: 0,
         })
         .collect();
+    let mut at_of = key_at.iter();
     for line in &lines {
         for segment in &line.segments {
-            let key = (segment.zone_index, segment.support_role);
-            let Ok(at) = keys.binary_search(&key) else {
+            let Some(at) = at_of.next().copied().flatten() else {
                 continue;
             };
             let tally = &mut tallies[at];

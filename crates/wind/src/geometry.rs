@@ -60,8 +60,17 @@ fn side_of_line(point: &Point, normal: Point, offset: f64) -> f64 {
 /// polygon there gives the polygon itself and nothing (the common case when a zone layout cuts many
 /// pieces by each of its lines, which a caller can then skip).
 pub fn wholly_on_one_side(polygon: &[Point], normal: Point, offset: f64) -> bool {
-    let side = |p: &Point| side_of_line(p, normal, offset);
-    polygon.iter().all(|p| side(p) < 0.0) || polygon.iter().all(|p| side(p) > 0.0)
+    // One pass: every side strictly negative, or every side strictly positive (a NaN is neither).
+    let (mut all_below, mut all_above) = (true, true);
+    for p in polygon {
+        let side = side_of_line(p, normal, offset);
+        all_below &= side < 0.0;
+        all_above &= side > 0.0;
+        if !(all_below || all_above) {
+            return false;
+        }
+    }
+    true
 }
 
 /// Splits a convex polygon by the line `normal · p = offset` into (below, above) parts.

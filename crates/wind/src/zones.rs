@@ -142,12 +142,13 @@ fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<
 }
 
 pub(crate) fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
-    for (normal, offset) in lines {
+    for (line_index, (normal, offset)) in lines.iter().enumerate() {
         let mut next = Vec::with_capacity(pieces.len() * 2);
         for piece in pieces {
-            // Most lines miss most pieces: keep such a piece as it is (the split would copy it).
+            // Most lines miss most pieces: keep such a piece as it is (the split would copy it). Its
+            // size was checked when the last line made it; the given pieces are checked at the first.
             if wholly_on_one_side(&piece, *normal, *offset) {
-                if piece.len() >= 3 && area_m2(&piece) > SLIVER_M2 {
+                if line_index > 0 || (piece.len() >= 3 && area_m2(&piece) > SLIVER_M2) {
                     next.push(piece);
                 }
                 continue;

@@ -11,7 +11,7 @@ use std::collections::HashMap;
 use crate::fast_hash::BuildFastHasher;
 
 use super::changes::LayoutChange;
-use super::geometry::{section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
+use super::geometry::{round_i64, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
@@ -29,7 +29,7 @@ pub(crate) struct StripCache {
 
 fn to_key(length_m: f64) -> i64 {
     // Lengths are at most a few tens of metres here; 0.1 nm steps fit easily in an i64.
-    (length_m * 1e10).round() as i64
+    round_i64(length_m * 1e10)
 }
 
 fn from_key(key: i64) -> f64 {

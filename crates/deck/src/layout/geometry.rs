@@ -110,23 +110,37 @@ fn is_oblique(along_m: f64, across_m: f64) -> bool {
 /// just either side of it, so a line on an outer edge or along an inner edge keeps the deck it
 /// carries. Intervals shorter than [`MIN_PIECE_M`] are dropped.
 pub(crate) fn line_intervals(polygon: &[[f64; 2]], run: Axis, at: f64) -> Vec<[f64; 2]> {
-    let mut all: Vec<[f64; 2]> = section(polygon, run, at - SIDE_NUDGE_M)
-        .into_iter()
-        .chain(section(polygon, run, at + SIDE_NUDGE_M))
-        .map(|s| [s.lo, s.hi])
-        .collect();
+    line_intervals_with(polygon, run, at, &mut SectionScratch::default())
+}
+
+/// [`line_intervals`] with the caller's section buffers (the lines of a plane are set out one after
+/// another).
+pub(crate) fn line_intervals_with(
+    polygon: &[[f64; 2]],
+    run: Axis,
+    at: f64,
+    scratch: &mut SectionScratch,
+) -> Vec<[f64; 2]> {
+    let mut all: Vec<[f64; 2]> = Vec::with_capacity(4);
+    for side in [at - SIDE_NUDGE_M, at + SIDE_NUDGE_M] {
+        section_into(polygon, run, side, scratch);
+        all.extend(scratch.stretches.iter().map(|s| [s.lo, s.hi]));
+    }
     all.sort_by(|p, q| p[0].total_cmp(&q[0]));
-    let mut merged: Vec<[f64; 2]> = Vec::new();
-    for interval in all {
-        match merged.last_mut() {
-            Some(last) if interval[0] <= last[1] + SAME_POSITION_M => {
-                last[1] = last[1].max(interval[1])
-            }
-            _ => merged.push(interval),
+    // Merged in place: `merged` intervals are kept at the front.
+    let mut merged = 0;
+    for i in 0..all.len() {
+        let interval = all[i];
+        if merged > 0 && interval[0] <= all[merged - 1][1] + SAME_POSITION_M {
+            all[merged - 1][1] = all[merged - 1][1].max(interval[1]);
+        } else {
+            all[merged] = interval;
+            merged += 1;
         }
     }
-    merged.retain(|i| i[1] - i[0] >= MIN_PIECE_M);
-    merged
+    all.truncate(merged);
+    all.retain(|i| i[1] - i[0] >= MIN_PIECE_M);
+    all
 }
 
 /// Along-`run` coordinates where the edges of `polygon` cross the line along `run` at `at`.
@@ -165,6 +179,25 @@ pub(crate) fn sort_total(values: &mut [f64], keys: &mut Vec<i64>) {
     keys.sort_unstable();
     for (value, key) in values.iter_mut().zip(keys.iter()) {
         *value = f64::from_bits(flip(*key) as u64);
+    }
+}
+
+/// `value.round() as i64` without `round`'s library call (a roof rounds thousands of lengths into
+/// cache keys): the truncation is one instruction, and the fraction left is exact below 2^52. For
+/// values of any size the layout meets (keys of lengths in 0.1 nm steps reach 1e12).
+pub(crate) fn round_i64(value: f64) -> i64 {
+    // Larger, infinite or NaN: the library call (no fraction is left to round above 2^52 anyway).
+    if value.is_nan() || value.abs() >= 4.0e15 {
+        return value.round() as i64;
+    }
+    let whole = value as i64;
+    let fraction = value - whole as f64;
+    if fraction >= 0.5 {
+        whole + 1
+    } else if fraction <= -0.5 {
+        whole - 1
+    } else {
+        whole
     }
 }
 
@@ -225,6 +258,35 @@ mod tests {
     use approx::assert_relative_eq;
 
     const RECTANGLE: [[f64; 2]; 4] = [[0.0, 0.0], [4.0, 0.0], [4.0, 2.0], [0.0, 2.0]];
+
+    #[test]
+    fn round_i64_rounds_as_round_does() {
+        let just_under_half = 0.5 - f64::EPSILON / 4.0;
+        for value in [
+            0.0,
+            -0.0,
+            just_under_half,
+            -just_under_half,
+            0.5,
+            -0.5,
+            1.5,
+            2.5,
+            -2.5,
+            1e12 + 0.5,
+            -1e12 - 0.5,
+            123_456_789.499_999_99,
+            4_503_599_627_370_495.5,
+            1e20,
+            -1e20,
+            f64::NAN,
+        ] {
+            assert_eq!(round_i64(value), value.round() as i64, "{value}");
+        }
+        for i in 0..20_000 {
+            let value = (f64::from(i) - 10_000.0) * 0.173_205_080_756_887_7 * 1e6;
+            assert_eq!(round_i64(value), value.round() as i64, "{value}");
+        }
+    }
 
     #[test]
     fn sort_total_gives_total_cmps_order() {

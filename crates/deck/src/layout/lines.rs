@@ -1,6 +1,8 @@
 //! Framing lines of one roof plane: their direction, positions and extent on the slope.
 
-use super::geometry::{bounds, line_intervals, section, SAME_POSITION_M};
+use super::geometry::{
+    bounds, line_intervals, line_intervals_with, section_into, SectionScratch, SAME_POSITION_M,
+};
 use super::{Axis, FramingInput, LineKind, PlaneGeometry};
 use crate::error::SpacingError;
 
@@ -187,10 +189,12 @@ pub(crate) fn grid_lines(
     }
     positions.sort_by(|a, b| a.0.total_cmp(&b.0));
 
+    let mut scratch = SectionScratch::default();
     Ok(positions
         .into_iter()
         .filter_map(|(position_m, kind)| {
-            let intervals_m = line_intervals(&plane.polygon_m, frame.run, position_m);
+            let intervals_m =
+                line_intervals_with(&plane.polygon_m, frame.run, position_m, &mut scratch);
             let over_building: f64 = intervals_m
                 .iter()
                 .map(|i| (i[1].min(along_walls[1]) - i[0].max(along_walls[0])).max(0.0))
@@ -199,7 +203,7 @@ pub(crate) fn grid_lines(
                 return None;
             }
             let kind = if kind == LineKind::Common
-                && ends_on_oblique_edge(&plane.polygon_m, frame.run, position_m)
+                && ends_on_oblique_edge(&plane.polygon_m, frame.run, position_m, &mut scratch)
             {
                 LineKind::Jack
             } else {
@@ -215,8 +219,15 @@ pub(crate) fn grid_lines(
 }
 
 /// The line at `position_m` ends on an oblique edge of the polygon (a hip or valley).
-fn ends_on_oblique_edge(polygon: &[[f64; 2]], run: Axis, position_m: f64) -> bool {
-    section(polygon, run, position_m)
+fn ends_on_oblique_edge(
+    polygon: &[[f64; 2]],
+    run: Axis,
+    position_m: f64,
+    scratch: &mut SectionScratch,
+) -> bool {
+    section_into(polygon, run, position_m, scratch);
+    scratch
+        .stretches
         .iter()
         .any(|stretch| stretch.lo_oblique || stretch.hi_oblique)
 }

@@ -10,6 +10,7 @@
 
 use std::collections::HashMap;
 
+use super::geometry::round_i64;
 use crate::fast_hash::BuildFastHasher;
 
 type Point = [f64; 2];
@@ -23,14 +24,11 @@ const STRAIGHT_SINE: f64 = 1e-12;
 type Key = (i64, i64);
 
 fn key(point: Point) -> Key {
-    // Rounded half away from zero, as `f64::round`, without its library call (which was most of the
-    // joining's time). Rounding, not truncation: a round figure and the same figure a bit below it
-    // fall in one bucket.
-    let snapped = |v: f64| {
-        let scaled = v * (1.0 / SNAP_M);
-        (scaled + 0.5f64.copysign(scaled)) as i64
-    };
-    (snapped(point[0]), snapped(point[1]))
+    // Rounding, not truncation: a round figure and the same figure a bit below it fall in one bucket.
+    (
+        round_i64(point[0] * (1.0 / SNAP_M)),
+        round_i64(point[1] * (1.0 / SNAP_M)),
+    )
 }
 
 /// Which piece has an edge, by the edge's [`edge_id`]. An id two edges share only costs a join
@@ -120,13 +118,17 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         if turn[index] == 0 {
             continue;
         }
-        while let Some((other, union)) = next_join(&pieces, &turn, &edges, index) {
-            for (a, b) in union.edge_keys() {
+        // Edges before `from` have been tried and cannot join: a join changes only the turns at its
+        // own two ends, and the scan goes on from the edge that ends at the first of them.
+        let mut from = 0;
+        while let Some(found) = next_join(&pieces, &turn, &edges, index, from) {
+            for (a, b) in found.union.edge_keys() {
                 edges.insert(edge_id(a, b), index);
             }
-            pieces[index] = Some(union);
-            pieces[other] = None;
+            pieces[index] = Some(found.union);
+            pieces[found.other] = None;
             joined[index] = true;
+            from = found.resume_at;
         }
     }
     pieces
@@ -145,24 +147,42 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         .collect()
 }
 
-/// The first neighbour of piece `index` that joins it convexly, and the joined piece.
+/// A join found: the neighbour absorbed, the joined piece, and the first of its edges that may join
+/// next.
+struct Join {
+    other: usize,
+    union: Piece,
+    resume_at: usize,
+}
+
+/// The first neighbour of piece `index`, along its edges from edge `from`, that joins it convexly.
 fn next_join(
     pieces: &[Option<Piece>],
     turn: &[i8],
     edges: &EdgeMap,
     index: usize,
-) -> Option<(usize, Piece)> {
+    from: usize,
+) -> Option<Join> {
     let piece = pieces[index].as_ref()?;
-    piece.edge_keys().enumerate().find_map(|(at_a, (a, b))| {
-        let other = *edges.get(&edge_id(b, a))?;
-        if other == index || turn[other] != turn[index] {
-            return None;
-        }
-        let neighbour = pieces[other].as_ref()?;
-        let at_b_there = (0..neighbour.len())
-            .find(|&i| neighbour.keys[i] == b && neighbour.keys[(i + 1) % neighbour.len()] == a)?;
-        join(piece, at_a, neighbour, at_b_there, turn[index]).map(|union| (other, union))
-    })
+    piece
+        .edge_keys()
+        .enumerate()
+        .skip(from)
+        .find_map(|(at_a, (a, b))| {
+            let other = *edges.get(&edge_id(b, a))?;
+            if other == index || turn[other] != turn[index] {
+                return None;
+            }
+            let neighbour = pieces[other].as_ref()?;
+            let at_b_there = (0..neighbour.len()).find(|&i| {
+                neighbour.keys[i] == b && neighbour.keys[(i + 1) % neighbour.len()] == a
+            })?;
+            join(piece, at_a, neighbour, at_b_there, turn[index]).map(|(union, resume_at)| Join {
+                other,
+                union,
+                resume_at,
+            })
+        })
 }
 
 /// How the path `p -> q -> r` turns at `q`: `Some(true)` straight, `Some(false)` the way `turn`
@@ -182,41 +202,43 @@ fn turn_at(p: Point, q: Point, r: Point, turn: i8) -> Option<bool> {
     }
 }
 
-/// +1 for a convex counter-clockwise polygon, -1 for a convex clockwise one, 0 otherwise (a
-/// reflex turn, or fewer than three points).
+/// +1 for a convex counter-clockwise polygon, -1 for a convex clockwise one, 0 otherwise (turns both
+/// ways, no turn at all, or fewer than three points).
 fn convex_turn(polygon: &[Point]) -> i8 {
     let count = polygon.len();
     if count < 3 {
         return 0;
     }
-    for turn in [1, -1] {
-        let mut turned = false;
-        let mut convex = true;
-        for i in 0..count {
-            let next = |k: usize| polygon[(i + k) % count];
-            match turn_at(polygon[i], next(1), next(2), turn) {
-                Some(straight) => turned |= !straight,
-                None => convex = false,
-            }
+    let (mut left, mut right) = (false, false);
+    let (mut p, mut q) = (polygon[count - 2], polygon[count - 1]);
+    for &r in polygon {
+        match turn_at(p, q, r, 1) {
+            Some(true) => {}
+            Some(false) => left = true,
+            None => right = true,
         }
-        if convex && turned {
-            return turn;
-        }
+        (p, q) = (q, r);
     }
-    0
+    match (left, right) {
+        (true, false) => 1,
+        (false, true) => -1,
+        _ => 0,
+    }
 }
 
 /// The union of `piece` and `neighbour`, which share the edge from vertex `at_a` of `piece` (`a`
-/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex. Both are
-/// convex with the same orientation, so only the turns at `a` and `b` can spoil it; either is
-/// dropped where the join runs straight through it.
+/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex, and the index
+/// of its edge that ends at `a`'s place. Both are convex with the same orientation, so only the turns
+/// at `a` and `b` can spoil it; either is dropped where the join runs straight through it. The
+/// neighbour's vertices are spliced in where the shared edge was, so the piece's earlier edges keep
+/// their places.
 fn join(
     piece: &Piece,
     at_a: usize,
     neighbour: &Piece,
     at_b_there: usize,
     turn: i8,
-) -> Option<Piece> {
+) -> Option<(Piece, usize)> {
     let (count, other_count) = (piece.len(), neighbour.len());
     let a = piece.at(at_a);
     let b = piece.at(at_a + 1);
@@ -232,15 +254,18 @@ fn join(
         piece.at(at_a + 2),
         turn,
     )?;
-    // This piece from past b round to before a, a, the neighbour from past a round to before b, b.
     let mut points: Vec<Point> = Vec::with_capacity(count + other_count - 2);
     let mut keys: Vec<Key> = Vec::with_capacity(count + other_count - 2);
     let mut push = |from: &Piece, i: usize| {
         points.push(from.at(i));
         keys.push(from.keys[i % from.len()]);
     };
-    for step in 2..count {
-        push(piece, at_a + step);
+    let wraps = at_a + 1 == count;
+    // The piece up to before a (for the last edge, from past b: b is its first vertex), a, the
+    // neighbour from past a round to before b, b, and the rest of the piece.
+    let before_a = if wraps { 1..at_a } else { 0..at_a };
+    for i in before_a.clone() {
+        push(piece, i);
     }
     if !straight_at_a {
         push(piece, at_a);
@@ -251,8 +276,15 @@ fn join(
     if !straight_at_b {
         push(piece, at_a + 1);
     }
+    if !wraps {
+        for i in at_a + 2..count {
+            push(piece, i);
+        }
+    }
     // The whole ring is checked once more: a repeated vertex the snapping missed would hide a turn.
-    (points.len() >= 3 && convex_turn(&points) == turn).then_some(Piece { points, keys })
+    let resume_at = before_a.len().saturating_sub(1);
+    (points.len() >= 3 && convex_turn(&points) == turn)
+        .then_some((Piece { points, keys }, resume_at))
 }
 
 #[cfg(test)]

@@ -104,16 +104,52 @@ impl<'a> ZoneShapes<'a> {
     }
 }
 
+/// Buffers for [`zone_pieces_with`], kept across the lines of a layout (a roof splits some sixty
+/// lines; fresh vectors for each were a sixth of the split's time).
+#[derive(Debug, Default)]
+pub(crate) struct ZoneWork {
+    /// Indices into the shapes of the ones the strip can meet.
+    candidates: Vec<usize>,
+    breaks: Vec<f64>,
+    keys: Vec<i64>,
+    kept: Vec<f64>,
+    window: Vec<[f64; 2]>,
+    scratch: SectionScratch,
+    /// The result of the last [`zone_pieces_with`].
+    pub pieces: Vec<PlanZonePiece>,
+}
+
 /// Splits the plan interval `along_m` of a line into pieces by governing zone.
-///
-/// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices and
-/// crossings of the strip's two sides. Between breakpoints the touched set is constant and is found
-/// by sectioning across the strip at the middle.
 pub(crate) fn zone_pieces(
     line: LineStrip<'_>,
     along_m: [f64; 2],
     zones: &ZoneShapes<'_>,
 ) -> Result<Vec<PlanZonePiece>, SpacingError> {
+    let mut work = ZoneWork::default();
+    zone_pieces_with(line, along_m, zones, &mut work)?;
+    Ok(work.pieces)
+}
+
+/// [`zone_pieces`] into `work.pieces`, reusing the buffers.
+///
+/// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices and
+/// crossings of the strip's two sides. Between breakpoints the touched set is constant and is found
+/// by sectioning across the strip at the middle.
+pub(crate) fn zone_pieces_with(
+    line: LineStrip<'_>,
+    along_m: [f64; 2],
+    zones: &ZoneShapes<'_>,
+    work: &mut ZoneWork,
+) -> Result<(), SpacingError> {
+    let ZoneWork {
+        candidates,
+        breaks,
+        keys,
+        kept,
+        window,
+        scratch,
+        pieces,
+    } = work;
     let strip = [
         line.position_m - line.half_width_m,
         line.position_m + line.half_width_m,
@@ -123,24 +159,23 @@ pub(crate) fn zone_pieces(
     let overlaps = |[lo, hi]: [[f64; 2]; 2]| {
         lo[k] <= strip[1] && hi[k] >= strip[0] && lo[r] <= along_m[1] && hi[r] >= along_m[0]
     };
-    let candidates: Vec<ZoneShape<'_>> = zones
-        .shapes
-        .iter()
-        .filter(|shape| overlaps(shape.bounds))
-        .copied()
-        .collect();
+    candidates.clear();
+    candidates.extend(
+        zones
+            .shapes
+            .iter()
+            .enumerate()
+            .filter(|(_, shape)| overlaps(shape.bounds))
+            .map(|(index, _)| index),
+    );
+    let shape = |index: &usize| &zones.shapes[*index];
 
-    // Room for every vertex and every edge's crossing of either side of the strip.
-    let vertex_count: usize = candidates
-        .iter()
-        .map(|shape| shape.polygon.len())
-        .sum::<usize>()
-        + line.plane_polygon_m.len();
-    let mut breaks = Vec::with_capacity(2 + 3 * vertex_count);
+    // Every vertex and every edge's crossing of either side of the strip.
+    breaks.clear();
     breaks.extend(along_m);
     for polygon in candidates
         .iter()
-        .map(|shape| shape.polygon)
+        .map(|index| shape(index).polygon)
         .chain([line.plane_polygon_m])
     {
         breaks.extend(polygon.iter().map(|p| p[r]));
@@ -149,10 +184,9 @@ pub(crate) fn zone_pieces(
         }
     }
     breaks.retain(|b| *b >= along_m[0] && *b <= along_m[1]);
-    let mut keys = Vec::with_capacity(breaks.len());
-    sort_total(&mut breaks, &mut keys);
-    let mut kept: Vec<f64> = Vec::with_capacity(breaks.len());
-    for b in breaks {
+    sort_total(breaks, keys);
+    kept.clear();
+    for b in breaks.iter().copied() {
         if kept.last().is_none_or(|last| b - last >= MIN_PIECE_M) {
             kept.push(b);
         }
@@ -162,12 +196,10 @@ pub(crate) fn zone_pieces(
         *last = along_m[1];
     }
 
-    let mut pieces: Vec<PlanZonePiece> = Vec::new();
-    let mut scratch = SectionScratch::default();
-    let mut window: Vec<[f64; 2]> = Vec::new();
+    pieces.clear();
     for pair in kept.windows(2) {
         let middle = 0.5 * (pair[0] + pair[1]);
-        section_into(line.plane_polygon_m, line.run.other(), middle, &mut scratch);
+        section_into(line.plane_polygon_m, line.run.other(), middle, scratch);
         window.clear();
         window.extend(
             scratch
@@ -177,7 +209,7 @@ pub(crate) fn zone_pieces(
                 .filter(|w| w[1] > w[0]),
         );
         let mut worst: Option<(u32, bool, usize)> = None;
-        for shape in &candidates {
+        for shape in candidates.iter().map(shape) {
             // Worst zone first: a lower rank than the one found cannot govern.
             if worst.is_some_and(|(best_rank, _, _)| shape.rank < best_rank) {
                 break;
@@ -188,7 +220,7 @@ pub(crate) fn zone_pieces(
             if !(lo[r] < middle && middle <= hi[r]) {
                 continue;
             }
-            section_into(shape.polygon, line.run.other(), middle, &mut scratch);
+            section_into(shape.polygon, line.run.other(), middle, scratch);
             let stretches = &scratch.stretches;
             let touched = stretches.iter().any(|s| {
                 window
@@ -238,7 +270,7 @@ pub(crate) fn zone_pieces(
             }),
         }
     }
-    Ok(pieces)
+    Ok(())
 }
 
 #[cfg(test)]
