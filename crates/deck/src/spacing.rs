@@ -396,6 +396,33 @@ pub fn holds_on_layout(
 ) -> Result<bool, SpacingError> {
     let increments = RoleIncrements::new(nail, rules)?;
     let mut cache = LoadCache::new(uplift, rules);
+    holds_with(layout, nail, &increments, &mut cache)
+}
+
+/// The plan of [`plan_on_layout`] when the nail holds everywhere ([`holds_on_layout`]), None when it
+/// does not: the plan reuses what the check worked out (each stretch's widest holding increment),
+/// so a nail that holds is walked once for the check and once cheaply for its plan.
+pub fn plan_if_it_holds(
+    layout: &DeckLayout,
+    uplift: &UpliftFn<'_>,
+    nail: &NailOption,
+    rules: &SpacingRules,
+) -> Result<Option<DeckPlan>, SpacingError> {
+    let increments = RoleIncrements::new(nail, rules)?;
+    let mut cache = LoadCache::new(uplift, rules);
+    if !holds_with(layout, nail, &increments, &mut cache)? {
+        return Ok(None);
+    }
+    plan_with(layout, nail, &increments, &mut cache, None).map(Some)
+}
+
+/// [`holds_on_layout`] with the caller's increments and cache.
+fn holds_with(
+    layout: &DeckLayout,
+    nail: &NailOption,
+    increments: &RoleIncrements,
+    cache: &mut LoadCache<'_>,
+) -> Result<bool, SpacingError> {
     // Blocking is not sized (it takes its zone's panel-edge pattern): it cannot fail a plan.
     for line in layout.lines.iter().filter(|l| l.kind != LineKind::Blocking) {
         for bearing in &line.bearings {
@@ -479,9 +506,20 @@ fn plan_or_check(
     given: Option<&PatternFn<'_>>,
 ) -> Result<DeckPlan, SpacingError> {
     let increments = RoleIncrements::new(nail, rules)?;
-    let allowed = |role: SupportRole| increments.for_role(role);
-
     let mut cache = LoadCache::new(uplift, rules);
+    plan_with(layout, nail, &increments, &mut cache, given)
+}
+
+/// [`plan_or_check`] with the caller's increments and cache (the cache is a pure memo: a filled one
+/// gives the same plan as an empty one).
+fn plan_with(
+    layout: &DeckLayout,
+    nail: &NailOption,
+    increments: &RoleIncrements,
+    cache: &mut LoadCache<'_>,
+    given: Option<&PatternFn<'_>>,
+) -> Result<DeckPlan, SpacingError> {
+    let allowed = |role: SupportRole| increments.for_role(role);
 
     // Pass 1: the segments and what each alone needs.
     let mut lines = Vec::with_capacity(layout.lines.len());

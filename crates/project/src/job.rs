@@ -11,7 +11,7 @@ use deckhold_deck::layout::{
     layout_deck_with, Axis, DeckLayout, FramingInput, LayoutDetail, PanelInput, PlaneGeometry,
     Stagger, ZoneRegion,
 };
-use deckhold_deck::spacing::{holds_on_layout, plan_on_layout, DeckPlan, NailOption, SpacingRules};
+use deckhold_deck::spacing::{plan_on_layout, DeckPlan, NailOption, SpacingRules};
 use deckhold_fasten::{
     DeckLayer, Grain, LoadDuration, MemberKind, Nail, Resistance, ResistanceInput, Service,
 };
@@ -366,18 +366,25 @@ fn work_nail(
             })
         }
     };
-    if planned == Planned::WhenItHolds
-        && !holds_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?
-    {
-        return Ok(NailOutcome {
-            nail,
-            penetration_mm,
-            resistance: Ok(resistance),
-            plan: None,
-            feasible: false,
-        });
-    }
-    let plan = plan_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?;
+    let plan = match planned {
+        Planned::Always => {
+            plan_with_resistance(wind, layout, &nail, resistance.governing_n, rules)?
+        }
+        Planned::WhenItHolds => {
+            match plan_if_it_holds(wind, layout, &nail, resistance.governing_n, rules)? {
+                Some(plan) => plan,
+                None => {
+                    return Ok(NailOutcome {
+                        nail,
+                        penetration_mm,
+                        resistance: Ok(resistance),
+                        plan: None,
+                        feasible: false,
+                    })
+                }
+            }
+        }
+    };
     let feasible = plan.zone_roles.iter().all(|role| role.spacing_mm.is_some());
     Ok(NailOutcome {
         nail,
@@ -398,17 +405,17 @@ pub(crate) fn net_uplift_kpa(
         .map_err(|error| error.to_string())
 }
 
-/// Whether one nail of known factored resistance holds everywhere on the project's layout (the plan's
-/// feasibility, without the plan).
-fn holds_with_resistance(
+/// The plan of one nail of known factored resistance when it holds everywhere on the project's
+/// layout, None when it does not (found without building the plan).
+fn plan_if_it_holds(
     wind: &WindAnalysis,
     layout: &DeckLayout,
     nail: &Nail,
     resistance_n: f64,
     rules: &SpacingRules,
-) -> Result<bool, JobError> {
+) -> Result<Option<DeckPlan>, JobError> {
     let uplift = |zone_index: usize, area_m2: f64| net_uplift_kpa(wind, zone_index, area_m2);
-    Ok(holds_on_layout(
+    Ok(deckhold_deck::spacing::plan_if_it_holds(
         layout,
         &uplift,
         &nail_option(nail, resistance_n),

@@ -63,17 +63,29 @@ pub(crate) struct SectionScratch {
 
 /// [`section`] into `scratch.stretches`, reusing its buffers.
 pub(crate) fn section_into(polygon: &[[f64; 2]], run: Axis, at: f64, scratch: &mut SectionScratch) {
-    let r = run.index();
-    let k = run.other().index();
+    // One copy per axis, the coordinate indices constants: the layout sections polygons some
+    // thousand times a roof, and indexing by a variable cost about a tenth of its instructions.
+    match run {
+        Axis::X => section_along::<0, 1>(polygon, at, scratch),
+        Axis::Y => section_along::<1, 0>(polygon, at, scratch),
+    }
+}
+
+/// [`section_into`] for a line along coordinate `R` at the constant coordinate `K` = `at`.
+fn section_along<const R: usize, const K: usize>(
+    polygon: &[[f64; 2]],
+    at: f64,
+    scratch: &mut SectionScratch,
+) {
     let hits = &mut scratch.hits;
     hits.clear();
     // Every edge crosses at most once: room for all of them, no growing on the way.
     hits.reserve(polygon.len());
     for (a, b) in edges(polygon) {
-        if (a[k] < at) != (b[k] < at) {
-            let t = (at - a[k]) / (b[k] - a[k]);
-            let along = a[r] + t * (b[r] - a[r]);
-            hits.push((along, is_oblique(b[r] - a[r], b[k] - a[k])));
+        if (a[K] < at) != (b[K] < at) {
+            let t = (at - a[K]) / (b[K] - a[K]);
+            let along = a[R] + t * (b[R] - a[R]);
+            hits.push((along, is_oblique(b[R] - a[R], b[K] - a[K])));
         }
     }
     // Two hits (any convex polygon) need at most a swap; the stable sort for more gives the same

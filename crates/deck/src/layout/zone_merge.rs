@@ -44,73 +44,91 @@ fn edge_id(a: Key, b: Key) -> u64 {
         ^ mix(b.1, 0x27d4_eb2f_1656_67c5).rotate_left(43)
 }
 
-/// A piece's vertices with their snapped keys.
-#[derive(Debug, Clone)]
-struct Piece {
+/// The most vertices a joined piece keeps; a join that would make more is not made (the pieces stay
+/// as they are, which is only slower). Fixed, so that pieces and joins allocate nothing.
+const MOST_VERTICES: usize = 32;
+
+/// Every vertex of the zone's pieces, once each as a piece gave it: the pieces hold indices.
+#[derive(Debug, Default)]
+struct Vertices {
     points: Vec<Point>,
     keys: Vec<Key>,
 }
 
+/// A piece as indices into [`Vertices`], in ring order.
+#[derive(Debug, Clone, Copy)]
+struct Piece {
+    len: usize,
+    at: [u32; MOST_VERTICES],
+}
+
 impl Piece {
-    /// The polygon with each run of vertices that snap to one point kept as its first: the cuts
-    /// leave repeated vertices (a point met twice, a few bits apart), and every edge here needs two
-    /// distinct ends.
-    fn new(polygon: &[Point]) -> Self {
+    /// The polygon's vertices added to `vertices`, each run that snaps to one point kept as its first:
+    /// the cuts leave repeated vertices (a point met twice, a few bits apart), and every edge here
+    /// needs two distinct ends. None for a polygon of more than [`MOST_VERTICES`] points.
+    fn new(polygon: &[Point], vertices: &mut Vertices) -> Option<Self> {
+        if polygon.len() > MOST_VERTICES {
+            return None;
+        }
         let mut piece = Piece {
-            points: Vec::with_capacity(polygon.len()),
-            keys: Vec::with_capacity(polygon.len()),
+            len: 0,
+            at: [0; MOST_VERTICES],
         };
+        let mut last: Option<Key> = None;
         for point in polygon {
             let k = key(*point);
-            if piece.keys.last() != Some(&k) {
-                piece.points.push(*point);
-                piece.keys.push(k);
+            if last != Some(k) {
+                piece.at[piece.len] = vertices.points.len() as u32;
+                piece.len += 1;
+                vertices.points.push(*point);
+                vertices.keys.push(k);
+                last = Some(k);
             }
         }
-        while piece.keys.len() > 1 && piece.keys.first() == piece.keys.last() {
-            piece.points.pop();
-            piece.keys.pop();
+        while piece.len > 1 && last == Some(vertices.keys[piece.at[0] as usize]) {
+            piece.len -= 1;
+            last = Some(vertices.keys[piece.at[piece.len - 1] as usize]);
         }
-        piece
+        Some(piece)
     }
 
-    fn len(&self) -> usize {
-        self.points.len()
-    }
-
-    /// Vertex `i`, counted round the ring.
-    fn at(&self, i: usize) -> Point {
-        self.points[i % self.points.len()]
-    }
-
-    /// The edges as key pairs, the last back to the first.
-    fn edge_keys(&self) -> impl Iterator<Item = (Key, Key)> + '_ {
-        let count = self.keys.len();
-        (0..count).map(move |i| {
-            (
-                self.keys[i],
-                self.keys[if i + 1 == count { 0 } else { i + 1 }],
-            )
-        })
+    /// Index of vertex `i`, counted round the ring once at most (`i < 2 * len`): a subtraction, not
+    /// a division, as every caller steps at most a ring ahead.
+    fn vertex(&self, i: usize) -> usize {
+        debug_assert!(i < 2 * self.len);
+        let i = if i >= self.len { i - self.len } else { i };
+        self.at[i] as usize
     }
 }
 
 /// The zone's polygons with every convex join made. Non-convex polygons and polygons of the other
 /// orientation are kept as given, and so is every polygon joined to none.
 pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
-    let mut pieces: Vec<Option<Piece>> = polygons.iter().map(|p| Some(Piece::new(p))).collect();
+    let mut vertices = Vertices::default();
+    let vertex_count = polygons.iter().map(Vec::len).sum();
+    vertices.points.reserve(vertex_count);
+    vertices.keys.reserve(vertex_count);
+    let mut pieces: Vec<Option<Piece>> = polygons
+        .iter()
+        .map(|p| Piece::new(p, &mut vertices))
+        .collect();
     // Orientation of each convex piece: +1 counter-clockwise, -1 clockwise, 0 not joinable.
     let turn: Vec<i8> = pieces
         .iter()
-        .map(|p| p.as_ref().map_or(0, |p| convex_turn(&p.points)))
+        .map(|p| p.as_ref().map_or(0, |p| convex_turn(p, &vertices)))
         .collect();
     let mut joined = vec![false; pieces.len()];
-    let edge_count = pieces.iter().flatten().map(Piece::len).sum();
-    let mut edges: EdgeMap = HashMap::with_capacity_and_hasher(edge_count, Default::default());
+    let mut edges: EdgeMap = HashMap::with_capacity_and_hasher(vertex_count, Default::default());
+    let edge_of = |piece: &Piece, i: usize| {
+        edge_id(
+            vertices.keys[piece.vertex(i)],
+            vertices.keys[piece.vertex(i + 1)],
+        )
+    };
     for (index, piece) in pieces.iter().enumerate() {
         if let (Some(piece), true) = (piece, turn[index] != 0) {
-            for (a, b) in piece.edge_keys() {
-                edges.insert(edge_id(a, b), index);
+            for i in 0..piece.len {
+                edges.insert(edge_of(piece, i), index);
             }
         }
     }
@@ -121,9 +139,12 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         // Edges before `from` have been tried and cannot join: a join changes only the turns at its
         // own two ends, and the scan goes on from the edge that ends at the first of them.
         let mut from = 0;
-        while let Some(found) = next_join(&pieces, &turn, &edges, index, from) {
-            for (a, b) in found.union.edge_keys() {
-                edges.insert(edge_id(a, b), index);
+        while let Some(found) = next_join(&pieces, &vertices, &turn, &edges, index, from) {
+            // Only the edges the neighbour brought and the two at the join's ends are new; the
+            // piece's own edges are this piece's already.
+            for step in 0..found.new_edges {
+                let i = found.first_new_edge + step;
+                edges.insert(edge_of(&found.union, i % found.union.len), index);
             }
             pieces[index] = Some(found.union);
             pieces[found.other] = None;
@@ -132,17 +153,19 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         }
     }
     pieces
-        .into_iter()
+        .iter()
         .zip(polygons)
         .zip(joined)
-        .filter_map(|((piece, original), joined)| {
-            piece.map(|piece| {
-                if joined {
-                    piece.points
-                } else {
-                    original.clone()
-                }
-            })
+        .filter_map(|((piece, original), joined)| match (piece, joined) {
+            (Some(piece), true) => Some(
+                (0..piece.len)
+                    .map(|i| vertices.points[piece.vertex(i)])
+                    .collect(),
+            ),
+            (Some(_), false) => Some(original.clone()),
+            // A polygon too big to join is kept as given.
+            (None, _) if original.len() > MOST_VERTICES => Some(original.clone()),
+            (None, _) => None,
         })
         .collect()
 }
@@ -153,36 +176,43 @@ struct Join {
     other: usize,
     union: Piece,
     resume_at: usize,
+    /// The union's edges that may be new, from this one on.
+    first_new_edge: usize,
+    new_edges: usize,
 }
 
 /// The first neighbour of piece `index`, along its edges from edge `from`, that joins it convexly.
 fn next_join(
     pieces: &[Option<Piece>],
+    vertices: &Vertices,
     turn: &[i8],
     edges: &EdgeMap,
     index: usize,
     from: usize,
 ) -> Option<Join> {
     let piece = pieces[index].as_ref()?;
-    piece
-        .edge_keys()
-        .enumerate()
-        .skip(from)
-        .find_map(|(at_a, (a, b))| {
-            let other = *edges.get(&edge_id(b, a))?;
-            if other == index || turn[other] != turn[index] {
-                return None;
-            }
-            let neighbour = pieces[other].as_ref()?;
-            let at_b_there = (0..neighbour.len()).find(|&i| {
-                neighbour.keys[i] == b && neighbour.keys[(i + 1) % neighbour.len()] == a
-            })?;
-            join(piece, at_a, neighbour, at_b_there, turn[index]).map(|(union, resume_at)| Join {
+    let key_of = |piece: &Piece, i: usize| vertices.keys[piece.vertex(i)];
+    (from..piece.len).find_map(|at_a| {
+        let (a, b) = (key_of(piece, at_a), key_of(piece, at_a + 1));
+        let other = *edges.get(&edge_id(b, a))?;
+        if other == index || turn[other] != turn[index] {
+            return None;
+        }
+        let neighbour = pieces[other].as_ref()?;
+        let at_b_there = (0..neighbour.len)
+            .find(|&i| key_of(neighbour, i) == b && key_of(neighbour, i + 1) == a)?;
+        join(piece, at_a, neighbour, at_b_there, vertices, turn[index]).map(|(union, before_a)| {
+            Join {
                 other,
                 union,
-                resume_at,
-            })
+                resume_at: before_a.saturating_sub(1),
+                // From the edge into a's place (the ring's last edge when a would be first) over a,
+                // the neighbour's vertices and b.
+                first_new_edge: (before_a + union.len - 1) % union.len,
+                new_edges: union.len.min(neighbour.len + 1),
+            }
         })
+    })
 }
 
 /// How the path `p -> q -> r` turns at `q`: `Some(true)` straight, `Some(false)` the way `turn`
@@ -202,22 +232,21 @@ fn turn_at(p: Point, q: Point, r: Point, turn: i8) -> Option<bool> {
     }
 }
 
-/// +1 for a convex counter-clockwise polygon, -1 for a convex clockwise one, 0 otherwise (turns both
+/// +1 for a convex counter-clockwise piece, -1 for a convex clockwise one, 0 otherwise (turns both
 /// ways, no turn at all, or fewer than three points).
-fn convex_turn(polygon: &[Point]) -> i8 {
-    let count = polygon.len();
+fn convex_turn(piece: &Piece, vertices: &Vertices) -> i8 {
+    let count = piece.len;
     if count < 3 {
         return 0;
     }
+    let point = |i: usize| vertices.points[piece.vertex(i)];
     let (mut left, mut right) = (false, false);
-    let (mut p, mut q) = (polygon[count - 2], polygon[count - 1]);
-    for &r in polygon {
-        match turn_at(p, q, r, 1) {
+    for i in 0..count {
+        match turn_at(point(i), point(i + 1), point(i + 2), 1) {
             Some(true) => {}
             Some(false) => left = true,
             None => right = true,
         }
-        (p, q) = (q, r);
     }
     match (left, right) {
         (true, false) => 1,
@@ -227,8 +256,8 @@ fn convex_turn(polygon: &[Point]) -> i8 {
 }
 
 /// The union of `piece` and `neighbour`, which share the edge from vertex `at_a` of `piece` (`a`
-/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex, and the index
-/// of its edge that ends at `a`'s place. Both are convex with the same orientation, so only the turns
+/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex, and how many
+/// of the piece's vertices come before `a`'s place in it. Both are convex with the same orientation, so only the turns
 /// at `a` and `b` can spoil it; either is dropped where the join runs straight through it. The
 /// neighbour's vertices are spliced in where the shared edge was, so the piece's earlier edges keep
 /// their places.
@@ -237,28 +266,33 @@ fn join(
     at_a: usize,
     neighbour: &Piece,
     at_b_there: usize,
+    vertices: &Vertices,
     turn: i8,
 ) -> Option<(Piece, usize)> {
-    let (count, other_count) = (piece.len(), neighbour.len());
-    let a = piece.at(at_a);
-    let b = piece.at(at_a + 1);
+    let (count, other_count) = (piece.len, neighbour.len);
+    if count + other_count - 2 > MOST_VERTICES {
+        return None;
+    }
+    let point = |of: &Piece, i: usize| vertices.points[of.vertex(i)];
     let straight_at_a = turn_at(
-        piece.at(at_a + count - 1),
-        a,
-        neighbour.at(at_b_there + 2),
+        point(piece, at_a + count - 1),
+        point(piece, at_a),
+        point(neighbour, at_b_there + 2),
         turn,
     )?;
     let straight_at_b = turn_at(
-        neighbour.at(at_b_there + other_count - 1),
-        b,
-        piece.at(at_a + 2),
+        point(neighbour, at_b_there + other_count - 1),
+        point(piece, at_a + 1),
+        point(piece, at_a + 2),
         turn,
     )?;
-    let mut points: Vec<Point> = Vec::with_capacity(count + other_count - 2);
-    let mut keys: Vec<Key> = Vec::with_capacity(count + other_count - 2);
+    let mut union = Piece {
+        len: 0,
+        at: [0; MOST_VERTICES],
+    };
     let mut push = |from: &Piece, i: usize| {
-        points.push(from.at(i));
-        keys.push(from.keys[i % from.len()]);
+        union.at[union.len] = from.vertex(i) as u32;
+        union.len += 1;
     };
     let wraps = at_a + 1 == count;
     // The piece up to before a (for the last edge, from past b: b is its first vertex), a, the
@@ -282,9 +316,7 @@ fn join(
         }
     }
     // The whole ring is checked once more: a repeated vertex the snapping missed would hide a turn.
-    let resume_at = before_a.len().saturating_sub(1);
-    (points.len() >= 3 && convex_turn(&points) == turn)
-        .then_some((Piece { points, keys }, resume_at))
+    (union.len >= 3 && convex_turn(&union, vertices) == turn).then_some((union, before_a.len()))
 }
 
 #[cfg(test)]
@@ -299,6 +331,11 @@ mod tests {
                 a[0] * b[1] - b[0] * a[1]
             })
             .sum::<f64>()
+    }
+
+    fn turn_of(polygon: &[Point]) -> i8 {
+        let mut vertices = Vertices::default();
+        Piece::new(polygon, &mut vertices).map_or(0, |piece| convex_turn(&piece, &vertices))
     }
 
     fn square(x: f64, y: f64) -> Vec<Point> {
@@ -319,7 +356,7 @@ mod tests {
         assert_eq!(joined.len(), 2);
         let total: f64 = joined.iter().map(|p| area(p)).sum();
         assert!((total - 3.0).abs() < 1e-12);
-        assert!(joined.iter().all(|p| convex_turn(p) == 1));
+        assert!(joined.iter().all(|p| turn_of(p) == 1));
     }
 
     #[test]
@@ -340,7 +377,7 @@ mod tests {
         .collect();
         let joined = joined_convex(&ring);
         assert!(joined.len() >= 4, "{joined:?}");
-        assert!(joined.iter().all(|p| convex_turn(p) == 1));
+        assert!(joined.iter().all(|p| turn_of(p) == 1));
         let total: f64 = joined.iter().map(|p| area(p)).sum();
         assert!((total - 8.0).abs() < 1e-12);
     }
@@ -361,6 +398,22 @@ mod tests {
         let joined = joined_convex(&[square(0.0, 0.0), right, l_shape.clone()]);
         assert_eq!(joined.len(), 2);
         assert!(joined.contains(&l_shape));
+    }
+
+    #[test]
+    fn a_piece_of_more_vertices_than_a_join_keeps_is_given_back_as_it_came() {
+        // Half a 40-gon standing on the x axis from -1 to 1, and a square under it.
+        let mut half_circle: Vec<Point> = (0..=39)
+            .map(|i| {
+                let angle = std::f64::consts::PI * f64::from(i) / 39.0;
+                [angle.cos(), angle.sin()]
+            })
+            .collect();
+        half_circle[0] = [1.0, 0.0];
+        half_circle[39] = [-1.0, 0.0];
+        let square = vec![[-1.0, -2.0], [1.0, -2.0], [1.0, 0.0], [-1.0, 0.0]];
+        let joined = joined_convex(&[half_circle.clone(), square.clone()]);
+        assert_eq!(joined, vec![half_circle, square]);
     }
 
     #[test]

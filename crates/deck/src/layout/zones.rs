@@ -132,9 +132,9 @@ pub(crate) fn zone_pieces(
 
 /// [`zone_pieces`] into `work.pieces`, reusing the buffers.
 ///
-/// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices and
-/// crossings of the strip's two sides. Between breakpoints the touched set is constant and is found
-/// by sectioning across the strip at the middle.
+/// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices
+/// within the strip and crossings of the strip's two sides. Between breakpoints the touched set is
+/// constant and is found by sectioning across the strip at the middle.
 pub(crate) fn zone_pieces_with(
     line: LineStrip<'_>,
     along_m: [f64; 2],
@@ -170,7 +170,8 @@ pub(crate) fn zone_pieces_with(
     );
     let shape = |index: &usize| &zones.shapes[*index];
 
-    // Every vertex and every edge's crossing of either side of the strip.
+    // Every vertex within the strip and every edge's crossing of either side of it: where a polygon
+    // starts or stops touching the strip. A vertex outside the strip changes nothing inside it.
     breaks.clear();
     breaks.extend(along_m);
     for polygon in candidates
@@ -178,7 +179,12 @@ pub(crate) fn zone_pieces_with(
         .map(|index| shape(index).polygon)
         .chain([line.plane_polygon_m])
     {
-        breaks.extend(polygon.iter().map(|p| p[r]));
+        breaks.extend(
+            polygon
+                .iter()
+                .filter(|p| strip[0] <= p[k] && p[k] <= strip[1])
+                .map(|p| p[r]),
+        );
         for side in strip {
             breaks.extend(crossings(polygon, line.run, side));
         }
