@@ -345,6 +345,45 @@ mod tests {
     }
 
     #[test]
+    fn a_cut_inside_a_zone_does_not_move_the_zone_change() {
+        // The interior (zone 0) comes in two pieces cut at y = 2.9995, half a millimetre before the
+        // edge zone (zone 1) starts at y = 3: the layout keeps no stretch under 1 mm, so unjoined the
+        // cut would take the boundary's place. Joined, the change is at the boundary.
+        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![
+                    rectangle(0.0, 0.0, 10.0, 2.9995),
+                    rectangle(0.0, 2.9995, 10.0, 3.0),
+                ],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![rectangle(0.0, 3.0, 10.0, 6.0)],
+            },
+        ];
+        let line = LineStrip {
+            number: 1,
+            plane_polygon_m: &plane,
+            run: Axis::Y,
+            position_m: 5.0,
+            half_width_m: 0.305,
+        };
+        let at = zone_pieces(
+            line,
+            [0.0, 6.0],
+            &ZoneShapes::new(&JoinedZones::new(&zones), &[1, 2]),
+        )
+        .expect("zones tile the plane");
+        assert_eq!(
+            at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
+            vec![0, 1]
+        );
+        assert_eq!(at[0].to_m, 3.0);
+    }
+
+    #[test]
     fn a_gap_in_the_zones_is_an_error() {
         let plane = rectangle(0.0, 0.0, 10.0, 6.0);
         let line = LineStrip {
