@@ -18,6 +18,8 @@ type Point = [f64; 2];
 /// Points closer than this are one point, m (vertices the cuts computed twice differ in the last
 /// bits only).
 const SNAP_M: f64 = 1e-9;
+/// Polygons with a coordinate this far from the origin or farther are not joined, m.
+const FARTHEST_M: f64 = 1e6;
 /// A turn whose sine is below this is straight: the vertex is dropped from a joined piece.
 const STRAIGHT_SINE: f64 = 1e-12;
 
@@ -104,6 +106,15 @@ impl Piece {
 /// The zone's polygons with every convex join made. Non-convex polygons and polygons of the other
 /// orientation are kept as given, and so is every polygon joined to none.
 pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
+    // Keys tell points apart to a nanometre only within the range of an i64 (9e9 m); a roof lies well
+    // inside 1,000 km of its origin, and anything else is given back as it came.
+    if polygons
+        .iter()
+        .flatten()
+        .any(|p| !(p[0].abs() < FARTHEST_M && p[1].abs() < FARTHEST_M))
+    {
+        return polygons.to_vec();
+    }
     let mut vertices = Vertices::default();
     let vertex_count = polygons.iter().map(Vec::len).sum();
     vertices.points.reserve(vertex_count);
@@ -414,6 +425,13 @@ mod tests {
         let square = vec![[-1.0, -2.0], [1.0, -2.0], [1.0, 0.0], [-1.0, 0.0]];
         let joined = joined_convex(&[half_circle.clone(), square.clone()]);
         assert_eq!(joined, vec![half_circle, square]);
+    }
+
+    #[test]
+    fn pieces_far_from_the_origin_are_given_back_as_they_came() {
+        let far = |x: f64| vec![[x, 0.0], [x + 1.0, 0.0], [x + 1.0, 1.0], [x, 1.0]];
+        let pieces = vec![far(2e6), far(2e6 + 1.0), far(1e300), far(f64::MAX / 4.0)];
+        assert_eq!(joined_convex(&pieces), pieces);
     }
 
     #[test]
