@@ -54,6 +54,23 @@ impl Limit {
         table_per_written: f64,
         unit_written: &str,
     ) -> Result<(), OutOfRange> {
+        self.check_scaled_named(
+            || key.to_string(),
+            value_written,
+            table_per_written,
+            unit_written,
+        )
+    }
+
+    /// [`Limit::check_scaled`] with the key spelt by `key`, called only for a refusal: a reader that
+    /// builds key paths for messages only (a batch reads a project per row) asks for nothing else.
+    pub fn check_scaled_named(
+        &self,
+        key: impl FnOnce() -> String,
+        value_written: f64,
+        table_per_written: f64,
+        unit_written: &str,
+    ) -> Result<(), OutOfRange> {
         if self.contains(value_written * table_per_written) {
             return Ok(());
         }
@@ -63,7 +80,7 @@ impl Limit {
             format!(" {unit_written}")
         };
         Err(OutOfRange {
-            key: key.to_string(),
+            key: key(),
             value: format!("{}{unit_text}", number_for_message(value_written)),
             range: format!(
                 "{}..{}{unit_text}",

@@ -206,10 +206,7 @@ impl<'a> ObjectReader<'a> {
 
     /// Refuses a count of `key` (characters, entries) outside `limit`, naming `key`'s path.
     pub fn check_count(&self, key: &str, limit: &Limit, count: usize) -> Result<(), ProjectError> {
-        if limit.contains(count as f64) {
-            return Ok(());
-        }
-        Ok(limit.check_count(&self.key_path(key), count)?)
+        Ok(limit.check_scaled_named(|| self.key_path(key), count as f64, 1.0, limit.unit)?)
     }
 
     /// Refuses a value of `key` written in `unit_written` outside `limit` (see [`Limit::check_scaled`]);
@@ -222,11 +219,8 @@ impl<'a> ObjectReader<'a> {
         table_per_written: f64,
         unit_written: &str,
     ) -> Result<(), ProjectError> {
-        if limit.contains(value_written * table_per_written) {
-            return Ok(());
-        }
-        Ok(limit.check_scaled(
-            &self.asked_path(key),
+        Ok(limit.check_scaled_named(
+            || self.asked_path(key),
             value_written,
             table_per_written,
             unit_written,

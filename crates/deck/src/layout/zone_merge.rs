@@ -128,7 +128,7 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         .iter()
         .map(|p| p.as_ref().map_or(0, |p| convex_turn(p, &vertices)))
         .collect();
-    let mut joined = vec![false; pieces.len()];
+    let mut fate = vec![Fate::AsGiven; pieces.len()];
     let mut edges: EdgeMap = HashMap::with_capacity_and_hasher(vertex_count, Default::default());
     let edge_of = |piece: &Piece, i: usize| {
         edge_id(
@@ -147,63 +147,52 @@ pub(crate) fn joined_convex(polygons: &[Vec<Point>]) -> Vec<Vec<Point>> {
         if turn[index] == 0 {
             continue;
         }
-        // Edges before `from` have been tried and cannot join: a join changes only the turns at its
-        // own two ends, and the scan goes on from the edge that ends at the first of them.
-        let mut from = 0;
-        while let Some(found) = next_join(&pieces, &vertices, &turn, &edges, index, from) {
-            // Only the edges the neighbour brought and the two at the join's ends are new; the
-            // piece's own edges are this piece's already.
-            for step in 0..found.new_edges {
-                let i = found.first_new_edge + step;
-                edges.insert(edge_of(&found.union, i % found.union.len), index);
+        while let Some((other, union)) = next_join(&pieces, &vertices, &turn, &edges, index) {
+            for i in 0..union.len {
+                edges.insert(edge_of(&union, i), index);
             }
-            pieces[index] = Some(found.union);
-            pieces[found.other] = None;
-            joined[index] = true;
-            from = found.resume_at;
+            pieces[index] = Some(union);
+            pieces[other] = None;
+            fate[index] = Fate::Joined;
+            fate[other] = Fate::Absorbed;
         }
     }
     pieces
         .iter()
         .zip(polygons)
-        .zip(joined)
-        .filter_map(|((piece, original), joined)| match (piece, joined) {
-            (Some(piece), true) => Some(
+        .zip(fate)
+        .filter_map(|((piece, original), fate)| match (fate, piece) {
+            (Fate::Joined, Some(piece)) => Some(
                 (0..piece.len)
                     .map(|i| vertices.points[piece.vertex(i)])
                     .collect(),
             ),
-            (Some(_), false) => Some(original.clone()),
-            // A polygon too big to join is kept as given.
-            (None, _) if original.len() > MOST_VERTICES => Some(original.clone()),
-            (None, _) => None,
+            (Fate::Absorbed, _) => None,
+            _ => Some(original.clone()),
         })
         .collect()
 }
 
-/// A join found: the neighbour absorbed, the joined piece, and the first of its edges that may join
-/// next.
-struct Join {
-    other: usize,
-    union: Piece,
-    resume_at: usize,
-    /// The union's edges that may be new, from this one on.
-    first_new_edge: usize,
-    new_edges: usize,
+/// What became of a piece: given back as it came (joined to none, or not joinable), grown by joins,
+/// or taken into another.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+enum Fate {
+    AsGiven,
+    Joined,
+    Absorbed,
 }
 
-/// The first neighbour of piece `index`, along its edges from edge `from`, that joins it convexly.
+/// The first neighbour of piece `index` that joins it convexly, and the joined piece.
 fn next_join(
     pieces: &[Option<Piece>],
     vertices: &Vertices,
     turn: &[i8],
     edges: &EdgeMap,
     index: usize,
-    from: usize,
-) -> Option<Join> {
+) -> Option<(usize, Piece)> {
     let piece = pieces[index].as_ref()?;
     let key_of = |piece: &Piece, i: usize| vertices.keys[piece.vertex(i)];
-    (from..piece.len).find_map(|at_a| {
+    (0..piece.len).find_map(|at_a| {
         let (a, b) = (key_of(piece, at_a), key_of(piece, at_a + 1));
         let other = *edges.get(&edge_id(b, a))?;
         if other == index || turn[other] != turn[index] {
@@ -212,17 +201,7 @@ fn next_join(
         let neighbour = pieces[other].as_ref()?;
         let at_b_there = (0..neighbour.len)
             .find(|&i| key_of(neighbour, i) == b && key_of(neighbour, i + 1) == a)?;
-        join(piece, at_a, neighbour, at_b_there, vertices, turn[index]).map(|(union, before_a)| {
-            Join {
-                other,
-                union,
-                resume_at: before_a.saturating_sub(1),
-                // From the edge into a's place (the ring's last edge when a would be first) over a,
-                // the neighbour's vertices and b.
-                first_new_edge: (before_a + union.len - 1) % union.len,
-                new_edges: union.len.min(neighbour.len + 1),
-            }
-        })
+        join(piece, at_a, neighbour, at_b_there, vertices, turn[index]).map(|union| (other, union))
     })
 }
 
@@ -267,11 +246,10 @@ fn convex_turn(piece: &Piece, vertices: &Vertices) -> i8 {
 }
 
 /// The union of `piece` and `neighbour`, which share the edge from vertex `at_a` of `piece` (`a`
-/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex, and how many
-/// of the piece's vertices come before `a`'s place in it. Both are convex with the same orientation, so only the turns
-/// at `a` and `b` can spoil it; either is dropped where the join runs straight through it. The
-/// neighbour's vertices are spliced in where the shared edge was, so the piece's earlier edges keep
-/// their places.
+/// to `b`) met from vertex `at_b_there` of `neighbour` (`b` to `a`), when it is convex. Both are
+/// convex with the same orientation, so only the turns at `a` and `b` can spoil it; either is dropped
+/// where the join runs straight through it. The neighbour's vertices are spliced in where the shared
+/// edge was.
 fn join(
     piece: &Piece,
     at_a: usize,
@@ -279,7 +257,7 @@ fn join(
     at_b_there: usize,
     vertices: &Vertices,
     turn: i8,
-) -> Option<(Piece, usize)> {
+) -> Option<Piece> {
     let (count, other_count) = (piece.len, neighbour.len);
     if count + other_count - 2 > MOST_VERTICES {
         return None;
@@ -309,7 +287,7 @@ fn join(
     // The piece up to before a (for the last edge, from past b: b is its first vertex), a, the
     // neighbour from past a round to before b, b, and the rest of the piece.
     let before_a = if wraps { 1..at_a } else { 0..at_a };
-    for i in before_a.clone() {
+    for i in before_a {
         push(piece, i);
     }
     if !straight_at_a {
@@ -327,7 +305,7 @@ fn join(
         }
     }
     // The whole ring is checked once more: a repeated vertex the snapping missed would hide a turn.
-    (union.len >= 3 && convex_turn(&union, vertices) == turn).then_some((union, before_a.len()))
+    (union.len >= 3 && convex_turn(&union, vertices) == turn).then_some(union)
 }
 
 #[cfg(test)]
