@@ -14,6 +14,7 @@ mod geometry;
 mod nbc;
 mod outline;
 mod pitched_zones;
+mod rectangle_zones;
 mod roof;
 mod types;
 mod uplift;

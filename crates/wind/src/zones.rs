@@ -3,7 +3,7 @@
 //! zones tile it exactly.
 
 use crate::geometry::{
-    area_m2, centroid, contains, nearest_on_segment, split_by_line, wholly_on_one_side, Point,
+    area_m2, contains, nearest_on_segment, split_by_line, wholly_on_one_side, Point,
 };
 use crate::outline::{bounds, LocalRoof, Plan};
 
@@ -78,7 +78,8 @@ pub(crate) struct Piece {
     pub polygon_m: Vec<Point>,
 }
 
-const SLIVER_M2: f64 = 1e-10;
+/// Pieces of this area or less are dropped, m².
+pub(crate) const SLIVER_M2: f64 = 1e-10;
 
 /// Cuts the roof outline into classified pieces.
 pub(crate) fn layout(plan: &Plan, local: &LocalRoof, strips: Strips) -> Vec<Piece> {
@@ -87,60 +88,14 @@ pub(crate) fn layout(plan: &Plan, local: &LocalRoof, strips: Strips) -> Vec<Piec
             along_ridge_m,
             across_ridge_m,
             ..
-        } => rectangle_layout(*along_ridge_m, *across_ridge_m, local, strips),
+        } => {
+            crate::rectangle_zones::rectangle_layout(*along_ridge_m, *across_ridge_m, local, strips)
+        }
         Plan::Polygon { building_m, .. } => polygon_layout(building_m, local, strips.edge_width_m),
     }
 }
 
-fn rectangle_layout(lu: f64, lv: f64, local: &LocalRoof, strips: Strips) -> Vec<Piece> {
-    let a = strips.edge_width_m;
-    let mut u_cuts = vec![0.0, a, lu - a, lu];
-    let mut v_cuts = vec![0.0, a, lv - a, lv, lv / 2.0];
-    if strips.ridge || strips.hips {
-        v_cuts.extend([lv / 2.0 - a, lv / 2.0 + a]);
-    }
-    if let Some(high) = strips.high_eave {
-        u_cuts.extend([high.corner_along_m, lu - high.corner_along_m]);
-        v_cuts.push(lv - high.corner_across_m);
-    }
-    // Lines as (normal, offset): normal · p = offset.
-    let mut lines: Vec<(Point, f64)> = Vec::new();
-    if strips.hips {
-        u_cuts.extend([
-            lv / 2.0 - a,
-            lv / 2.0 + a,
-            lu - lv / 2.0 - a,
-            lu - lv / 2.0 + a,
-        ]);
-        let shift = a * std::f64::consts::SQRT_2;
-        for base in [0.0, lu - lv] {
-            for delta in [-shift, 0.0, shift] {
-                lines.push(([1.0, -1.0], base + delta));
-            }
-        }
-        for base in [lu, lv] {
-            for delta in [-shift, 0.0, shift] {
-                lines.push(([1.0, 1.0], base + delta));
-            }
-        }
-    }
-    lines.extend(u_cuts.iter().map(|u| ([1.0, 0.0], *u)));
-    lines.extend(v_cuts.iter().map(|v| ([0.0, 1.0], *v)));
-    let pieces = cut_all(vec![local.outline_m.clone()], &lines);
-    pieces
-        .into_iter()
-        .map(|polygon_m| {
-            let [u, v] = centroid(&polygon_m);
-            let (region, overhang) = classify_rectangle(u, v, lu, lv, strips);
-            Piece {
-                region,
-                overhang,
-                polygon_m,
-            }
-        })
-        .collect()
-}
-
+/// Cuts every piece by each line in turn; parts of [`SLIVER_M2`] or less are dropped.
 pub(crate) fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Vec<Vec<Point>> {
     for (line_index, (normal, offset)) in lines.iter().enumerate() {
         let mut next = Vec::with_capacity(pieces.len() * 2);
@@ -163,51 +118,6 @@ pub(crate) fn cut_all(mut pieces: Vec<Vec<Point>>, lines: &[(Point, f64)]) -> Ve
         pieces = next;
     }
     pieces
-}
-
-/// Region of a point in the local rectangle frame; overhang points take the region of the
-/// nearest point of the wall line.
-fn classify_rectangle(u: f64, v: f64, lu: f64, lv: f64, strips: Strips) -> (Region, bool) {
-    let a = strips.edge_width_m;
-    let qu = u.clamp(0.0, lu);
-    let qv = v.clamp(0.0, lv);
-    let overhang = (qu - u).abs() > 1e-9 || (qv - v).abs() > 1e-9;
-    let du = qu.min(lu - qu);
-    let dv = qv.min(lv - qv);
-    let near_ridge = (qv - lv / 2.0).abs() < a;
-    let near_wall = du < a || dv < a;
-    // Eave corners, and for gables the ends of the ridge strip at the rakes.
-    let corner = (du < a && dv < a) || (strips.ridge && near_ridge && du < a);
-    let ridge_strip = strips.ridge && near_ridge;
-    let hip_ridge = strips.hips && near_ridge && du > lv / 2.0 - a;
-    let hip_band = strips.hips
-        && (du - dv).abs() / std::f64::consts::SQRT_2 < a
-        && du < lv / 2.0 + a
-        && dv < lv / 2.0 + a;
-    let region = if corner || (near_wall && strips.wall_region == Region::Corner) {
-        Region::Corner
-    } else if near_wall || ridge_strip || hip_ridge || hip_band {
-        Region::Edge
-    } else {
-        Region::Interior
-    };
-    let region = match strips.high_eave {
-        Some(high) => high_eave_region(high, region, du, lv - qv, a),
-        None => region,
-    };
-    (region, overhang)
-}
-
-/// The region of a monoslope point `from_high_m` down the slope from the high eave and `du` from the
-/// nearer rake: the high-eave corner (its own extent each way), the high-eave strip, or `region`.
-fn high_eave_region(high: HighEave, region: Region, du: f64, from_high_m: f64, a: f64) -> Region {
-    if du < high.corner_along_m && from_high_m < high.corner_across_m {
-        high.corner
-    } else if from_high_m < a && region != Region::Corner {
-        high.strip
-    } else {
-        region
-    }
 }
 
 fn polygon_layout(building: &[Point], local: &LocalRoof, a: f64) -> Vec<Piece> {
