@@ -110,6 +110,43 @@ fn section_along<const R: usize, const K: usize>(
     }
 }
 
+/// A polygon that is an axis-parallel rectangle (four corners, every edge along x or along y), with
+/// its bounds: its section is read off the bounds ([`BoxSection::section_into`]). Most wind zone
+/// pieces of a rectangle roof are such rectangles, and sectioning them was a sixth of the layout.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct BoxSection {
+    bounds: [[f64; 2]; 2],
+}
+
+impl BoxSection {
+    /// The rectangle's section; None for any other polygon.
+    pub(crate) fn of(polygon: &[[f64; 2]]) -> Option<Self> {
+        let is_box =
+            polygon.len() == 4 && edges(polygon).all(|(a, b)| a[0] == b[0] || a[1] == b[1]);
+        is_box.then(|| BoxSection {
+            bounds: bounds(polygon),
+        })
+    }
+
+    /// [`section_into`] of the rectangle, exactly: an edge along `run`'s other axis crosses the line at
+    /// its own coordinate (the interpolation adds `t * 0`), under the same half-open rule, and no such
+    /// edge is oblique.
+    pub(crate) fn section_into(&self, run: Axis, at: f64, scratch: &mut SectionScratch) {
+        let r = run.index();
+        let k = run.other().index();
+        let [lo, hi] = self.bounds;
+        scratch.stretches.clear();
+        if lo[k] < at && at <= hi[k] {
+            scratch.stretches.push(Stretch {
+                lo: lo[r],
+                hi: hi[r],
+                lo_oblique: false,
+                hi_oblique: false,
+            });
+        }
+    }
+}
+
 /// An edge running `along_m` with the section line and `across_m` across it is oblique (a hip or a
 /// valley) when its run along the line is more than a billionth of its length. Compared squared: a
 /// `hypot` for the length was about 5 % of the layout's instructions, and the test only ever meets edges whose
@@ -270,6 +307,34 @@ mod tests {
     use approx::assert_relative_eq;
 
     const RECTANGLE: [[f64; 2]; 4] = [[0.0, 0.0], [4.0, 0.0], [4.0, 2.0], [0.0, 2.0]];
+
+    #[test]
+    fn a_rectangle_is_sectioned_from_its_bounds_exactly_as_by_its_edges() {
+        // Rectangles given from each corner and both ways round, cut at their edges, inside and
+        // outside, along both axes: the same stretches, bit for bit.
+        let corners = [[-1.3, 0.7], [2.9, 0.7], [2.9, 3.1], [-1.3, 3.1]];
+        let mut polygons = Vec::new();
+        for start in 0..4 {
+            let mut turned: Vec<[f64; 2]> = (0..4).map(|i| corners[(start + i) % 4]).collect();
+            polygons.push(turned.clone());
+            turned.reverse();
+            polygons.push(turned);
+        }
+        for polygon in &polygons {
+            let shortcut = BoxSection::of(polygon).expect("a rectangle");
+            for run in [Axis::X, Axis::Y] {
+                for at in [-2.0, -1.3, -0.1, 0.7, 1.0, 2.9, 3.1, 3.5, 1.0 / 3.0] {
+                    let mut by_edges = SectionScratch::default();
+                    section_into(polygon, run, at, &mut by_edges);
+                    let mut by_bounds = SectionScratch::default();
+                    shortcut.section_into(run, at, &mut by_bounds);
+                    assert_eq!(by_bounds.stretches, by_edges.stretches, "{run:?} at {at}");
+                }
+            }
+        }
+        assert!(BoxSection::of(&[[0.0, 0.0], [4.0, 0.0], [4.0, 2.0]]).is_none());
+        assert!(BoxSection::of(&[[0.0, 0.0], [4.0, 0.0], [4.0, 2.0], [0.1, 2.0]]).is_none());
+    }
 
     #[test]
     fn round_i64_rounds_as_round_does() {

@@ -6,7 +6,8 @@
 //! zone boundaries that run parallel to the lines, by at most half a spacing.
 
 use super::geometry::{
-    bounds, crossings, section_into, sort_total, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
+    bounds, crossings, section_into, sort_total, BoxSection, SectionScratch, MIN_PIECE_M,
+    SAME_POSITION_M,
 };
 use super::zone_merge::joined_convex;
 use super::{Axis, ZoneRegion};
@@ -37,6 +38,8 @@ struct ZoneShape<'a> {
     rank: u32,
     polygon: &'a [[f64; 2]],
     bounds: [[f64; 2]; 2],
+    /// Set for an axis-parallel rectangle: its sections are read off its bounds.
+    box_section: Option<BoxSection>,
 }
 
 /// Each zone's polygons with the convex pieces that share an edge joined (see `zone_merge`), made
@@ -78,6 +81,7 @@ impl<'a> ZoneShapes<'a> {
                     rank,
                     polygon: polygon.as_slice(),
                     bounds: bounds(polygon),
+                    box_section: BoxSection::of(polygon),
                 })
             })
             .collect();
@@ -203,9 +207,14 @@ pub(crate) fn zone_pieces_with(
     }
 
     pieces.clear();
+    let plane_box = BoxSection::of(line.plane_polygon_m);
+    let across = line.run.other();
     for pair in kept.windows(2) {
         let middle = 0.5 * (pair[0] + pair[1]);
-        section_into(line.plane_polygon_m, line.run.other(), middle, scratch);
+        match &plane_box {
+            Some(plane_box) => plane_box.section_into(across, middle, scratch),
+            None => section_into(line.plane_polygon_m, across, middle, scratch),
+        }
         window.clear();
         window.extend(
             scratch
@@ -226,7 +235,10 @@ pub(crate) fn zone_pieces_with(
             if !(lo[r] < middle && middle <= hi[r]) {
                 continue;
             }
-            section_into(shape.polygon, line.run.other(), middle, scratch);
+            match &shape.box_section {
+                Some(shape_box) => shape_box.section_into(across, middle, scratch),
+                None => section_into(shape.polygon, across, middle, scratch),
+            }
             let stretches = &scratch.stretches;
             let touched = stretches.iter().any(|s| {
                 window
