@@ -3,6 +3,7 @@
 //! Exit status: 0 done (and every zone works); 1 the design does not work (a plan check fails, or no
 //! practical spacing works in some zone); 2 the input is refused (bad file, bad option, outside the method).
 
+mod alloc;
 mod args;
 #[macro_use]
 mod console;
@@ -16,10 +17,9 @@ use std::process::ExitCode;
 
 use args::{Cli, Command};
 
-/// mimalloc in place of the system allocator: the PDF writer and the batch make many small short-lived
-/// vectors, and glibc's malloc and free were about a quarter of their time (docs/speed.md).
+/// mimalloc in place of the system allocator, called the cheapest way each layout allows (see `alloc`).
 #[global_allocator]
-static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+static ALLOCATOR: alloc::Allocator = alloc::Allocator;
 
 /// What a command found, for the exit status.
 #[derive(Debug, Clone, Copy, PartialEq, Eq)]

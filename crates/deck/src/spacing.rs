@@ -261,17 +261,28 @@ fn nail_load(
     })
 }
 
-/// The loads already worked out in one plan, by zone, reaction width and spacing. A roof has thousands
-/// of stretches but a few dozen distinct (zone, reaction width, spacing), and the uplift function is
-/// pure, so each is worked out once: the same numbers, without recomputing them per stretch.
+/// One kind of sized stretch: a zone, a reaction width and a support role, with the widest allowed
+/// increment that holds there (None: none does). A roof has hundreds of stretches but a few dozen
+/// kinds, and all a plan works out for a stretch but its nail count depends on its kind alone.
+#[derive(Debug, Clone, Copy)]
+struct StretchKind {
+    zone_index: usize,
+    reaction_width_mm: f64,
+    role: SupportRole,
+    widest_mm: Option<f64>,
+}
+
+/// The kinds of stretch met so far for one nail (the role picks the increments; one nail, one
+/// resistance), and the loads on blocking rows. The uplift function is pure, so each kind is worked
+/// out once: the same numbers, without walking the increments again for every stretch.
 struct LoadCache<'u> {
     uplift: &'u UpliftFn<'u>,
     rules: &'u SpacingRules,
+    kinds: Vec<StretchKind>,
+    /// Each kind's place in `kinds`, by zone, reaction width (its bits) and role.
+    kind_at: HashMap<(usize, u64, SupportRole), usize, BuildFastHasher>,
+    /// Loads on blocking rows (not sized, so no kind), by zone, reaction width and spacing.
     loads: HashMap<(usize, u64, u64), NailLoad, BuildFastHasher>,
-    /// [`LoadCache::widest_holding`]'s answers by zone, reaction width and support role (the role
-    /// picks the increments; the plan has one nail, so one resistance): most stretches repeat one,
-    /// and walking the increments again cost a load lookup each.
-    widest: HashMap<(usize, u64, SupportRole), Option<f64>, BuildFastHasher>,
 }
 
 impl<'u> LoadCache<'u> {
@@ -279,8 +290,9 @@ impl<'u> LoadCache<'u> {
         Self {
             uplift,
             rules,
+            kinds: Vec::new(),
+            kind_at: HashMap::default(),
             loads: HashMap::default(),
-            widest: HashMap::default(),
         }
     }
 
@@ -309,24 +321,23 @@ impl<'u> LoadCache<'u> {
         Ok(load)
     }
 
-    /// The widest allowed increment for `role` (widest first in `allowed`) that holds; None when
-    /// none does. `allowed` and `resistance_n` must be the same for every call with one role.
-    fn widest_holding(
+    /// The place in `kinds` of the stretch kind (`zone_index`, `reaction_width_mm`, `role`), worked out
+    /// when first met: the widest increment of `allowed` (widest first) that holds. `allowed` and
+    /// `resistance_n` must be the same for every call with one role.
+    fn kind(
         &mut self,
         role: SupportRole,
         allowed: &[f64],
         zone_index: usize,
         reaction_width_mm: f64,
         resistance_n: f64,
-    ) -> Result<Option<f64>, SpacingError> {
+    ) -> Result<usize, SpacingError> {
         let key = (zone_index, reaction_width_mm.to_bits(), role);
-        if let Some(widest) = self.widest.get(&key) {
-            return Ok(*widest);
+        if let Some(at) = self.kind_at.get(&key) {
+            return Ok(*at);
         }
-        let mut widest = None;
+        let mut widest_mm = None;
         for &spacing_mm in allowed {
-            // Not kept: each (zone, width) is walked once (the answer is kept), so these loads would
-            // never be asked for again but at the pattern, which the plan looks up itself.
             let load = nail_load(
                 self.uplift,
                 self.rules,
@@ -335,12 +346,19 @@ impl<'u> LoadCache<'u> {
                 spacing_mm,
             )?;
             if load.demand_n <= resistance_n * (1.0 + 1e-12) {
-                widest = Some(spacing_mm);
+                widest_mm = Some(spacing_mm);
                 break;
             }
         }
-        self.widest.insert(key, widest);
-        Ok(widest)
+        let at = self.kinds.len();
+        self.kinds.push(StretchKind {
+            zone_index,
+            reaction_width_mm,
+            role,
+            widest_mm,
+        });
+        self.kind_at.insert(key, at);
+        Ok(at)
     }
 }
 
@@ -396,12 +414,12 @@ pub fn holds_on_layout(
 ) -> Result<bool, SpacingError> {
     let increments = RoleIncrements::new(nail, rules)?;
     let mut cache = LoadCache::new(uplift, rules);
-    holds_with(layout, nail, &increments, &mut cache)
+    holds_with(layout, nail, &increments, &mut cache, &mut Vec::new())
 }
 
 /// The plan of [`plan_on_layout`] when the nail holds everywhere ([`holds_on_layout`]), None when it
-/// does not: the plan reuses what the check worked out (each stretch's widest holding increment),
-/// so a nail that holds is walked once for the check and once cheaply for its plan.
+/// does not: the plan reuses what the check worked out (each stretch's kind, in order), so a nail
+/// that holds is walked once for the check and once cheaply for its plan.
 pub fn plan_if_it_holds(
     layout: &DeckLayout,
     uplift: &UpliftFn<'_>,
@@ -410,18 +428,22 @@ pub fn plan_if_it_holds(
 ) -> Result<Option<DeckPlan>, SpacingError> {
     let increments = RoleIncrements::new(nail, rules)?;
     let mut cache = LoadCache::new(uplift, rules);
-    if !holds_with(layout, nail, &increments, &mut cache)? {
+    let mut walked = Vec::new();
+    if !holds_with(layout, nail, &increments, &mut cache, &mut walked)? {
         return Ok(None);
     }
-    plan_with(layout, nail, &increments, &mut cache, None).map(Some)
+    plan_with(layout, nail, &increments, &mut cache, &walked, None).map(Some)
 }
 
-/// [`holds_on_layout`] with the caller's increments and cache.
+/// [`holds_on_layout`] with the caller's increments and cache. The kind of each stretch walked is
+/// pushed onto `walked`, in the order [`plan_with`] meets them: when the nail holds, every sized
+/// stretch of the plan.
 fn holds_with(
     layout: &DeckLayout,
     nail: &NailOption,
     increments: &RoleIncrements,
     cache: &mut LoadCache<'_>,
+    walked: &mut Vec<usize>,
 ) -> Result<bool, SpacingError> {
     // Blocking is not sized (it takes its zone's panel-edge pattern): it cannot fail a plan.
     for line in layout.lines.iter().filter(|l| l.kind != LineKind::Blocking) {
@@ -432,14 +454,15 @@ fn holds_with(
                     continue;
                 }
                 let role = bearing.support_role;
-                let widest = cache.widest_holding(
+                let at = cache.kind(
                     role,
                     &increments.for_role(role).widest_first_mm,
                     piece.zone_index,
                     reaction_width_mm,
                     nail.resistance_n,
                 )?;
-                if widest.is_none() {
+                walked.push(at);
+                if cache.kinds[at].widest_mm.is_none() {
                     return Ok(false);
                 }
             }
@@ -476,15 +499,19 @@ impl RoleIncrements {
 
 /// The width of deck a bearing's row of nails holds: the largest of its strips' reactions, mm.
 fn bearing_reaction_mm(line_number: u32, bearing: &Bearing) -> Result<f64, SpacingError> {
-    bearing
+    // A match, not `ok_or`: the error built and dropped for every bearing cost a call each.
+    match bearing
         .strips
         .iter()
         .map(|strip| strip.reaction_width_mm)
         .reduce(f64::max)
-        .ok_or(SpacingError::NoStrip {
+    {
+        Some(width_mm) => Ok(width_mm),
+        None => Err(SpacingError::NoStrip {
             line: line_number,
             course: bearing.course_index,
-        })
+        }),
+    }
 }
 
 /// Where a zone piece and a bearing of one line overlap, m along the line; None under 1 mm.
@@ -507,25 +534,33 @@ fn plan_or_check(
 ) -> Result<DeckPlan, SpacingError> {
     let increments = RoleIncrements::new(nail, rules)?;
     let mut cache = LoadCache::new(uplift, rules);
-    plan_with(layout, nail, &increments, &mut cache, given)
+    plan_with(layout, nail, &increments, &mut cache, &[], given)
 }
 
 /// [`plan_or_check`] with the caller's increments and cache (the cache is a pure memo: a filled one
-/// gives the same plan as an empty one).
+/// gives the same plan as an empty one). `walked` holds the kinds [`holds_with`] found, in the order
+/// pass 1 meets the sized stretches (empty when no check ran first): each one found there is not
+/// looked up again.
 fn plan_with(
     layout: &DeckLayout,
     nail: &NailOption,
     increments: &RoleIncrements,
     cache: &mut LoadCache<'_>,
+    walked: &[usize],
     given: Option<&PatternFn<'_>>,
 ) -> Result<DeckPlan, SpacingError> {
     let allowed = |role: SupportRole| increments.for_role(role);
 
-    // Pass 1: the segments and what each alone needs.
+    // Pass 1: the segments and what each alone needs, with the kind of each sized one (None:
+    // blocking), in the order of the segments.
+    let mut walked = walked.iter().copied();
+    let mut segment_kinds: Vec<Option<usize>> = Vec::new();
+    let mut line_kinds: Vec<Option<usize>> = Vec::new();
     let mut lines = Vec::with_capacity(layout.lines.len());
     for line in &layout.lines {
         // At most one segment per bearing and zone piece.
         let mut segments = Vec::with_capacity(line.bearings.len() * line.zones.len());
+        line_kinds.clear();
         // Blocking: two rows (the panel edges on both sides of the course joint), not sized by the
         // strip model (reaction 0: it gives the blocking no share of the uplift); pass 3 gives it
         // the zone's panel-edge pattern.
@@ -545,25 +580,34 @@ fn plan_with(
                 let Some((from_m, to_m)) = overlap_m(piece, bearing) else {
                     continue;
                 };
-                let required_spacing_mm = if is_blocking {
+                let role = bearing.support_role;
+                let kind = if is_blocking {
                     None
+                } else if let Some(at) = walked.next() {
+                    Some(at)
                 } else {
-                    cache.widest_holding(
-                        bearing.support_role,
-                        &allowed(bearing.support_role).widest_first_mm,
+                    Some(cache.kind(
+                        role,
+                        &allowed(role).widest_first_mm,
                         piece.zone_index,
                         reaction_width_mm,
                         nail.resistance_n,
-                    )?
+                    )?)
                 };
+                debug_assert!(kind.is_none_or(|at| {
+                    let kind = &cache.kinds[at];
+                    (kind.zone_index, kind.reaction_width_mm.to_bits(), kind.role)
+                        == (piece.zone_index, reaction_width_mm.to_bits(), role)
+                }));
+                line_kinds.push(kind);
                 segments.push(Segment {
                     from_m,
                     to_m,
                     zone_index: piece.zone_index,
-                    support_role: bearing.support_role,
+                    support_role: role,
                     rows,
                     reaction_width_mm,
-                    required_spacing_mm,
+                    required_spacing_mm: kind.and_then(|at| cache.kinds[at].widest_mm),
                     spacing_mm: None,
                     net_uplift_kpa: 0.0,
                     effective_area_m2: 0.0,
@@ -574,7 +618,16 @@ fn plan_with(
                 });
             }
         }
-        segments.sort_by(|a, b| a.from_m.total_cmp(&b.from_m));
+        // The bearings run up the line and the pieces are in order, so the segments nearly always
+        // are too; only when not are they sorted, stably as ever, their kinds with them.
+        if !segments.is_sorted_by(|a, b| a.from_m.total_cmp(&b.from_m).is_le()) {
+            let mut order: Vec<usize> = (0..segments.len()).collect();
+            order.sort_by(|&a, &b| segments[a].from_m.total_cmp(&segments[b].from_m));
+            segments = order.iter().map(|&at| segments[at].clone()).collect();
+            segment_kinds.extend(order.iter().map(|&at| line_kinds[at]));
+        } else {
+            segment_kinds.extend_from_slice(&line_kinds);
+        }
         lines.push(RafterLine {
             number: line.number,
             plane_index: line.plane_index,
@@ -590,10 +643,20 @@ fn plan_with(
 
     // Pass 2: one pattern per zone and role, the closest spacing any of its stretches needs.
     // Blocking is not sized (it takes its zone's panel-edge pattern): it sets no pattern.
-    let mut keys: Vec<(usize, SupportRole)> = lines
-        .iter()
-        .filter(|line| line.kind != LineKind::Blocking)
-        .flat_map(|line| line.segments.iter().map(|s| (s.zone_index, s.support_role)))
+    let mut used = vec![false; cache.kinds.len()];
+    for at in segment_kinds.iter().flatten() {
+        used[*at] = true;
+    }
+    let used_kinds = || {
+        cache
+            .kinds
+            .iter()
+            .zip(&used)
+            .filter(|(_, used)| **used)
+            .map(|(kind, _)| kind)
+    };
+    let mut keys: Vec<(usize, SupportRole)> = used_kinds()
+        .map(|kind| (kind.zone_index, kind.role))
         .collect();
     keys.sort();
     keys.dedup();
@@ -615,26 +678,29 @@ fn plan_with(
         }
         patterns.push((*key, Some(allowed(key.1).widest_mm())));
     }
-    // Each segment's place in `keys` (and `patterns`), looked up once for the three passes below.
-    let key_at: Vec<Option<usize>> = lines
+    // Each kind's place in `keys` (and `patterns`), looked up once.
+    let kind_key_at: Vec<Option<usize>> = cache
+        .kinds
         .iter()
-        .flat_map(|line| &line.segments)
-        .map(|s| keys.binary_search(&(s.zone_index, s.support_role)).ok())
+        .map(|kind| keys.binary_search(&(kind.zone_index, kind.role)).ok())
         .collect();
+    // A segment's place in `keys`: its kind's; a blocking segment's, if its zone and role has one.
+    let key_at = |segment: &Segment, kind: Option<usize>| match kind {
+        Some(at) => kind_key_at[at],
+        None => keys
+            .binary_search(&(segment.zone_index, segment.support_role))
+            .ok(),
+    };
     if given.is_none() {
-        // One pass over the segments (keys are sorted): each narrows its zone and role's pattern.
-        let mut at_of = key_at.iter();
-        for (line, segment) in lines
-            .iter()
-            .flat_map(|line| line.segments.iter().map(move |s| (line, s)))
-        {
-            let at = at_of.next().copied().flatten();
-            if line.kind == LineKind::Blocking {
+        // Each kind a segment has narrows its zone and role's pattern (the closest of the
+        // segments' needs is the closest of their kinds').
+        for (at, kind) in cache.kinds.iter().enumerate() {
+            if !used[at] {
                 continue;
             }
-            if let Some(at) = at {
-                let pattern = &mut patterns[at].1;
-                *pattern = match (*pattern, segment.required_spacing_mm) {
+            if let Some(key) = kind_key_at[at] {
+                let pattern = &mut patterns[key].1;
+                *pattern = match (*pattern, kind.widest_mm) {
                     (Some(current), Some(required)) => Some(current.min(required)),
                     _ => None,
                 };
@@ -670,21 +736,39 @@ fn plan_with(
         }
     };
 
-    // Pass 3: each segment at its pattern: load, utilization, nail count.
+    // Pass 3: each segment at its pattern: load, utilization, nail count. A sized segment's load
+    // depends on its kind alone (its zone, width and role, and so its pattern): worked out once a kind.
+    let mut kind_loads: Vec<Option<NailLoad>> = vec![None; cache.kinds.len()];
     let mut total_nail_count = 0u64;
-    let mut at_of = key_at.iter();
+    let mut kind_of = segment_kinds.iter().copied();
     for line in &mut lines {
         let is_blocking = line.kind == LineKind::Blocking;
         for segment in &mut line.segments {
-            let at = at_of.next().copied().flatten();
+            let kind = kind_of.next().flatten();
             let pattern = if is_blocking {
                 blocking_pattern(segment.zone_index)
             } else {
-                pattern_at(at)
+                pattern_at(key_at(segment, kind))
             };
             // No working spacing: report the load at the closest allowed increment.
             let checked_at_mm = pattern.unwrap_or(allowed(segment.support_role).closest_mm());
-            let load = cache.load(segment.zone_index, segment.reaction_width_mm, checked_at_mm)?;
+            let load = match kind {
+                Some(at) => match kind_loads[at] {
+                    Some(load) => load,
+                    None => {
+                        let load = nail_load(
+                            cache.uplift,
+                            cache.rules,
+                            segment.zone_index,
+                            segment.reaction_width_mm,
+                            checked_at_mm,
+                        )?;
+                        kind_loads[at] = Some(load);
+                        load
+                    }
+                },
+                None => cache.load(segment.zone_index, segment.reaction_width_mm, checked_at_mm)?,
+            };
             segment.spacing_mm = pattern;
             segment.net_uplift_kpa = load.net_uplift_kpa;
             segment.effective_area_m2 = load.effective_area_m2;
@@ -709,10 +793,10 @@ fn plan_with(
             nail_count: 0,
         })
         .collect();
-    let mut at_of = key_at.iter();
+    let mut kind_of = segment_kinds.iter().copied();
     for line in &lines {
         for segment in &line.segments {
-            let Some(at) = at_of.next().copied().flatten() else {
+            let Some(at) = key_at(segment, kind_of.next().flatten()) else {
                 continue;
             };
             let tally = &mut tallies[at];
@@ -781,6 +865,15 @@ mod tests {
         vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
     }
 
+    /// The walls along the edges of `corners`.
+    fn walls_around(corners: Vec<[f64; 2]>) -> Vec<[[f64; 2]; 2]> {
+        corners
+            .iter()
+            .zip(corners.iter().cycle().skip(1))
+            .map(|(a, b)| [*a, *b])
+            .collect()
+    }
+
     /// One flat plane 9.76 m × 4.88 m (16 bays of 610 mm), a single zone.
     fn flat_deck() -> (
         Vec<PlaneGeometry>,
@@ -800,11 +893,7 @@ mod tests {
         let framing = FramingInput {
             spacing_mm: 610.0,
             lines_along: Some(Axis::Y),
-            walls_m: rectangle(0.0, 0.0, 9.76, 4.88)
-                .iter()
-                .zip(rectangle(0.0, 0.0, 9.76, 4.88).iter().cycle().skip(1))
-                .map(|(a, b)| [*a, *b])
-                .collect(),
+            walls_m: walls_around(rectangle(0.0, 0.0, 9.76, 4.88)),
         };
         let panel = PanelInput {
             length_mm: 2440.0,
@@ -1005,6 +1094,117 @@ mod tests {
             checked.lines[1].segments[0].required_spacing_mm,
             Some(150.0)
         );
+    }
+
+    /// A hip side 12 m along the eave, hips up to a 6 m ridge 3 m up, staggered panels and blocked
+    /// course joints, three zones (the hip corners, an eave strip, the rest): lines cut by the hips,
+    /// pieces in two zones, bearings of both roles, strips of many widths.
+    fn hip_side_layout() -> DeckLayout {
+        let planes = vec![PlaneGeometry {
+            polygon_m: vec![[0.0, 0.0], [12.0, 0.0], [9.0, 3.0], [3.0, 3.0]],
+            slope_deg: 30.0,
+            downslope_m: [0.0, -1.0],
+        }];
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![rectangle(2.0, 1.0, 10.0, 3.0)],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![rectangle(2.0, 0.0, 10.0, 1.0)],
+            },
+            ZoneRegion {
+                zone_index: 2,
+                polygons_m: vec![
+                    rectangle(0.0, 0.0, 2.0, 3.0),
+                    rectangle(10.0, 0.0, 12.0, 3.0),
+                ],
+            },
+        ];
+        let (_, _, mut framing, mut panel) = flat_deck();
+        framing.walls_m = walls_around(rectangle(0.0, 0.0, 12.0, 3.0));
+        panel.stagger = Stagger::Half;
+        panel.blocking = crate::layout::EdgeBlocking::CourseJoints;
+        layout_deck(&planes, &zones, &[0, 1, 2], &framing, &panel).expect("valid hip side")
+    }
+
+    /// An uplift that differs by zone and falls with the area, as the standards' curves do.
+    fn zoned_uplift(zone_index: usize, area_m2: f64) -> Result<f64, String> {
+        Ok(1.2 + 0.9 * zone_index as f64 + 0.4 / (area_m2 + 0.2))
+    }
+
+    #[test]
+    fn each_stretch_gets_what_working_it_out_alone_gives() {
+        // The plan works out each kind of stretch (zone, reaction width, role) once and hands the
+        // answer to every stretch of that kind; here every stretch is worked out on its own again.
+        let layout = hip_side_layout();
+        let rules = si_rules();
+        let mut feasible = Vec::new();
+        for resistance_n in [150.0, 400.0, 900.0] {
+            let nail = test_nail(resistance_n);
+            let plan = plan_on_layout(&layout, &zoned_uplift, &nail, &rules).expect("valid");
+            let increments = RoleIncrements::new(&nail, &rules).expect("valid");
+            let mut kinds = std::collections::HashSet::new();
+            let mut roles = std::collections::HashSet::new();
+            for line in plan.lines.iter().filter(|l| l.kind != LineKind::Blocking) {
+                for segment in &line.segments {
+                    kinds.insert((
+                        segment.zone_index,
+                        segment.reaction_width_mm.to_bits(),
+                        segment.support_role,
+                    ));
+                    roles.insert(segment.support_role);
+                    let allowed = &increments.for_role(segment.support_role).widest_first_mm;
+                    let alone = |spacing_mm: f64| {
+                        nail_load(
+                            &zoned_uplift,
+                            &rules,
+                            segment.zone_index,
+                            segment.reaction_width_mm,
+                            spacing_mm,
+                        )
+                        .expect("valid")
+                    };
+                    let required = allowed
+                        .iter()
+                        .copied()
+                        .find(|s| alone(*s).demand_n <= resistance_n * (1.0 + 1e-12));
+                    assert_eq!(segment.required_spacing_mm, required);
+                    let pattern = plan
+                        .zone_role(segment.zone_index, segment.support_role)
+                        .expect("a pattern")
+                        .spacing_mm;
+                    assert_eq!(segment.spacing_mm, pattern);
+                    let checked_at_mm = pattern.unwrap_or(allowed[allowed.len() - 1]);
+                    let load = alone(checked_at_mm);
+                    assert_eq!(segment.demand_n.to_bits(), load.demand_n.to_bits());
+                    assert_eq!(
+                        segment.net_uplift_kpa.to_bits(),
+                        load.net_uplift_kpa.to_bits()
+                    );
+                    assert_eq!(
+                        segment.effective_area_m2.to_bits(),
+                        load.effective_area_m2.to_bits()
+                    );
+                }
+            }
+            // The layout is what the test says it is: many kinds of stretch, both roles, and
+            // blocking lines (sized by no kind).
+            assert!(kinds.len() > 10, "{} kinds", kinds.len());
+            assert_eq!(roles.len(), 2);
+            assert!(plan.lines.iter().any(|l| l.kind == LineKind::Blocking));
+            // The plan after the check (kinds handed over in order) is the plan without it.
+            let after_check =
+                plan_if_it_holds(&layout, &zoned_uplift, &nail, &rules).expect("valid");
+            assert_eq!(after_check.is_some(), plan.feasible(), "{resistance_n} N");
+            if let Some(after_check) = after_check {
+                assert_eq!(after_check, plan);
+            }
+            feasible.push(plan.feasible());
+        }
+        // Both answers met: a nail that holds and one that does not somewhere.
+        assert_eq!(feasible, [false, true, true]);
     }
 
     proptest! {
