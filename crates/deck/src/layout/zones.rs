@@ -19,6 +19,8 @@ pub(crate) struct PlanZonePiece {
     pub from_m: f64,
     pub to_m: f64,
     pub zone_index: usize,
+    /// The zone's rank (higher = worse).
+    pub rank: u32,
 }
 
 /// The framing line being split: where it is and how wide a strip it holds.
@@ -138,7 +140,11 @@ pub(crate) fn zone_pieces(
 ///
 /// Breakpoints are where any zone or the plane's edge changes inside the strip: polygon vertices
 /// within the strip and crossings of the strip's two sides. Between breakpoints the touched set is
-/// constant and is found by sectioning across the strip at the middle.
+/// constant and is found by sectioning across the strip at the middle. Breakpoints within a
+/// micrometre are one (a vertex met twice, a few bits apart); a stretch left shorter than
+/// [`MIN_PIECE_M`] goes to the worse of its neighbours ([`absorb_slivers`]), so the millimetre the
+/// layout works to never shortens the more severe zone at a change, and a cut inside a
+/// zone (the pieces one zone comes in) changes nothing.
 pub(crate) fn zone_pieces_with(
     line: LineStrip<'_>,
     along_m: [f64; 2],
@@ -197,7 +203,7 @@ pub(crate) fn zone_pieces_with(
     sort_total(breaks, keys);
     kept.clear();
     for b in breaks.iter().copied() {
-        if kept.last().is_none_or(|last| b - last >= MIN_PIECE_M) {
+        if kept.last().is_none_or(|last| b - last >= SAME_POSITION_M) {
             kept.push(b);
         }
     }
@@ -266,7 +272,7 @@ pub(crate) fn zone_pieces_with(
                 worst = Some((rank, on_line, zone_index));
             }
         }
-        let Some((_, _, zone_index)) = worst else {
+        let Some((rank, _, zone_index)) = worst else {
             let point = {
                 let mut p = [0.0; 2];
                 p[r] = middle;
@@ -285,10 +291,54 @@ pub(crate) fn zone_pieces_with(
                 from_m: pair[0],
                 to_m: pair[1],
                 zone_index,
+                rank,
             }),
         }
     }
+    absorb_slivers(pieces);
     Ok(())
+}
+
+/// Gives each piece shorter than [`MIN_PIECE_M`] to the worse of its neighbours (higher rank; at one
+/// rank the lower zone index, as the split itself prefers), and joins neighbours of one zone that
+/// meet again. Between a worse and a better zone the change moves toward the better one, by under a
+/// millimetre. A sliver worse than both its neighbours (a strip touching a zone for under a
+/// millimetre along the line) goes to the worse neighbour too: no stretch is shorter than the layout
+/// works to.
+fn absorb_slivers(pieces: &mut Vec<PlanZonePiece>) {
+    let worse = |a: &PlanZonePiece, b: &PlanZonePiece| {
+        (a.rank, std::cmp::Reverse(a.zone_index)) >= (b.rank, std::cmp::Reverse(b.zone_index))
+    };
+    while pieces.len() > 1 {
+        let Some(at) = pieces
+            .iter()
+            .position(|piece| piece.to_m - piece.from_m < MIN_PIECE_M)
+        else {
+            break;
+        };
+        let to_left = match (at.checked_sub(1), pieces.get(at + 1)) {
+            (Some(left), Some(right)) => worse(&pieces[left], right),
+            (Some(_), None) => true,
+            (None, _) => false,
+        };
+        let sliver = pieces.remove(at);
+        // The grown piece's index; the other neighbour now sits next to it.
+        let grown = if to_left {
+            pieces[at - 1].to_m = sliver.to_m;
+            at - 1
+        } else {
+            pieces[at].from_m = sliver.from_m;
+            at
+        };
+        if grown + 1 < pieces.len() && pieces[grown + 1].zone_index == pieces[grown].zone_index {
+            pieces[grown].to_m = pieces[grown + 1].to_m;
+            pieces.remove(grown + 1);
+        }
+        if grown > 0 && pieces[grown - 1].zone_index == pieces[grown].zone_index {
+            pieces[grown - 1].to_m = pieces[grown].to_m;
+            pieces.remove(grown);
+        }
+    }
 }
 
 #[cfg(test)]
@@ -393,6 +443,79 @@ mod tests {
             vec![0, 1]
         );
         assert_eq!(at[0].to_m, 3.0);
+    }
+
+    #[test]
+    fn a_breakpoint_just_before_a_zone_change_does_not_give_the_milder_zone_more() {
+        // The edge zone (rank 2) runs up to y = 3; a second edge piece ends 0.8 mm short of that,
+        // inside the line's strip. Unmerged, that end took the change's place: the interior (rank
+        // 1) began 0.8 mm early. The change must stay at y = 3 (the edge zone's own end).
+        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![rectangle(0.0, 3.0, 10.0, 6.0)],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![
+                    rectangle(0.0, 0.0, 10.0, 3.0),
+                    rectangle(5.2, 0.0, 6.0, 2.9992),
+                ],
+            },
+        ];
+        let line = LineStrip {
+            number: 1,
+            plane_polygon_m: &plane,
+            run: Axis::Y,
+            position_m: 5.0,
+            half_width_m: 0.305,
+        };
+        let at = zone_pieces(
+            line,
+            [0.0, 6.0],
+            &ZoneShapes::new(&JoinedZones::new(&zones), &[1, 2]),
+        )
+        .expect("zones tile the plane");
+        assert_eq!(
+            at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
+            vec![1, 0]
+        );
+        assert_eq!(at[0].to_m, 3.0);
+        assert_eq!(at[1].from_m, 3.0);
+    }
+
+    #[test]
+    fn a_sliver_goes_to_its_worse_neighbour() {
+        let piece = |from_m: f64, to_m: f64, zone_index: usize, rank: u32| PlanZonePiece {
+            from_m,
+            to_m,
+            zone_index,
+            rank,
+        };
+        // Interior, a 0.5 mm corner sliver, edge: the sliver goes to the edge (the worse neighbour).
+        let mut pieces = vec![
+            piece(0.0, 1.0, 0, 1),
+            piece(1.0, 1.0005, 2, 3),
+            piece(1.0005, 2.0, 1, 2),
+        ];
+        absorb_slivers(&mut pieces);
+        assert_eq!(pieces, vec![piece(0.0, 1.0, 0, 1), piece(1.0, 2.0, 1, 2)]);
+        // Edge, a sliver of interior, edge again: one edge piece.
+        let mut pieces = vec![
+            piece(0.0, 1.0, 1, 2),
+            piece(1.0, 1.0005, 0, 1),
+            piece(1.0005, 2.0, 1, 2),
+        ];
+        absorb_slivers(&mut pieces);
+        assert_eq!(pieces, vec![piece(0.0, 2.0, 1, 2)]);
+        // A sliver at either end goes to its only neighbour; one piece stays as it is however short.
+        let mut pieces = vec![piece(0.0, 0.0004, 0, 1), piece(0.0004, 2.0, 1, 2)];
+        absorb_slivers(&mut pieces);
+        assert_eq!(pieces, vec![piece(0.0, 2.0, 1, 2)]);
+        let mut pieces = vec![piece(0.0, 0.0004, 0, 1)];
+        absorb_slivers(&mut pieces);
+        assert_eq!(pieces.len(), 1);
     }
 
     #[test]
