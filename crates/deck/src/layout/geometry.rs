@@ -138,6 +138,11 @@ impl BoxSection {
         })
     }
 
+    /// The rectangle's plan bounds `[min, max]`.
+    pub(crate) fn bounds(&self) -> [[f64; 2]; 2] {
+        self.bounds
+    }
+
     /// [`section_into`] of the rectangle, exactly: an edge along `run`'s other axis crosses the line at
     /// its own coordinate (the interpolation adds `t * 0`), under the same half-open rule, and no such
     /// edge is oblique.

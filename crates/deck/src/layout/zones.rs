@@ -123,6 +123,24 @@ pub(crate) struct ZoneWork {
     scratch: SectionScratch,
     /// The result of the last [`zone_pieces_with`].
     pub pieces: Vec<PlanZonePiece>,
+    /// The last split's [`PlainSplit`] (when `last_was_plain`: `pieces` hold its result).
+    last_plain: PlainSplit,
+    last_was_plain: bool,
+    /// This split's, filled in when it is plain.
+    plain: PlainSplit,
+}
+
+/// What decides a plain line's split: a line on an axis-parallel rectangular plane whose strip meets
+/// only axis-parallel rectangles, none with a side inside the strip. Every rectangle it meets then
+/// spans the strip: the breakpoints are the rectangles' ends along the line and each stretch's zone
+/// is the worst rectangle over it, whatever the line's position. So a plain line with the same
+/// interval, plane and rectangles as the last one has the last one's split (most lines of a gable).
+#[derive(Debug, Clone, Default, PartialEq)]
+struct PlainSplit {
+    along_m: [f64; 2],
+    plane: [[f64; 2]; 2],
+    /// Each rectangle's bounds, zone and rank, in the split's order.
+    shapes: Vec<([[f64; 2]; 2], usize, u32)>,
 }
 
 /// Splits the plan interval `along_m` of a line into pieces by governing zone.
@@ -159,6 +177,9 @@ pub(crate) fn zone_pieces_with(
         window,
         scratch,
         pieces,
+        last_plain,
+        last_was_plain,
+        plain,
     } = work;
     let strip = [
         line.position_m - line.half_width_m,
@@ -179,6 +200,32 @@ pub(crate) fn zone_pieces_with(
             .map(|(index, _)| index),
     );
     let shape = |index: &usize| &zones.shapes[*index];
+
+    // A plain line (see `PlainSplit`) like the last one: the pieces are already there.
+    let plane_box = BoxSection::of(line.plane_polygon_m);
+    let inside_strip = |c: f64| strip[0] <= c && c <= strip[1];
+    let spans_strip = |[lo, hi]: [[f64; 2]; 2]| !inside_strip(lo[k]) && !inside_strip(hi[k]);
+    let is_plain = plane_box.is_some_and(|plane| spans_strip(plane.bounds()))
+        && candidates
+            .iter()
+            .map(shape)
+            .all(|shape| shape.box_section.is_some() && spans_strip(shape.bounds));
+    let was_plain = std::mem::take(last_was_plain);
+    if is_plain {
+        plain.along_m = along_m;
+        plain.plane = bounds(line.plane_polygon_m);
+        plain.shapes.clear();
+        plain.shapes.extend(
+            candidates
+                .iter()
+                .map(shape)
+                .map(|s| (s.bounds, s.zone_index, s.rank)),
+        );
+        if was_plain && last_plain == plain {
+            *last_was_plain = true;
+            return Ok(());
+        }
+    }
 
     // Every vertex within the strip and every edge's crossing of either side of it: where a polygon
     // starts or stops touching the strip. A vertex outside the strip changes nothing inside it.
@@ -213,7 +260,6 @@ pub(crate) fn zone_pieces_with(
     }
 
     pieces.clear();
-    let plane_box = BoxSection::of(line.plane_polygon_m);
     let across = line.run.other();
     for pair in kept.windows(2) {
         let middle = 0.5 * (pair[0] + pair[1]);
@@ -296,6 +342,10 @@ pub(crate) fn zone_pieces_with(
         }
     }
     absorb_slivers(pieces);
+    if is_plain {
+        std::mem::swap(last_plain, plain);
+        *last_was_plain = true;
+    }
     Ok(())
 }
 
@@ -516,6 +566,98 @@ mod tests {
         let mut pieces = vec![piece(0.0, 0.0004, 0, 1)];
         absorb_slivers(&mut pieces);
         assert_eq!(pieces.len(), 1);
+    }
+
+    #[test]
+    fn a_plain_line_reuses_the_last_split_and_gets_what_a_fresh_split_gets() {
+        // A 30 m x 6 m plane: 1 m corners, 1 m edge strips along all four sides, interior; lines
+        // every 0.61 m, each split on one shared buffer (as the layout does) and on a fresh one.
+        let plane = rectangle(0.0, 0.0, 30.0, 6.0);
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![rectangle(1.0, 1.0, 29.0, 5.0)],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![
+                    rectangle(1.0, 0.0, 29.0, 1.0),
+                    rectangle(1.0, 5.0, 29.0, 6.0),
+                    rectangle(0.0, 1.0, 1.0, 5.0),
+                    rectangle(29.0, 1.0, 30.0, 5.0),
+                ],
+            },
+            ZoneRegion {
+                zone_index: 2,
+                polygons_m: vec![
+                    rectangle(0.0, 0.0, 1.0, 1.0),
+                    rectangle(29.0, 0.0, 30.0, 1.0),
+                    rectangle(0.0, 5.0, 1.0, 6.0),
+                    rectangle(29.0, 5.0, 30.0, 6.0),
+                ],
+            },
+        ];
+        let joined = JoinedZones::new(&zones);
+        let shapes = ZoneShapes::new(&joined, &[1, 2, 3]);
+        let mut shared = ZoneWork::default();
+        let mut reused = 0;
+        for step in 0..=49 {
+            let line = LineStrip {
+                number: step + 1,
+                plane_polygon_m: &plane,
+                run: Axis::Y,
+                position_m: f64::from(step) * 0.61,
+                half_width_m: 0.305,
+            };
+            let was_plain = shared.last_was_plain;
+            zone_pieces_with(line, [0.0, 6.0], &shapes, &mut shared).expect("tiled");
+            let fresh = zone_pieces(line, [0.0, 6.0], &shapes).expect("tiled");
+            assert_eq!(shared.pieces, fresh, "line at {} m", line.position_m);
+            if was_plain && shared.last_was_plain {
+                reused += 1;
+            }
+        }
+        // Lines 3 to 46 (1.22 m to 28.06 m) have strips clear of every zone side.
+        assert!(reused > 40, "{reused} lines reused the split");
+    }
+
+    #[test]
+    fn a_line_with_a_zone_side_in_its_strip_is_split_afresh() {
+        // Two zones of one rank side by side at x = 15: the same rectangles reach the strips of the
+        // lines at 14.8 m and 15.2 m, but each line takes the zone under it.
+        let plane = rectangle(0.0, 0.0, 30.0, 6.0);
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![rectangle(0.0, 0.0, 15.0, 6.0)],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![rectangle(15.0, 0.0, 30.0, 6.0)],
+            },
+        ];
+        let joined = JoinedZones::new(&zones);
+        let shapes = ZoneShapes::new(&joined, &[1, 1]);
+        let mut shared = ZoneWork::default();
+        for (position_m, zone_index) in [(14.4, 0), (14.8, 0), (15.2, 1), (15.6, 1)] {
+            let line = LineStrip {
+                number: 1,
+                plane_polygon_m: &plane,
+                run: Axis::Y,
+                position_m,
+                half_width_m: 0.305,
+            };
+            zone_pieces_with(line, [0.0, 6.0], &shapes, &mut shared).expect("tiled");
+            assert_eq!(
+                shared
+                    .pieces
+                    .iter()
+                    .map(|p| p.zone_index)
+                    .collect::<Vec<_>>(),
+                vec![zone_index],
+                "line at {position_m} m"
+            );
+        }
     }
 
     #[test]
