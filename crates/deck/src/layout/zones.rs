@@ -399,6 +399,17 @@ mod tests {
         vec![[x0, y0], [x1, y0], [x1, y1], [x0, y1]]
     }
 
+    /// Line `number` along y at `position_m` on `plane`, holding a 610 mm strip.
+    fn strip_along_y(plane: &[[f64; 2]], number: u32, position_m: f64) -> LineStrip<'_> {
+        LineStrip {
+            number,
+            plane_polygon_m: plane,
+            run: Axis::Y,
+            position_m,
+            half_width_m: 0.305,
+        }
+    }
+
     /// A 10 m x 6 m plane: edge zone 1 m wide along x = 0 (zone 1), interior (zone 0),
     /// corner 1 m x 1 m at the origin (zone 2).
     fn zones() -> Vec<ZoneRegion> {
@@ -420,13 +431,7 @@ mod tests {
 
     fn pieces_at(position_m: f64) -> Vec<PlanZonePiece> {
         let plane = rectangle(0.0, 0.0, 10.0, 6.0);
-        let line = LineStrip {
-            number: 1,
-            plane_polygon_m: &plane,
-            run: Axis::Y,
-            position_m,
-            half_width_m: 0.305,
-        };
+        let line = strip_along_y(&plane, 1, position_m);
         zone_pieces(
             line,
             [0.0, 6.0],
@@ -475,13 +480,7 @@ mod tests {
                 polygons_m: vec![rectangle(0.0, 3.0, 10.0, 6.0)],
             },
         ];
-        let line = LineStrip {
-            number: 1,
-            plane_polygon_m: &plane,
-            run: Axis::Y,
-            position_m: 5.0,
-            half_width_m: 0.305,
-        };
+        let line = strip_along_y(&plane, 1, 5.0);
         let at = zone_pieces(
             line,
             [0.0, 6.0],
@@ -514,13 +513,7 @@ mod tests {
                 ],
             },
         ];
-        let line = LineStrip {
-            number: 1,
-            plane_polygon_m: &plane,
-            run: Axis::Y,
-            position_m: 5.0,
-            half_width_m: 0.305,
-        };
+        let line = strip_along_y(&plane, 1, 5.0);
         let at = zone_pieces(
             line,
             [0.0, 6.0],
@@ -602,13 +595,7 @@ mod tests {
         let mut shared = ZoneWork::default();
         let mut reused = 0;
         for step in 0..=49 {
-            let line = LineStrip {
-                number: step + 1,
-                plane_polygon_m: &plane,
-                run: Axis::Y,
-                position_m: f64::from(step) * 0.61,
-                half_width_m: 0.305,
-            };
+            let line = strip_along_y(&plane, step + 1, f64::from(step) * 0.61);
             let was_plain = shared.last_was_plain;
             zone_pieces_with(line, [0.0, 6.0], &shapes, &mut shared).expect("tiled");
             let fresh = zone_pieces(line, [0.0, 6.0], &shapes).expect("tiled");
@@ -640,13 +627,7 @@ mod tests {
         let shapes = ZoneShapes::new(&joined, &[1, 1]);
         let mut shared = ZoneWork::default();
         for (position_m, zone_index) in [(14.4, 0), (14.8, 0), (15.2, 1), (15.6, 1)] {
-            let line = LineStrip {
-                number: 1,
-                plane_polygon_m: &plane,
-                run: Axis::Y,
-                position_m,
-                half_width_m: 0.305,
-            };
+            let line = strip_along_y(&plane, 1, position_m);
             zone_pieces_with(line, [0.0, 6.0], &shapes, &mut shared).expect("tiled");
             assert_eq!(
                 shared
@@ -663,13 +644,7 @@ mod tests {
     #[test]
     fn a_gap_in_the_zones_is_an_error() {
         let plane = rectangle(0.0, 0.0, 10.0, 6.0);
-        let line = LineStrip {
-            number: 7,
-            plane_polygon_m: &plane,
-            run: Axis::Y,
-            position_m: 5.0,
-            half_width_m: 0.305,
-        };
+        let line = strip_along_y(&plane, 7, 5.0);
         let only_edge = vec![ZoneRegion {
             zone_index: 0,
             polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
