@@ -8,8 +8,9 @@
 //! symbolic link `DIR/.deckhold/<set>/current` names the generation in force, and each visible name
 //! (`DIR/schedule.csv`, ...) is a link to `.deckhold/<set>/current/<name>`. A new set is written whole into
 //! a fresh generation directory, synced, then made visible by renaming one new link over the set's
-//! `current`: a single atomic step. So after a kill at any instant every visible name of a set shows the
-//! previous set or the new one, never a mix. Runs take an exclusive lock on `DIR/.deckhold/lock` while they
+//! `current`: a single atomic step (the visible links are made before it, so a first run's names appear
+//! together). So after a kill at any instant every visible name of a set shows the previous set or the
+//! new one, never a mix. Runs take an exclusive lock on `DIR/.deckhold/lock` while they
 //! write and swap, so concurrent runs each leave a whole set, and a run removes what killed runs of its own
 //! set left behind (`gen-*`, `next-*`, `link-*`) under that lock.
 //!
@@ -205,28 +206,38 @@ mod platform {
         })?;
         fault_point();
 
-        // The one step that makes the new set visible.
-        swap_current(&set_state, &generation)?;
-
+        // Each name of the new set is linked before the swap. A link names `current`, not a generation,
+        // so a name new to the folder shows nothing until the swap, and a name there already shows the
+        // earlier set until then: the first run into a folder shows its whole set at once too.
         let mut written = Vec::new();
         let mut folder_changed = false;
         for name in set.names() {
-            let path = folder.join(name);
-            let in_set = files.iter().any(|(file, _)| file == name);
-            if in_set {
+            if files.iter().any(|(file, _)| file == name) {
                 folder_changed |= make_visible_link(folder, &set_state, set, name)?;
                 fault_point();
-                written.push(path);
-            } else if is_our_link(&path, set, name)? {
-                // A name of an earlier set that this one lacks (schedule.json without --json).
-                fs::remove_file(&path)
-                    .with_context(|| format!("cannot remove {}", path.display()))?;
-                folder_changed = true;
+                written.push(folder.join(name));
             }
         }
-        // The visible links name `current`, not a generation: after the first run into a folder they
-        // stay as they are, and the folder has nothing new to sync.
+        // The links reach the disk before the swap that makes them show the new set.
         if folder_changed {
+            sync_dir(folder)?;
+        }
+
+        // The one step that makes the new set visible.
+        swap_current(&set_state, &generation)?;
+
+        // A name of an earlier set that this one lacks (schedule.json without --json) shows nothing
+        // since the swap; its link goes.
+        let mut removed = false;
+        for name in set.names() {
+            let path = folder.join(name);
+            if !files.iter().any(|(file, _)| file == name) && is_our_link(&path, set, name)? {
+                fs::remove_file(&path)
+                    .with_context(|| format!("cannot remove {}", path.display()))?;
+                removed = true;
+            }
+        }
+        if removed {
             sync_dir(folder)?;
         }
         // The generation just replaced stays until the next run into this folder removes it, beside

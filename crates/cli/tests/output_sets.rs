@@ -374,6 +374,34 @@ fn earlier_folder(out: &Path, plain: bool, names: &[&str]) {
 }
 
 #[test]
+fn a_first_run_stopped_after_any_step_shows_nothing_or_its_whole_set() {
+    // Into a fresh folder: a run stopped after step 1, 2, ... (an abort, as a kill there would) shows
+    // no name at all or the whole set, never some names without the others.
+    let folder = tempfile::tempdir().expect("temp dir");
+    let new_set = reference_set(None, &folder.path().join("reference"));
+    let nothing: Vec<Option<Vec<u8>>> = vec![None; SET.len()];
+    let mut stops = 0;
+    for step in 1..=64 {
+        let out = folder.path().join(format!("fresh-{step}"));
+        let status = run_into(None, &out)
+            .env("DECKHOLD_FAULT_AFTER", step.to_string())
+            .status()
+            .expect("runs");
+        let set = read_set(&out);
+        assert!(
+            set == nothing || set == new_set,
+            "stopped after step {step}: some of the set's names show without the others"
+        );
+        if status.success() {
+            assert_eq!(set, new_set, "a run through every step shows the new set");
+            break;
+        }
+        stops += 1;
+    }
+    assert!(stops >= 4, "only {stops} steps to stop at");
+}
+
+#[test]
 fn taking_over_an_earlier_folder_stopped_at_every_step_never_shows_a_mix() {
     let folder = tempfile::tempdir().expect("temp dir");
     let new_set = reference_set(None, &folder.path().join("reference"));
