@@ -6,12 +6,15 @@
 //! line it reaches; the last one is cut at the far edge. A panel is a strip continuous over the lines
 //! it crosses, so the reaction on a line comes from solving that strip as a continuous beam.
 
+use std::collections::hash_map::Entry;
 use std::collections::HashMap;
 
 use crate::fast_hash::BuildFastHasher;
 
 use super::changes::LayoutChange;
-use super::geometry::{round_i64, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
+use super::geometry::{
+    round_i64, section_into, BoxSection, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
+};
 use super::lines::{GridLine, PlaneFrame};
 use super::{PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
@@ -65,15 +68,86 @@ impl StripCache {
     }
 }
 
-/// What [`bearing_at`] keeps from one call to the next: the strips solved so far and the buffers of
+/// What [`bearing_at`] keeps from one call to the next: the strips solved so far, the buffers of
 /// the plane's section (a roof takes hundreds of bearings; fresh buffers for each were a fifth of
-/// their cost).
+/// their cost), and what the current plane's panels bear on ([`PanelStrips`]).
 #[derive(Debug, Default)]
 pub(crate) struct BearingWork {
     strips: StripCache,
     section: SectionScratch,
     /// Positions of the lines under one panel.
     supports: Vec<f64>,
+    panels: PanelStrips,
+}
+
+/// The plane whose panel strips [`PanelStrips`] holds: its polygon's and grid's addresses and
+/// lengths, and its scale across the lines. One layout lays every plane with one [`BearingWork`] and
+/// keeps every plane's polygon and grid, unchanged, until it is done, so within it an address is
+/// one plane's.
+#[derive(Debug, Clone, Copy, PartialEq, Eq)]
+struct PlaneTag {
+    polygon: (usize, usize),
+    grid: (usize, usize),
+    cross_factor_bits: u64,
+}
+
+impl PlaneTag {
+    fn of(polygon_m: &[[f64; 2]], grid: &[GridLine], frame: &PlaneFrame) -> Self {
+        Self {
+            polygon: (polygon_m.as_ptr() as usize, polygon_m.len()),
+            grid: (grid.as_ptr() as usize, grid.len()),
+            cross_factor_bits: frame.cross_factor.to_bits(),
+        }
+    }
+}
+
+/// One panel side across the lines at one section: the side's ends and the section's coordinate
+/// (their bits), and whether each end is cut on a hip or valley (1: the start, 2: the end).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash)]
+struct SideKey {
+    from_bits: u64,
+    to_bits: u64,
+    along_bits: u64,
+    cut_ends: u8,
+}
+
+/// A panel strip as every line under it sees it: all but which support the line is and its reaction.
+#[derive(Debug, Clone)]
+struct SideStrip {
+    /// Cross positions of the strip's supports, plan m (a cut end's support included).
+    supports_m: Vec<f64>,
+    spans_m: Vec<f64>,
+    overhang_start_m: f64,
+    overhang_end_m: f64,
+    /// Slivers at a cut end, on the slope, m.
+    slivers_m: Vec<f64>,
+    /// Unit-load reactions at the supports, m.
+    reactions_m: Vec<f64>,
+}
+
+/// The strips of the current plane's panels, by panel side and section. Every line under one panel
+/// in one course asks for the same strip (on a rectangle plane every line of a course is sectioned at
+/// one coordinate): finding its supports, spans and reactions again for each line was most of a
+/// bearing's cost. Exact: a strip is kept only where it is the same for every line under it (every
+/// line it reaches carries deck at the section, so which line asks picks no support), and the key
+/// holds, bit for bit, all else it is made from within one plane; a new plane starts afresh.
+#[derive(Debug, Default)]
+struct PanelStrips {
+    plane: Option<PlaneTag>,
+    /// The plane polygon's section shortcut when it is an axis-parallel rectangle.
+    plane_box: Option<BoxSection>,
+    by_side: HashMap<SideKey, SideStrip, BuildFastHasher>,
+}
+
+impl PanelStrips {
+    /// Starts afresh when `tag` is another plane than the one held.
+    fn for_plane(&mut self, tag: PlaneTag, polygon_m: &[[f64; 2]]) {
+        if self.plane != Some(tag) {
+            self.plane = Some(tag);
+            self.plane_box = BoxSection::of(polygon_m);
+            self.by_side.clear();
+        }
+    }
 }
 
 /// The panel ends of one course and what was changed to avoid narrow pieces.
@@ -318,7 +392,12 @@ pub(crate) fn bearing_at(
 ) -> Result<LineBearing, SpacingError> {
     let position = grid[line].position_m;
     let near = |a: f64, b: f64| (a - b).abs() <= SAME_POSITION_M;
-    section_into(polygon_m, frame.run.other(), along_m, &mut work.section);
+    work.panels
+        .for_plane(PlaneTag::of(polygon_m, grid, frame), polygon_m);
+    match &work.panels.plane_box {
+        Some(plane_box) => plane_box.section_into(frame.run.other(), along_m, &mut work.section),
+        None => section_into(polygon_m, frame.run.other(), along_m, &mut work.section),
+    }
     let deck = work
         .section
         .stretches
@@ -381,48 +460,43 @@ pub(crate) fn bearing_at(
 
     let mut strips = Vec::with_capacity(side_count);
     let mut slivers_m = Vec::new();
+    let BearingWork {
+        strips: solved,
+        supports,
+        panels,
+        ..
+    } = work;
     for side in sides.into_iter().flatten() {
-        let supports = &mut work.supports;
-        supports.clear();
-        supports.extend(
-            grid_between(
-                grid,
-                side.from_m - SAME_POSITION_M,
-                side.to_m + SAME_POSITION_M,
-            )
-            .iter()
-            .filter(|g| near(g.position_m, position) || g.is_present_at(along_m))
-            .map(|g| g.position_m),
-        );
-        let mut overhang_start_m = 0.0;
-        let mut overhang_end_m = 0.0;
-        let first = supports.first().copied().unwrap_or(position);
-        // Any deck beyond the outermost support is carried as a cantilever, however short: the
-        // piece's load and its reactions must balance (a sub-millimetre rake overhang once went
-        // missing here). Only slivers of a millimetre or more are worth a word in the output.
-        if first - side.from_m > SAME_POSITION_M {
-            let at_cut = deck.lo_oblique && near(side.from_m, deck.lo);
-            if at_cut && (first - side.from_m) * frame.cross_factor >= SLIVER_M {
-                supports.insert(0, side.from_m);
-            } else {
-                overhang_start_m = first - side.from_m;
-                if at_cut && overhang_start_m > MIN_PIECE_M {
-                    slivers_m.push(overhang_start_m * frame.cross_factor);
+        let cut_start = deck.lo_oblique && near(side.from_m, deck.lo);
+        let cut_end = deck.hi_oblique && near(side.to_m, deck.hi);
+        let key = SideKey {
+            from_bits: side.from_m.to_bits(),
+            to_bits: side.to_m.to_bits(),
+            along_bits: along_m.to_bits(),
+            cut_ends: u8::from(cut_start) | (u8::from(cut_end) << 1),
+        };
+        let for_this_line_only;
+        let strip: &SideStrip = match panels.by_side.entry(key) {
+            Entry::Occupied(kept) => kept.into_mut(),
+            Entry::Vacant(place) => {
+                let on = PanelSideOn {
+                    frame,
+                    grid,
+                    position,
+                    along_m,
+                    cut_start,
+                    cut_end,
+                };
+                let (strip, same_for_every_line) = on.strip(&side, supports, solved)?;
+                if same_for_every_line {
+                    place.insert(strip)
+                } else {
+                    for_this_line_only = strip;
+                    &for_this_line_only
                 }
             }
-        }
-        let last = supports.last().copied().unwrap_or(position);
-        if side.to_m - last > SAME_POSITION_M {
-            let at_cut = deck.hi_oblique && near(side.to_m, deck.hi);
-            if at_cut && (side.to_m - last) * frame.cross_factor >= SLIVER_M {
-                supports.push(side.to_m);
-            } else {
-                overhang_end_m = side.to_m - last;
-                if at_cut && overhang_end_m > MIN_PIECE_M {
-                    slivers_m.push(overhang_end_m * frame.cross_factor);
-                }
-            }
-        }
+        };
+        slivers_m.extend_from_slice(&strip.slivers_m);
         let no_support = || {
             SpacingError::Invalid {
             field: "planes.polygon_m".to_string(),
@@ -431,28 +505,21 @@ pub(crate) fn bearing_at(
             ),
         }
         };
-        let support_index = supports
+        let support_index = strip
+            .supports_m
             .iter()
             .position(|s| near(*s, position))
             .ok_or_else(no_support)?;
-        let spans_m: Vec<f64> = supports
-            .windows(2)
-            .map(|w| (w[1] - w[0]) * frame.cross_factor)
-            .collect();
-        overhang_start_m *= frame.cross_factor;
-        overhang_end_m *= frame.cross_factor;
-        let reactions = work
-            .strips
-            .reactions(&spans_m, overhang_start_m, overhang_end_m)?;
-        let reaction_width_mm = reactions
+        let reaction_width_mm = strip
+            .reactions_m
             .get(support_index)
             .copied()
             .ok_or_else(no_support)?
             * 1000.0;
         strips.push(PanelStrip {
-            spans_m,
-            overhang_start_m,
-            overhang_end_m,
+            spans_m: strip.spans_m.clone(),
+            overhang_start_m: strip.overhang_start_m,
+            overhang_end_m: strip.overhang_end_m,
             support_index,
             reaction_width_mm,
         });
@@ -464,9 +531,252 @@ pub(crate) fn bearing_at(
     })
 }
 
+/// What one panel side's strip is found on: the plane, the line asking for it (`position`), the
+/// section and whether the side's ends are cut on a hip or valley.
+struct PanelSideOn<'a> {
+    frame: &'a PlaneFrame,
+    grid: &'a [GridLine],
+    position: f64,
+    along_m: f64,
+    cut_start: bool,
+    cut_end: bool,
+}
+
+impl PanelSideOn<'_> {
+    /// The strip of `side`, and whether it is the same whichever line under it asks: every line it
+    /// reaches carries deck at the section (a line that does not is a support only for itself).
+    fn strip(
+        &self,
+        side: &PanelSide,
+        supports: &mut Vec<f64>,
+        solved: &mut StripCache,
+    ) -> Result<(SideStrip, bool), SpacingError> {
+        let near = |a: f64, b: f64| (a - b).abs() <= SAME_POSITION_M;
+        let cross_factor = self.frame.cross_factor;
+        let reached = grid_between(
+            self.grid,
+            side.from_m - SAME_POSITION_M,
+            side.to_m + SAME_POSITION_M,
+        );
+        supports.clear();
+        let mut all_carry = !reached.is_empty();
+        for line in reached {
+            let carries = line.is_present_at(self.along_m);
+            all_carry &= carries;
+            if carries || near(line.position_m, self.position) {
+                supports.push(line.position_m);
+            }
+        }
+        let mut slivers_m = Vec::new();
+        let mut overhang_start_m = 0.0;
+        let mut overhang_end_m = 0.0;
+        let first = supports.first().copied().unwrap_or(self.position);
+        // Any deck beyond the outermost support is carried as a cantilever, however short: the
+        // piece's load and its reactions must balance (a sub-millimetre rake overhang once went
+        // missing here). Only slivers of a millimetre or more are worth a word in the output.
+        if first - side.from_m > SAME_POSITION_M {
+            if self.cut_start && (first - side.from_m) * cross_factor >= SLIVER_M {
+                supports.insert(0, side.from_m);
+            } else {
+                overhang_start_m = first - side.from_m;
+                if self.cut_start && overhang_start_m > MIN_PIECE_M {
+                    slivers_m.push(overhang_start_m * cross_factor);
+                }
+            }
+        }
+        let last = supports.last().copied().unwrap_or(self.position);
+        if side.to_m - last > SAME_POSITION_M {
+            if self.cut_end && (side.to_m - last) * cross_factor >= SLIVER_M {
+                supports.push(side.to_m);
+            } else {
+                overhang_end_m = side.to_m - last;
+                if self.cut_end && overhang_end_m > MIN_PIECE_M {
+                    slivers_m.push(overhang_end_m * cross_factor);
+                }
+            }
+        }
+        let spans_m: Vec<f64> = supports
+            .windows(2)
+            .map(|w| (w[1] - w[0]) * cross_factor)
+            .collect();
+        overhang_start_m *= cross_factor;
+        overhang_end_m *= cross_factor;
+        let reactions_m = solved
+            .reactions(&spans_m, overhang_start_m, overhang_end_m)?
+            .to_vec();
+        let strip = SideStrip {
+            supports_m: supports.clone(),
+            spans_m,
+            overhang_start_m,
+            overhang_end_m,
+            slivers_m,
+            reactions_m,
+        };
+        Ok((strip, all_carry))
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::layout::lines::{grid_lines, plane_frame};
+    use crate::layout::{EdgeBlocking, FramingInput, PlaneGeometry};
+
+    #[test]
+    fn a_strip_kept_for_its_panel_is_the_strip_each_line_would_find() {
+        // A hip side (its end lines cut by the hips), a hip end (every jack cut) and a gable
+        // plane, staggered panels; every line's bearing in every course, found with one work kept
+        // over all three planes as the layout keeps it, and with a fresh one for each: the same,
+        // bit for bit.
+        let walls: Vec<[[f64; 2]; 2]> = {
+            let corners = [[0.0, 0.0], [12.0, 0.0], [12.0, 6.0], [0.0, 6.0]];
+            (0..4).map(|i| [corners[i], corners[(i + 1) % 4]]).collect()
+        };
+        let framing = FramingInput {
+            spacing_mm: 610.0,
+            lines_along: None,
+            walls_m: walls,
+        };
+        let panel = PanelInput {
+            length_mm: 2440.0,
+            width_mm: 1220.0,
+            stagger: Stagger::Half,
+            min_piece_mm: 600.0,
+            blocking: EdgeBlocking::None,
+            start: StartCorner::SmallerCoordinate,
+            first_course_width_mm: 1220.0,
+            first_panel_length_mm: 2440.0,
+        };
+        let planes = [
+            PlaneGeometry {
+                polygon_m: vec![[0.0, 0.0], [12.0, 0.0], [9.0, 3.0], [3.0, 3.0]],
+                slope_deg: 30.0,
+                downslope_m: [0.0, -1.0],
+            },
+            PlaneGeometry {
+                polygon_m: vec![[0.0, 0.0], [3.0, 3.0], [0.0, 6.0]],
+                slope_deg: 30.0,
+                downslope_m: [-1.0, 0.0],
+            },
+            PlaneGeometry {
+                polygon_m: vec![[0.0, 3.0], [12.0, 3.0], [12.0, 6.0], [0.0, 6.0]],
+                slope_deg: 30.0,
+                downslope_m: [0.0, 1.0],
+            },
+        ];
+        let mut kept = BearingWork::default();
+        let (mut bearings, mut cut, mut strips_found, mut strips_kept) = (0, 0, 0, 0);
+        for (plane_index, plane) in planes.iter().enumerate() {
+            let frame = plane_frame(plane_index, plane, &framing).expect("valid plane");
+            let grid = grid_lines(plane, &frame, &framing).expect("valid grid");
+            let layer = CourseLayer {
+                plane_index,
+                frame: &frame,
+                grid: &grid,
+                panel: &panel,
+                framing_spacing_mm: 610.0,
+            };
+            let first = layer.joints(0, None).expect("laid");
+            let bands = course_bands(frame.slope_length_m(), 1.22, 1.22);
+            let courses: Vec<Vec<f64>> = (0..bands.len())
+                .map(|index| {
+                    let laid = if index == 0 {
+                        first.clone()
+                    } else {
+                        layer.joints(index, first.first_joint_m).expect("laid")
+                    };
+                    laid.joints_m
+                })
+                .collect();
+            for (line, grid_line) in grid.iter().enumerate() {
+                for interval in &grid_line.intervals_m {
+                    let a = frame.slope_from_low_edge_m(interval[0]);
+                    let b = frame.slope_from_low_edge_m(interval[1]);
+                    for (band, joints_m) in bands.iter().zip(&courses) {
+                        let from = a.min(b).max(band[0]);
+                        let to = a.max(b).min(band[1]);
+                        if to - from < MIN_PIECE_M {
+                            continue;
+                        }
+                        let along_m = frame.along_at_m(0.5 * (from + to));
+                        let polygon = &plane.polygon_m;
+                        let with_kept =
+                            bearing_at(polygon, &frame, &grid, joints_m, line, along_m, &mut kept);
+                        let alone = bearing_at(
+                            polygon,
+                            &frame,
+                            &grid,
+                            joints_m,
+                            line,
+                            along_m,
+                            &mut BearingWork::default(),
+                        );
+                        assert_eq!(with_kept, alone, "plane {plane_index} line {line}");
+                        bearings += 1;
+                        let strips = alone.expect("bears").strips;
+                        cut += usize::from(strips.iter().any(|s| s.overhang_start_m > 0.0));
+                        strips_found += strips.len();
+                    }
+                }
+            }
+            // Each plane starts afresh: what is kept at its end was kept for it.
+            strips_kept += kept.panels.by_side.len();
+        }
+        // The planes are what the test says: many bearings, strips that end in cantilevers, and
+        // most strips taken from the kept ones.
+        assert!(bearings > 100, "{bearings}");
+        assert!(cut > 0);
+        assert!(
+            2 * strips_kept < strips_found,
+            "{strips_kept} kept for {strips_found}"
+        );
+    }
+
+    #[test]
+    fn a_strip_that_depends_on_the_line_asking_is_not_kept() {
+        // A 4.88 m wide plane, lines every 0.61 m, one panel 2.44 m long over five of them; the
+        // line at 1.22 m stops short of the section at 1.5 m (a gap in it, as at an opening): it
+        // supports the panel only for itself. Whichever line asks first, each gets what it would
+        // find alone.
+        let corners = [[0.0, 0.0], [4.88, 0.0], [4.88, 3.0], [0.0, 3.0]];
+        let plane = PlaneGeometry {
+            polygon_m: corners.to_vec(),
+            slope_deg: 30.0,
+            downslope_m: [0.0, -1.0],
+        };
+        let framing = FramingInput {
+            spacing_mm: 610.0,
+            lines_along: None,
+            walls_m: (0..4).map(|i| [corners[i], corners[(i + 1) % 4]]).collect(),
+        };
+        let frame = plane_frame(0, &plane, &framing).expect("valid plane");
+        assert_eq!(frame.run, super::super::Axis::Y);
+        let grid: Vec<GridLine> = (0..=8)
+            .map(|i| GridLine {
+                position_m: f64::from(i) * 0.61,
+                intervals_m: if i == 2 {
+                    vec![[0.0, 1.0], [2.0, 3.0]]
+                } else {
+                    vec![[0.0, 3.0]]
+                },
+                kind: crate::layout::LineKind::Common,
+            })
+            .collect();
+        let joints_m = [0.0, 2.44, 4.88];
+        for order in [[2, 1, 3, 0, 4], [1, 3, 0, 4, 2]] {
+            let mut kept = BearingWork::default();
+            for line in order {
+                let find = |work: &mut BearingWork| {
+                    bearing_at(&plane.polygon_m, &frame, &grid, &joints_m, line, 1.5, work)
+                };
+                let alone = find(&mut BearingWork::default());
+                assert_eq!(find(&mut kept), alone, "line {line} of {order:?}");
+                // The line with the gap is a support of its own strip only.
+                let strip = &alone.expect("bears").strips[0];
+                assert_eq!(strip.spans_m.len(), if line == 2 { 4 } else { 3 });
+            }
+        }
+    }
 
     #[test]
     fn bisecting_the_grid_finds_what_a_scan_finds() {
