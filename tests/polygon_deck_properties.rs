@@ -16,7 +16,8 @@
 
 use deckhold_tests::deck_checks::{check_piece_equilibrium, check_pieces};
 use deckhold_tests::reach::{cases, run_counted, REACHED};
-use deckhold_tests::roofs::{lay_out, polygon_roofs, LaidOut};
+use deckhold_tests::roofs::{lay_out, polygon_roofs, LaidOut, Roof};
+use serde_json::json;
 
 #[test]
 fn pieces_on_random_l_t_u_z_roofs_cover_each_plane_once_and_end_on_its_framing() {
@@ -51,4 +52,25 @@ fn reactions_of_each_piece_on_random_l_t_u_z_roofs_add_up_to_its_load() {
             Ok(true)
         },
     );
+}
+
+#[test]
+fn a_course_band_meeting_the_plane_by_a_hair_lays_no_piece_there() {
+    // A U hip roof found by the property above: on one side plane the ridge lies 0.05 mm up the slope
+    // past the fifth course's foot over 2.4 m of its width, and a "piece" 0.05 mm wide was laid there,
+    // which no line bears on (reactions 0 mm against a load of 2,400 mm).
+    let roof = Roof {
+        footprint: json!({ "polygon_m": [
+            [0.0, 6.5], [4.0, 6.5], [4.0, 5.0], [15.0, 5.0],
+            [15.0, 16.0], [4.0, 16.0], [4.0, 17.5], [0.0, 17.5]
+        ] }),
+        shape: "hip",
+        slope_deg: 38.74,
+        spacing_mm: 300.0,
+        eave_mm: 8.0,
+        rake_mm: 0.0,
+    };
+    let laid = lay_out(&roof).expect("the wind method takes the roof");
+    check_piece_equilibrium(&laid.layout).expect("every piece in equilibrium");
+    check_pieces(&laid.wind, &laid.layout, laid.min_piece_mm).expect("the pieces cover the planes");
 }

@@ -83,7 +83,9 @@ pub fn check_pieces(
                     lo[0] + (hi[0] - lo[0]) * (f64::from(i) + 0.3719) / 13.0,
                     lo[1] + (hi[1] - lo[1]) * (f64::from(j) + 0.6173) / 11.0,
                 ];
-                if distance_to_boundary(&plane.polygon_m, p) < 1e-6 {
+                // Within the layout's millimetre of the plane's edge a course may lay no piece (a
+                // band meeting the plane by a hair there is none).
+                if distance_to_boundary(&plane.polygon_m, p) < 1e-3 {
                     continue;
                 }
                 let covering = pieces

@@ -11,7 +11,7 @@
 //! cantilever, as the bearings do.
 
 use super::courses::{grid_between, SLIVER_M};
-use super::geometry::{edges, section_into, SectionScratch, SAME_POSITION_M};
+use super::geometry::{edges, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{Course, DeckPiece};
 
@@ -75,13 +75,25 @@ impl PieceCutter<'_> {
         if outline_m.len() < 3 {
             return None;
         }
+        let r = frame.run.index();
+        // Deck less than the layout's millimetre up the slope is no piece: a course band that meets
+        // the plane only by a hair (the plane's top edge a few hundredths of a millimetre above the
+        // band's foot over part of its width), where the lines bear on no stretch that short either.
+        let (low_m, high_m) = outline_m
+            .iter()
+            .map(|p| frame.slope_from_low_edge_m(p[r]))
+            .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), h| {
+                (lo.min(h), hi.max(h))
+            });
+        if high_m - low_m < MIN_PIECE_M {
+            return None;
+        }
         // Heights to look at: the band's edges (a hair inside), its middle, the outline's corners.
         let mut heights = vec![
             course.from_m + INSIDE_BAND_M,
             0.5 * (course.from_m + course.to_m),
             course.to_m - INSIDE_BAND_M,
         ];
-        let r = frame.run.index();
         heights.extend(
             outline_m
                 .iter()
