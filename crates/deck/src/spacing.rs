@@ -365,7 +365,20 @@ impl<'u> LoadCache<'u> {
 /// Nails in one row over `length_m` at `spacing_mm`: one at each end of the stretch and at each spacing
 /// between, counting the shared end once (so a stretch holds ceil(L/s) nails, at least 1).
 fn nails_in_row(length_m: f64, spacing_mm: f64) -> u64 {
-    let count = (length_m * 1000.0 / spacing_mm - 1e-9).ceil();
+    let rows = length_m * 1000.0 / spacing_mm - 1e-9;
+    // Below 2^52 (any stretch of a roof) the ceiling is the whole part, plus one if a fraction is
+    // left: exact, and without the library call `ceil` is on baseline x86-64 (no rounding
+    // instruction), made once per segment. Anything else (none, negative, huge, not a number) as
+    // the ceiling always was.
+    if rows > 0.0 && rows < 4.0e15 {
+        let whole = rows as u64;
+        return if (whole as f64) < rows {
+            whole + 1
+        } else {
+            whole
+        };
+    }
+    let count = rows.ceil();
     if count.is_finite() && count >= 1.0 {
         count as u64
     } else {
@@ -937,6 +950,44 @@ mod tests {
         let uplift = move |_: usize, _: f64| -> Result<f64, String> { Ok(pressure_kpa) };
         let nail = test_nail(resistance_n);
         plan_on_layout(&flat_layout(), &uplift, &nail, &si_rules()).expect("valid deck")
+    }
+
+    #[test]
+    fn nails_in_a_row_are_the_ceiling_of_length_over_spacing() {
+        // The whole-part shortcut against the library's ceiling, at and around whole numbers of
+        // spacings, tiny, huge and odd lengths.
+        let by_ceil = |length_m: f64, spacing_mm: f64| {
+            let count = (length_m * 1000.0 / spacing_mm - 1e-9).ceil();
+            if count.is_finite() && count >= 1.0 {
+                count as u64
+            } else {
+                1
+            }
+        };
+        let mut lengths_m = vec![
+            0.0,
+            -1.0,
+            1e-12,
+            1e-6,
+            0.15,
+            0.3,
+            4.88,
+            1e12,
+            1e20,
+            f64::NAN,
+        ];
+        lengths_m.extend((0..3000).map(|i| f64::from(i) * 0.0125));
+        lengths_m.extend((1..3000).map(|i| f64::from(i) * 0.15 + 1e-12));
+        lengths_m.push(f64::INFINITY);
+        for length_m in lengths_m {
+            for spacing_mm in [50.0, 75.0, 100.0, 125.0, 150.0, 152.4, 300.0, 304.8] {
+                assert_eq!(
+                    nails_in_row(length_m, spacing_mm),
+                    by_ceil(length_m, spacing_mm),
+                    "{length_m} m at {spacing_mm} mm"
+                );
+            }
+        }
     }
 
     #[test]

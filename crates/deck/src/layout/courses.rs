@@ -25,7 +25,9 @@ use crate::error::SpacingError;
 /// each strip's reactions equal to its load to better than 1e-9.
 #[derive(Debug, Default)]
 pub(crate) struct StripCache {
-    solved: HashMap<Vec<i64>, Vec<f64>, BuildFastHasher>,
+    /// Each solved strip's place in `solved`, by its rounded geometry.
+    solved_at: HashMap<Vec<i64>, usize, BuildFastHasher>,
+    solved: Vec<Vec<f64>>,
     /// The key being looked up, kept to save an allocation per strip.
     key: Vec<i64>,
 }
@@ -41,7 +43,8 @@ fn from_key(key: i64) -> f64 {
 
 impl StripCache {
     /// Unit-load reactions (tributary widths, m) of the strip; the geometry is rounded to 0.1 nm so
-    /// that strips equal in practice share one solution.
+    /// that strips equal in practice share one solution. One hash lookup for a strip solved before
+    /// (a lookup, then a second to hand back the reactions, cost half as much again).
     fn reactions(
         &mut self,
         spans_m: &[f64],
@@ -53,18 +56,16 @@ impl StripCache {
         key.extend(spans_m.iter().map(|s| to_key(*s)));
         key.push(to_key(overhang_start_m));
         key.push(to_key(overhang_end_m));
-        if !self.solved.contains_key(key.as_slice()) {
-            let spans: Vec<f64> = key[..spans_m.len()].iter().map(|k| from_key(*k)).collect();
-            let start = from_key(key[spans_m.len()]);
-            let end = from_key(key[spans_m.len() + 1]);
-            let reactions = strip_reactions(&spans, start, end, 1.0)?;
-            self.solved.insert(key.clone(), reactions);
+        if let Some(&at) = self.solved_at.get(key.as_slice()) {
+            return Ok(&self.solved[at]);
         }
-        Ok(self
-            .solved
-            .get(self.key.as_slice())
-            .map(Vec::as_slice)
-            .unwrap_or(&[]))
+        let spans: Vec<f64> = key[..spans_m.len()].iter().map(|k| from_key(*k)).collect();
+        let start = from_key(key[spans_m.len()]);
+        let end = from_key(key[spans_m.len() + 1]);
+        let reactions = strip_reactions(&spans, start, end, 1.0)?;
+        self.solved_at.insert(key.clone(), self.solved.len());
+        self.solved.push(reactions);
+        Ok(&self.solved[self.solved.len() - 1])
     }
 }
 
