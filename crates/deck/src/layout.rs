@@ -387,6 +387,7 @@ pub fn layout_deck_with(
             bounds(&plane.polygon_m),
             framing.spacing_mm / 2000.0 + MIN_PIECE_M,
         );
+        lines.reserve(grid.len());
         for line in 0..grid.len() {
             number += 1;
             let context = PlaneContext {
@@ -516,9 +517,11 @@ fn lay_out_line(
         position_m: grid_line.position_m,
         half_width_m: framing.spacing_mm / 2000.0,
     };
+    // Sized as they are filled (a push at a time regrew these vectors some thirty times a roof).
     let mut zone_list = Vec::new();
     for interval in &grid_line.intervals_m {
         zone_pieces_with(strip, *interval, zones, zone_work)?;
+        zone_list.reserve_exact(zone_work.pieces.len());
         for piece in &zone_work.pieces {
             let a = frame.slope_from_low_edge_m(piece.from_m) - start_m;
             let b = frame.slope_from_low_edge_m(piece.to_m) - start_m;
@@ -531,7 +534,7 @@ fn lay_out_line(
     }
     zone_list.sort_by(|p, q| p.from_m.total_cmp(&q.from_m));
 
-    let mut bearings = Vec::new();
+    let mut bearings = Vec::with_capacity(slope_intervals.len() * context.courses.len());
     for interval in &slope_intervals {
         for course in context.courses {
             let from = interval[0].max(course.from_m);

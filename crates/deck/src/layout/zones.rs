@@ -45,7 +45,9 @@ struct ZoneShape<'a> {
 }
 
 /// Each zone's polygons with the convex pieces that share an edge joined (see `zone_merge`), made
-/// once per layout: the shapes the lines are split against borrow from here.
+/// once per layout: the shapes the lines are split against borrow from here. A zone that comes as
+/// axis-parallel rectangles only (a rectangle roof's, joined row by row already) is taken as it
+/// comes: joining the few left cost as much as the lines gained.
 #[derive(Debug, Clone)]
 pub(crate) struct JoinedZones {
     zones: Vec<(usize, Vec<Vec<[f64; 2]>>)>,
@@ -56,7 +58,18 @@ impl JoinedZones {
         Self {
             zones: zones
                 .iter()
-                .map(|zone| (zone.zone_index, joined_convex(&zone.polygons_m)))
+                .map(|zone| {
+                    let rectangles = zone
+                        .polygons_m
+                        .iter()
+                        .all(|polygon| BoxSection::of(polygon).is_some());
+                    let polygons = if rectangles {
+                        zone.polygons_m.clone()
+                    } else {
+                        joined_convex(&zone.polygons_m)
+                    };
+                    (zone.zone_index, polygons)
+                })
                 .collect(),
         }
     }
