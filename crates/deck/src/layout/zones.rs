@@ -244,11 +244,23 @@ pub(crate) fn zone_pieces_with(
     // starts or stops touching the strip. A vertex outside the strip changes nothing inside it.
     breaks.clear();
     breaks.extend(along_m);
-    for polygon in candidates
+    // A rectangle that reaches the strip starts and stops touching it at its two ends along the line:
+    // its corners in the strip and its sides' crossings of the strip's sides are those ends.
+    let rectangles = candidates
         .iter()
-        .map(|index| shape(index).polygon)
-        .chain([line.plane_polygon_m])
-    {
+        .map(shape)
+        .filter_map(|shape| shape.box_section.map(|_| shape.bounds))
+        .chain(plane_box.map(|plane| plane.bounds()));
+    for [lo, hi] in rectangles {
+        breaks.extend([lo[r], hi[r]]);
+    }
+    let others = candidates
+        .iter()
+        .map(shape)
+        .filter(|shape| shape.box_section.is_none())
+        .map(|shape| shape.polygon)
+        .chain(plane_box.is_none().then_some(line.plane_polygon_m));
+    for polygon in others {
         breaks.extend(
             polygon
                 .iter()
