@@ -324,6 +324,7 @@ impl<'u> LoadCache<'u> {
     /// The place in `kinds` of the stretch kind (`zone_index`, `reaction_width_mm`, `role`), worked out
     /// when first met: the widest increment of `allowed` (widest first) that holds. `allowed` and
     /// `resistance_n` must be the same for every call with one role.
+    #[inline]
     fn kind(
         &mut self,
         role: SupportRole,
@@ -333,9 +334,23 @@ impl<'u> LoadCache<'u> {
         resistance_n: f64,
     ) -> Result<usize, SpacingError> {
         let key = (zone_index, reaction_width_mm.to_bits(), role);
-        if let Some(at) = self.kind_at.get(&key) {
-            return Ok(*at);
+        match self.kind_at.get(&key) {
+            Some(at) => Ok(*at),
+            None => self.new_kind(key, allowed, reaction_width_mm, resistance_n),
         }
+    }
+
+    /// [`LoadCache::kind`] for a kind met for the first time (out of line: the lookup above is
+    /// what nearly every stretch takes, and inlined it saves a call per stretch).
+    #[inline(never)]
+    fn new_kind(
+        &mut self,
+        key: (usize, u64, SupportRole),
+        allowed: &[f64],
+        reaction_width_mm: f64,
+        resistance_n: f64,
+    ) -> Result<usize, SpacingError> {
+        let (zone_index, _, role) = key;
         let mut widest_mm = None;
         for &spacing_mm in allowed {
             let load = nail_load(
