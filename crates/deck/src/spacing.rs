@@ -586,8 +586,11 @@ fn plan_with(
     let mut line_kinds: Vec<Option<usize>> = Vec::new();
     let mut lines = Vec::with_capacity(layout.lines.len());
     for line in &layout.lines {
-        // At most one segment per bearing and zone piece.
-        let mut segments = Vec::with_capacity(line.bearings.len() * line.zones.len());
+        // The bearings and the zone pieces each run up the line without overlapping, so they make
+        // at most one segment fewer than there are of both (more only grows the vector). Room for
+        // one per bearing and piece, as once, was a block of kilobytes a line, past the allocator's
+        // small sizes.
+        let mut segments = Vec::with_capacity(line.bearings.len() + line.zones.len());
         line_kinds.clear();
         // Blocking: two rows (the panel edges on both sides of the course joint), not sized by the
         // strip model (reaction 0: it gives the blocking no share of the uplift); pass 3 gives it
