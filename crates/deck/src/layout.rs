@@ -15,7 +15,10 @@ mod pieces;
 mod zone_merge;
 mod zones;
 
+use std::sync::Arc;
+
 use serde::{Deserialize, Serialize};
+use smallvec::SmallVec;
 
 use crate::error::{check_positive, check_range, SpacingError};
 pub use blocking::EdgeBlocking;
@@ -142,8 +145,9 @@ pub use deckhold_core::{LineKind, SupportRole};
 /// One panel strip bearing on a line: a continuous beam over the lines it crosses.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
 pub struct PanelStrip {
-    /// Spans between the supports the strip crosses, on the slope, m.
-    pub spans_m: Vec<f64>,
+    /// Spans between the supports the strip crosses, on the slope, m. Shared by the bearings of every
+    /// line under the panel (one strip, seen from each of its supports).
+    pub spans_m: Arc<[f64]>,
     /// Deck running past the first and last support as a cantilever, on the slope, m.
     pub overhang_start_m: f64,
     pub overhang_end_m: f64,
@@ -162,8 +166,9 @@ pub struct Bearing {
     pub from_m: f64,
     pub to_m: f64,
     pub support_role: SupportRole,
-    /// One strip for an intermediate support or a deck edge, two at a panel end joint.
-    pub strips: Vec<PanelStrip>,
+    /// One strip for an intermediate support or a deck edge, two at a panel end joint: held inline (a
+    /// roof has some 250 bearings, and a vector each was a fifth of the layout's allocations).
+    pub strips: SmallVec<[PanelStrip; 2]>,
     /// Where along the line the strips were taken, m from the line's start: the middle of the
     /// line's stretch in the course.
     pub strip_at_m: f64,

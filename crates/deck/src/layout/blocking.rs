@@ -12,6 +12,8 @@
 //! are not sized by the strip model (it gives them no share of the uplift) but take the panel-edge
 //! pattern of their zone, the prescriptive reading for a blocked panel edge.
 
+use smallvec::SmallVec;
+
 use super::geometry::{section, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::zones::{zone_pieces, LineStrip, ZoneShapes};
@@ -105,7 +107,7 @@ pub(crate) fn blocking_lines(
                 from_m: to_slope(stretch[0]),
                 to_m: to_slope(stretch[1]),
                 support_role: SupportRole::PanelEdge,
-                strips: Vec::new(),
+                strips: SmallVec::new(),
                 strip_at_m: 0.0,
             });
         }

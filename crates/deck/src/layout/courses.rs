@@ -8,6 +8,9 @@
 
 use std::collections::hash_map::Entry;
 use std::collections::HashMap;
+use std::sync::Arc;
+
+use smallvec::SmallVec;
 
 use crate::fast_hash::BuildFastHasher;
 
@@ -117,7 +120,7 @@ struct SideKey {
 struct SideStrip {
     /// Cross positions of the strip's supports, plan m (a cut end's support included).
     supports_m: Vec<f64>,
-    spans_m: Vec<f64>,
+    spans_m: Arc<[f64]>,
     overhang_start_m: f64,
     overhang_end_m: f64,
     /// Slivers at a cut end, on the slope, m.
@@ -365,7 +368,7 @@ pub const SLIVER_M: f64 = 0.1;
 #[derive(Debug, Clone, PartialEq)]
 pub(crate) struct LineBearing {
     pub role: SupportRole,
-    pub strips: Vec<PanelStrip>,
+    pub strips: SmallVec<[PanelStrip; 2]>,
     pub slivers_m: Vec<f64>,
 }
 
@@ -459,7 +462,7 @@ pub(crate) fn bearing_at(
         SupportRole::Intermediate
     };
 
-    let mut strips = Vec::with_capacity(side_count);
+    let mut strips = SmallVec::new();
     let mut slivers_m = Vec::new();
     let BearingWork {
         strips: solved,
@@ -518,7 +521,7 @@ pub(crate) fn bearing_at(
             .ok_or_else(no_support)?
             * 1000.0;
         strips.push(PanelStrip {
-            spans_m: strip.spans_m.clone(),
+            spans_m: Arc::clone(&strip.spans_m),
             overhang_start_m: strip.overhang_start_m,
             overhang_end_m: strip.overhang_end_m,
             support_index,
@@ -607,7 +610,7 @@ impl PanelSideOn<'_> {
             .to_vec();
         let strip = SideStrip {
             supports_m: supports.clone(),
-            spans_m,
+            spans_m: spans_m.into(),
             overhang_start_m,
             overhang_end_m,
             slivers_m,
