@@ -297,6 +297,13 @@ pub struct DeckLayout {
     /// Empty when laid out with [`LayoutDetail::ForSpacing`].
     pub pieces: Vec<DeckPiece>,
     pub laying_starts: Vec<LayingStart>,
+    /// The zone order the layout was made with (`zone_rank[zone_index]`, higher = worse): the plan
+    /// keeps it too, within each family of `zone_family` (a worse zone is never nailed wider than a
+    /// milder one of its family).
+    pub zone_rank: Vec<u32>,
+    /// Which zones are compared for that order, by zone index: all one family (0) as laid out; a
+    /// caller whose zones carry the deck differently (overhangs, as cantilevers) sets them apart.
+    pub zone_family: Vec<u32>,
 }
 
 /// How much of the deck a layout works out.
@@ -477,6 +484,8 @@ pub fn layout_deck_with(
         framing: framing_lines,
         pieces,
         laying_starts,
+        zone_rank: zone_rank.to_vec(),
+        zone_family: vec![0; zone_rank.len()],
     })
 }
 

@@ -120,6 +120,9 @@ pub enum SpacingLimit {
     NoPracticalSpacing,
     /// A given pattern being checked, not sized.
     Given,
+    /// A zone with more uplift is nailed no wider than a milder zone for the same support role: its
+    /// own stretches would allow wider.
+    ZoneOrder,
 }
 
 impl SpacingLimit {
@@ -129,6 +132,7 @@ impl SpacingLimit {
             SpacingLimit::PrescriptiveMaximum => "prescriptive maximum",
             SpacingLimit::NoPracticalSpacing => "no practical spacing",
             SpacingLimit::Given => "as given",
+            SpacingLimit::ZoneOrder => "zone order (no wider than a milder zone)",
         }
     }
 }
@@ -738,6 +742,11 @@ fn plan_with(
             }
         }
     }
+    // What each zone and role's own stretches need, before the zone order below.
+    let own_patterns: Vec<Option<f64>> = patterns.iter().map(|(_, pattern)| *pattern).collect();
+    if given.is_none() {
+        keep_zone_order(&mut patterns, &layout.zone_rank, &layout.zone_family);
+    }
     let pattern_for = |key: (usize, SupportRole)| -> Option<f64> {
         patterns
             .binary_search_by(|(k, _)| k.cmp(&key))
@@ -848,7 +857,7 @@ fn plan_with(
         }
     }
     let mut zone_roles = Vec::with_capacity(keys.len());
-    for (key, tally) in keys.iter().copied().zip(&tallies) {
+    for ((key, tally), own) in keys.iter().copied().zip(&tallies).zip(&own_patterns) {
         let pattern = pattern_for(key);
         let Some((governing_line, governing)) = tally.governing else {
             continue;
@@ -857,6 +866,7 @@ fn plan_with(
         let limited_by = match pattern {
             _ if given.is_some() => SpacingLimit::Given,
             None => SpacingLimit::NoPracticalSpacing,
+            Some(_) if pattern != *own => SpacingLimit::ZoneOrder,
             Some(spacing) if Some(spacing) == widest => SpacingLimit::PrescriptiveMaximum,
             Some(_) => SpacingLimit::Strength,
         };
@@ -881,6 +891,40 @@ fn plan_with(
         total_nail_count,
         total_nail_mass_kg: total_nail_count as f64 * nail.mass_g / 1000.0,
     })
+}
+
+/// Keeps the zones in order: for each support role and family, a zone with more uplift (a higher
+/// `zone_rank`) is nailed no wider than any milder zone, and has no working spacing where a milder
+/// one has none. The crew nails by zone, and a corner nailed wider than its edge (its own lines
+/// happening to carry less than an edge line next to a short bay) reads as a mistake and is the
+/// milder reading.
+fn keep_zone_order(
+    patterns: &mut [((usize, SupportRole), Option<f64>)],
+    zone_rank: &[u32],
+    zone_family: &[u32],
+) {
+    let rank = |zone_index: usize| zone_rank.get(zone_index).copied().unwrap_or(0);
+    let family = |zone_index: usize| zone_family.get(zone_index).copied().unwrap_or(0);
+    let mut order: Vec<usize> = (0..patterns.len()).collect();
+    order.sort_by_key(|&at| {
+        let ((zone_index, role), _) = patterns[at];
+        (role, family(zone_index), rank(zone_index), zone_index)
+    });
+    let mut closest: Option<((SupportRole, u32), Option<f64>)> = None;
+    for at in order {
+        let ((zone_index, role), own) = patterns[at];
+        let group = (role, family(zone_index));
+        let milder = match closest {
+            Some((closest_group, milder)) if closest_group == group => milder,
+            _ => Some(f64::INFINITY),
+        };
+        let kept = match (milder, own) {
+            (Some(milder), Some(own)) => Some(milder.min(own)),
+            _ => None,
+        };
+        patterns[at].1 = kept;
+        closest = Some((group, kept));
+    }
 }
 
 #[cfg(test)]
@@ -968,6 +1012,82 @@ mod tests {
         let uplift = move |_: usize, _: f64| -> Result<f64, String> { Ok(pressure_kpa) };
         let nail = test_nail(resistance_n);
         plan_on_layout(&flat_layout(), &uplift, &nail, &si_rules()).expect("valid deck")
+    }
+
+    #[test]
+    fn a_worse_zone_is_never_nailed_wider_than_a_milder_one() {
+        // The worse zone (rank 1, 10 % more uplift) holds only the line at 1.22 m, whose strip reaction
+        // is 26/28 of the 610 mm span; the milder zone holds lines at 32/28 (Hicks, Civil Engineering
+        // Formulas, Table 2.1: four equal spans). At 190 N the milder zone needs 250 mm
+        // (1.0 kPa x 697 mm x 300 mm = 209 N), the worse zone alone 300 mm (1.1 x 566 x 300 = 187 N):
+        // it is held to 250 mm, and says why.
+        let (planes, _, framing, panel) = flat_deck();
+        let zones = vec![
+            ZoneRegion {
+                zone_index: 0,
+                polygons_m: vec![
+                    rectangle(0.0, 0.0, 1.0, 4.88),
+                    rectangle(1.4, 0.0, 9.76, 4.88),
+                ],
+            },
+            ZoneRegion {
+                zone_index: 1,
+                polygons_m: vec![rectangle(1.0, 0.0, 1.4, 4.88)],
+            },
+        ];
+        let layout = layout_deck(&planes, &zones, &[0, 1], &framing, &panel).expect("valid deck");
+        let uplift = |zone_index: usize, _: f64| -> Result<f64, String> {
+            Ok(if zone_index == 1 { 1.1 } else { 1.0 })
+        };
+        let plan = plan_on_layout(&layout, &uplift, &test_nail(190.0), &si_rules()).expect("plan");
+        let milder = plan
+            .zone_role(0, SupportRole::Intermediate)
+            .expect("milder");
+        let worse = plan.zone_role(1, SupportRole::Intermediate).expect("worse");
+        assert_eq!(milder.spacing_mm, Some(250.0));
+        assert_eq!(milder.limited_by, SpacingLimit::Strength);
+        assert_eq!(worse.spacing_mm, Some(250.0));
+        assert_eq!(worse.limited_by, SpacingLimit::ZoneOrder);
+        // A checked pattern is checked as given, in any order.
+        let given =
+            |zone_index: usize, _: SupportRole| Some(if zone_index == 1 { 300.0 } else { 250.0 });
+        let checked = check_on_layout(&layout, &uplift, &test_nail(190.0), &si_rules(), &given)
+            .expect("check");
+        assert_eq!(
+            checked
+                .zone_role(1, SupportRole::Intermediate)
+                .expect("worse")
+                .spacing_mm,
+            Some(300.0)
+        );
+    }
+
+    #[test]
+    fn zone_order_takes_the_closest_milder_pattern_and_none_where_a_milder_has_none() {
+        use SupportRole::{Intermediate as I, PanelEdge as E};
+        let mut patterns = vec![
+            ((0, E), Some(150.0)),
+            ((0, I), Some(200.0)),
+            ((1, E), Some(150.0)),
+            ((1, I), Some(300.0)),
+            ((2, I), Some(250.0)),
+            ((3, I), None),
+            ((4, I), Some(100.0)),
+        ];
+        // Ranks: zone 2 mildest, then 0, 1, 3, 4; one family.
+        keep_zone_order(&mut patterns, &[1, 2, 0, 3, 4], &[0; 5]);
+        assert_eq!(
+            patterns.iter().map(|(_, p)| *p).collect::<Vec<_>>(),
+            vec![
+                Some(150.0),
+                Some(200.0),
+                Some(150.0),
+                Some(200.0),
+                Some(250.0),
+                None,
+                None
+            ]
+        );
     }
 
     #[test]

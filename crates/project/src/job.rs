@@ -183,14 +183,22 @@ fn deck_layout_with(
     detail: LayoutDetail,
 ) -> Result<DeckLayout, JobError> {
     let geometry = DeckGeometry::new(project, wind)?;
-    Ok(layout_deck_with(
+    let mut layout = layout_deck_with(
         &geometry.planes,
         &geometry.zones,
         &geometry.zone_rank,
         &geometry.framing,
         &geometry.panel,
         detail,
-    )?)
+    )?;
+    // The zone order of the nailing holds among the roof's zones and among the overhangs' apart: an
+    // overhang carries its deck as a cantilever, and its own order is the overhang zones'.
+    layout.zone_family = wind
+        .zones
+        .iter()
+        .map(|zone| u32::from(zone.label.is_overhang()))
+        .collect();
+    Ok(layout)
 }
 
 /// The plan geometry and zone data in the form the layout takes.
