@@ -15,9 +15,7 @@ use smallvec::SmallVec;
 use crate::fast_hash::BuildFastHasher;
 
 use super::changes::LayoutChange;
-use super::geometry::{
-    round_i64, section_into, BoxSection, SectionScratch, MIN_PIECE_M, SAME_POSITION_M,
-};
+use super::geometry::{round_i64, section_into, SectionScratch, MIN_PIECE_M, SAME_POSITION_M};
 use super::lines::{GridLine, PlaneFrame};
 use super::{PanelInput, PanelStrip, Stagger, StartCorner, SupportRole};
 use crate::beam::strip_reactions;
@@ -138,17 +136,14 @@ struct SideStrip {
 #[derive(Debug, Default)]
 struct PanelStrips {
     plane: Option<PlaneTag>,
-    /// The plane polygon's section shortcut when it is an axis-parallel rectangle.
-    plane_box: Option<BoxSection>,
     by_side: HashMap<SideKey, SideStrip, BuildFastHasher>,
 }
 
 impl PanelStrips {
     /// Starts afresh when `tag` is another plane than the one held.
-    fn for_plane(&mut self, tag: PlaneTag, polygon_m: &[[f64; 2]]) {
+    fn for_plane(&mut self, tag: PlaneTag) {
         if self.plane != Some(tag) {
             self.plane = Some(tag);
-            self.plane_box = BoxSection::of(polygon_m);
             self.by_side.clear();
         }
     }
@@ -396,12 +391,8 @@ pub(crate) fn bearing_at(
 ) -> Result<LineBearing, SpacingError> {
     let position = grid[line].position_m;
     let near = |a: f64, b: f64| (a - b).abs() <= SAME_POSITION_M;
-    work.panels
-        .for_plane(PlaneTag::of(polygon_m, grid, frame), polygon_m);
-    match &work.panels.plane_box {
-        Some(plane_box) => plane_box.section_into(frame.run.other(), along_m, &mut work.section),
-        None => section_into(polygon_m, frame.run.other(), along_m, &mut work.section),
-    }
+    work.panels.for_plane(PlaneTag::of(polygon_m, grid, frame));
+    section_into(polygon_m, frame.run.other(), along_m, &mut work.section);
     let deck = work
         .section
         .stretches

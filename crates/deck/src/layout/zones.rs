@@ -41,7 +41,8 @@ struct ZoneShape<'a> {
     polygon: &'a [[f64; 2]],
     bounds: [[f64; 2]; 2],
     /// Set for an axis-parallel rectangle: its sections are read off its bounds.
-    box_section: Option<BoxSection>,
+    /// An axis-parallel rectangle: its bounds are its shape.
+    rectangle: bool,
 }
 
 /// Each zone's polygons with the convex pieces that share an edge joined (see `zone_merge`), made
@@ -96,7 +97,7 @@ impl<'a> ZoneShapes<'a> {
                     rank,
                     polygon: polygon.as_slice(),
                     bounds: bounds(polygon),
-                    box_section: BoxSection::of(polygon),
+                    rectangle: BoxSection::of(polygon).is_some(),
                 })
             })
             .collect();
@@ -215,18 +216,19 @@ pub(crate) fn zone_pieces_with(
     let shape = |index: &usize| &zones.shapes[*index];
 
     // A plain line (see `PlainSplit`) like the last one: the pieces are already there.
-    let plane_box = BoxSection::of(line.plane_polygon_m);
+    // The plane's bounds when it is an axis-parallel rectangle.
+    let plane_rectangle = BoxSection::of(line.plane_polygon_m).map(|plane| plane.bounds());
     let inside_strip = |c: f64| strip[0] <= c && c <= strip[1];
     let spans_strip = |[lo, hi]: [[f64; 2]; 2]| !inside_strip(lo[k]) && !inside_strip(hi[k]);
-    let is_plain = plane_box.is_some_and(|plane| spans_strip(plane.bounds()))
+    let is_plain = plane_rectangle.is_some_and(spans_strip)
         && candidates
             .iter()
             .map(shape)
-            .all(|shape| shape.box_section.is_some() && spans_strip(shape.bounds));
+            .all(|shape| shape.rectangle && spans_strip(shape.bounds));
     let was_plain = std::mem::take(last_was_plain);
-    if is_plain {
+    if let (true, Some(plane_bounds)) = (is_plain, plane_rectangle) {
         plain.along_m = along_m;
-        plain.plane = bounds(line.plane_polygon_m);
+        plain.plane = plane_bounds;
         plain.shapes.clear();
         plain.shapes.extend(
             candidates
@@ -249,17 +251,18 @@ pub(crate) fn zone_pieces_with(
     let rectangles = candidates
         .iter()
         .map(shape)
-        .filter_map(|shape| shape.box_section.map(|_| shape.bounds))
-        .chain(plane_box.map(|plane| plane.bounds()));
+        .filter(|shape| shape.rectangle)
+        .map(|shape| shape.bounds)
+        .chain(plane_rectangle);
     for [lo, hi] in rectangles {
         breaks.extend([lo[r], hi[r]]);
     }
     let others = candidates
         .iter()
         .map(shape)
-        .filter(|shape| shape.box_section.is_none())
+        .filter(|shape| !shape.rectangle)
         .map(|shape| shape.polygon)
-        .chain(plane_box.is_none().then_some(line.plane_polygon_m));
+        .chain(plane_rectangle.is_none().then_some(line.plane_polygon_m));
     for polygon in others {
         breaks.extend(
             polygon
@@ -288,10 +291,7 @@ pub(crate) fn zone_pieces_with(
     let across = line.run.other();
     for pair in kept.windows(2) {
         let middle = 0.5 * (pair[0] + pair[1]);
-        match &plane_box {
-            Some(plane_box) => plane_box.section_into(across, middle, scratch),
-            None => section_into(line.plane_polygon_m, across, middle, scratch),
-        }
+        section_into(line.plane_polygon_m, across, middle, scratch);
         window.clear();
         window.extend(
             scratch
@@ -312,10 +312,7 @@ pub(crate) fn zone_pieces_with(
             if !(lo[r] < middle && middle <= hi[r]) {
                 continue;
             }
-            match &shape.box_section {
-                Some(shape_box) => shape_box.section_into(across, middle, scratch),
-                None => section_into(shape.polygon, across, middle, scratch),
-            }
+            section_into(shape.polygon, across, middle, scratch);
             let stretches = &scratch.stretches;
             let touched = stretches.iter().any(|s| {
                 window
@@ -454,15 +451,24 @@ mod tests {
         ]
     }
 
-    fn pieces_at(position_m: f64) -> Vec<PlanZonePiece> {
+    /// Line `number` along y at `position_m` on a 10 m x 6 m plane, split over its whole length.
+    fn split_on_plane(
+        zones: &[ZoneRegion],
+        zone_rank: &[u32],
+        number: u32,
+        position_m: f64,
+    ) -> Result<Vec<PlanZonePiece>, SpacingError> {
         let plane = rectangle(0.0, 0.0, 10.0, 6.0);
-        let line = strip_along_y(&plane, 1, position_m);
+        let line = strip_along_y(&plane, number, position_m);
         zone_pieces(
             line,
             [0.0, 6.0],
-            &ZoneShapes::new(&JoinedZones::new(&zones()), &[1, 2, 3]),
+            &ZoneShapes::new(&JoinedZones::new(zones), zone_rank),
         )
-        .expect("zones tile the plane")
+    }
+
+    fn pieces_at(position_m: f64) -> Vec<PlanZonePiece> {
+        split_on_plane(&zones(), &[1, 2, 3], 1, position_m).expect("zones tile the plane")
     }
 
     #[test]
@@ -491,7 +497,6 @@ mod tests {
         // The interior (zone 0) comes in two pieces cut at y = 2.9995, half a millimetre before the
         // edge zone (zone 1) starts at y = 3: the layout keeps no stretch under 1 mm, so unjoined the
         // cut would take the boundary's place. Joined, the change is at the boundary.
-        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
         let zones = vec![
             ZoneRegion {
                 zone_index: 0,
@@ -505,13 +510,7 @@ mod tests {
                 polygons_m: vec![rectangle(0.0, 3.0, 10.0, 6.0)],
             },
         ];
-        let line = strip_along_y(&plane, 1, 5.0);
-        let at = zone_pieces(
-            line,
-            [0.0, 6.0],
-            &ZoneShapes::new(&JoinedZones::new(&zones), &[1, 2]),
-        )
-        .expect("zones tile the plane");
+        let at = split_on_plane(&zones, &[1, 2], 1, 5.0).expect("zones tile the plane");
         assert_eq!(
             at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
             vec![0, 1]
@@ -524,7 +523,6 @@ mod tests {
         // The edge zone (rank 2) runs up to y = 3; a second edge piece ends 0.8 mm short of that,
         // inside the line's strip. Unmerged, that end took the change's place: the interior (rank
         // 1) began 0.8 mm early. The change must stay at y = 3 (the edge zone's own end).
-        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
         let zones = vec![
             ZoneRegion {
                 zone_index: 0,
@@ -538,13 +536,7 @@ mod tests {
                 ],
             },
         ];
-        let line = strip_along_y(&plane, 1, 5.0);
-        let at = zone_pieces(
-            line,
-            [0.0, 6.0],
-            &ZoneShapes::new(&JoinedZones::new(&zones), &[1, 2]),
-        )
-        .expect("zones tile the plane");
+        let at = split_on_plane(&zones, &[1, 2], 1, 5.0).expect("zones tile the plane");
         assert_eq!(
             at.iter().map(|p| p.zone_index).collect::<Vec<_>>(),
             vec![1, 0]
@@ -668,18 +660,11 @@ mod tests {
 
     #[test]
     fn a_gap_in_the_zones_is_an_error() {
-        let plane = rectangle(0.0, 0.0, 10.0, 6.0);
-        let line = strip_along_y(&plane, 7, 5.0);
         let only_edge = vec![ZoneRegion {
             zone_index: 0,
             polygons_m: vec![rectangle(0.0, 0.0, 10.0, 3.0)],
         }];
-        let error = zone_pieces(
-            line,
-            [0.0, 6.0],
-            &ZoneShapes::new(&JoinedZones::new(&only_edge), &[1]),
-        )
-        .expect_err("gap");
+        let error = split_on_plane(&only_edge, &[1], 7, 5.0).expect_err("gap");
         assert!(error.to_string().contains("rafter line 7"), "{error}");
     }
 }
